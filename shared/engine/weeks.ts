@@ -5,9 +5,16 @@ export type IsoWeek = string;
 const WEEK_RE = /^(\d{4})-W(\d{2})$/;
 const DAY_MS = 86_400_000;
 
+/** UTC midnight of a calendar day; unlike Date.UTC it does not map years 0–99 onto 1900–1999. */
+function utcDay(year: number, month: number, day: number): number {
+  const d = new Date(0);
+  d.setUTCFullYear(year, month, day);
+  return d.getTime();
+}
+
 /** Number of ISO weeks in a year: 53 when 1 January is a Thursday, or a Wednesday in a leap year. */
 export function weeksInYear(year: number): 52 | 53 {
-  const jan1 = new Date(Date.UTC(year, 0, 1)).getUTCDay();
+  const jan1 = new Date(utcDay(year, 0, 1)).getUTCDay();
   const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
   return jan1 === 4 || (leap && jan1 === 3) ? 53 : 52;
 }
@@ -33,18 +40,18 @@ export function formatWeek(year: number, week: number): IsoWeek {
 export function mondayOf(value: IsoWeek): Date {
   const { year, week } = parseWeek(value);
   // 4 January is always in week 1.
-  const jan4 = Date.UTC(year, 0, 4);
+  const jan4 = utcDay(year, 0, 4);
   const jan4Dow = (new Date(jan4).getUTCDay() + 6) % 7; // 0 = Monday
   return new Date(jan4 - jan4Dow * DAY_MS + (week - 1) * 7 * DAY_MS);
 }
 
 /** The ISO week holding a date (its UTC calendar day). */
 export function weekOfDate(date: Date): IsoWeek {
-  const day = Date.UTC(date.getUTCFullYear(), date.getUTCMonth(), date.getUTCDate());
+  const day = utcDay(date.getUTCFullYear(), date.getUTCMonth(), date.getUTCDate());
   const dow = (new Date(day).getUTCDay() + 6) % 7;
   const thursday = new Date(day + (3 - dow) * DAY_MS);
   const year = thursday.getUTCFullYear();
-  const week = 1 + Math.floor((thursday.getTime() - Date.UTC(year, 0, 1)) / (7 * DAY_MS));
+  const week = 1 + Math.floor((thursday.getTime() - utcDay(year, 0, 1)) / (7 * DAY_MS));
   return formatWeek(year, week);
 }
 
