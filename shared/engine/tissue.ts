@@ -1,0 +1,641 @@
+// Weekly connective-tissue (tendon) work: which of three kinds, on which joints, at what dose, for one ISO week.
+// Pure and deterministic: team rules, the athlete's past prescriptions and next-day check-ins in, a week out.
+//
+// Shape of a week, in order of decisions:
+// 1. Kind. One kind for the whole week ('highRep', 'isometric' or 'loadedStretch'). A kind keeps going while
+//    it has run fewer than `maxConsecutiveWeeks` weeks in a row, so adaptation can build; then the least
+//    recently used kind takes over (ties: gentlest first). Near a meet the riskier kinds are pulled: with d
+//    the weeks from this week to the meet (0 in the meet week), loaded stretch is out when
+//    0 <= d <= pullStretchWeeksOut and isometrics when 0 <= d <= pullIsometricWeeksOut (-1 = never pulled).
+//    When every allowed kind has used up its run, the week rests (no items), which also resets the runs.
+// 2. Joints. The team's focus joints in their order, the ones under the most max-effort load first when
+//    `jointLoad` is given, then other loaded joints; at most `maxJointsPerWeek`. A joint with pain flagged in
+//    a check-in of the last `painLookbackWeeks` weeks is paused and the coach gets a suggestion to add a
+//    restriction on it.
+// 3. Dose, per joint, from that joint's last prescription of the same kind and the check-in after it
+//    (a check-in carries the week of the work it reports on, not the day it was filled in):
+//    - high-rep: soreness at or over `sorenessThreshold` makes it lighter: first the band one step lighter,
+//      once at the lightest band `highRepRepStep` fewer reps (not below `highRepMinReps`). Without
+//      soreness, reps climb back by the step to `highRepReps`; the band never gets heavier by itself.
+//    - isometric pulses: seconds start at `isometricStartSeconds`, rise by `isometricStepSeconds` after a
+//      week that left no soreness, cap at `isometricMaxSeconds`; soreness steps back one step; no check-in
+//      holds the time (the pulses are harder to recover from than they feel). A gap longer than
+//      `progressionResetWeeks` starts over. Angles are spread so that, each covering about ± the cover
+//      angle, together they span the joint's working range.
+//    - loaded stretch: the hold progresses the same way between its own start, step and cap.
+// Only history and check-ins from weeks before `week` count. Everything here is coaching guidance, not
+// medical advice; the notes always carry the usual cautions.
+
+import { JOINTS, type Joint, type Variant } from './types';
+import { parseWeek, weekNumber } from './weeks';
+
+export type TissueKind = 'highRep' | 'isometric' | 'loadedStretch';
+/** Gentlest first: the order riskier work is pulled in before a meet runs the other way. */
+export const TISSUE_KINDS: readonly TissueKind[] = ['highRep', 'isometric', 'loadedStretch'];
+
+export type BandLevel = 'lightest' | 'light' | 'medium';
+/** Band tensions, lightest first. */
+export const BAND_LEVELS: readonly BandLevel[] = ['lightest', 'light', 'medium'];
+
+export interface TissueRules {
+  /** A kind runs at most this many weeks in a row. */
+  maxConsecutiveWeeks: number;
+  /** Isometrics are pulled when the meet is 0..this many weeks away (-1: never pulled). */
+  pullIsometricWeeksOut: number;
+  /** Loaded stretch is pulled when the meet is 0..this many weeks away (-1: never pulled). */
+  pullStretchWeeksOut: number;
+  /** Next-day soreness (0 none … 10 worst) at or above this means the dose was too much. */
+  sorenessThreshold: number;
+  isometricStartSeconds: number;
+  isometricStepSeconds: number;
+  isometricMaxSeconds: number;
+  isometricPulsesPerAngle: number;
+  /** Degrees either side of each pulse angle that it is taken to cover. */
+  isometricAngleCoverDegrees: number;
+  highRepReps: number;
+  highRepMinReps: number;
+  highRepRepStep: number;
+  highRepBand: BandLevel;
+  /** Light reps that tire the muscle before the stretched hold. */
+  stretchFatigueReps: number;
+  stretchStartSeconds: number;
+  stretchStepSeconds: number;
+  stretchMaxSeconds: number;
+  maxJointsPerWeek: number;
+  /** Pain flagged in a check-in of this many past weeks pauses that joint's work. */
+  painLookbackWeeks: number;
+  /** A kind not done on a joint for longer than this many weeks starts over from its start dose. */
+  progressionResetWeeks: number;
+}
+
+/**
+ * Defaults. Common practice with no single published source: pulses of about 3–5 s, each angle covering
+ * about ±10°; high-rep work of 100 reps or more that leaves no soreness the next day; holds of minutes in
+ * the stretch; riskier work pulled first as a meet nears. The rest are our own choices: three weeks in a
+ * row, loaded stretch out 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line,
+ * +0.5 s a week, three pulses per angle, high-rep floor 60 reps in steps of 20, holds from 1 min by 15 s
+ * to 3 min, three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
+ */
+export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
+  maxConsecutiveWeeks: 3,
+  pullIsometricWeeksOut: 2,
+  pullStretchWeeksOut: 4,
+  sorenessThreshold: 3,
+  isometricStartSeconds: 3,
+  isometricStepSeconds: 0.5,
+  isometricMaxSeconds: 5,
+  isometricPulsesPerAngle: 3,
+  isometricAngleCoverDegrees: 10,
+  highRepReps: 100,
+  highRepMinReps: 60,
+  highRepRepStep: 20,
+  highRepBand: 'light',
+  stretchFatigueReps: 25,
+  stretchStartSeconds: 60,
+  stretchStepSeconds: 15,
+  stretchMaxSeconds: 180,
+  maxJointsPerWeek: 3,
+  painLookbackWeeks: 2,
+  progressionResetWeeks: 8,
+};
+
+export interface HighRepDose {
+  reps: number;
+  band: BandLevel;
+}
+export interface IsometricDose {
+  seconds: number;
+  pulsesPerAngle: number;
+  /** Joint angles in degrees; see the item's instructions for what 0° means on that joint. */
+  angles: number[];
+}
+export interface StretchDose {
+  fatigueReps: number;
+  holdSeconds: number;
+}
+
+interface ItemBase {
+  week: string;
+  joint: Joint;
+  exercise: string;
+  instructions: string[];
+}
+export type TissuePrescription =
+  | (ItemBase & { kind: 'highRep'; dose: HighRepDose })
+  | (ItemBase & { kind: 'isometric'; dose: IsometricDose })
+  | (ItemBase & { kind: 'loadedStretch'; dose: StretchDose });
+
+export interface TissueCheckin {
+  /** The week of the work reported on. */
+  week: string;
+  kind: TissueKind;
+  soreness: number; // 0-10
+  painJoints: Joint[];
+  note?: string;
+}
+
+export interface TissueSuggestion {
+  joint: Joint;
+  message: string;
+}
+
+export interface TissueInput {
+  week: string;
+  meetWeek?: string;
+  rules: TissueRules;
+  history: TissuePrescription[];
+  checkins: TissueCheckin[];
+  /** Joints the team wants worked, most important first (elbows, knees and shoulders are typical). */
+  focusJoints: Joint[];
+  /** Load per joint from the athlete's current max-effort picks (see jointLoadOf); heavier first. */
+  jointLoad?: Partial<Record<Joint, number>>;
+}
+
+export interface TissueWeek {
+  /** The week's kind, or null for a rest week. */
+  kind: TissueKind | null;
+  items: TissuePrescription[];
+  suggestions: TissueSuggestion[];
+  notes: string[];
+}
+
+export const TISSUE_CAUTION: readonly string[] = [
+  'Stop on sharp or unusual pain.',
+  'Tissue that gets hot, swollen or sore is a sign of doing too much: ease off and tell your coach.',
+  'This is coaching guidance, not medical advice: see a licensed clinician for injuries.',
+];
+
+const KIND_LABEL: Readonly<Record<TissueKind, string>> = {
+  highRep: 'high-rep light work',
+  isometric: 'isometric pulses',
+  loadedStretch: 'loaded stretch',
+};
+
+const JOINT_LABEL: Readonly<Record<Joint, string>> = {
+  shoulder: 'shoulder',
+  elbow: 'elbow',
+  wrist: 'wrist',
+  lowerBack: 'lower back',
+  hip: 'hip',
+  knee: 'knee',
+};
+
+/** Ordinary exercise names per joint and kind. */
+export const TISSUE_EXERCISES: Readonly<Record<Joint, Readonly<Record<TissueKind, string>>>> = {
+  elbow: {
+    highRep: 'Banded triceps pushdown',
+    isometric: 'Elbow extension pulses against a fixed strap',
+    loadedStretch: 'Light dumbbell overhead triceps extension, stretched hold',
+  },
+  knee: {
+    highRep: 'Banded terminal knee extension',
+    isometric: 'Knee extension pulses against a fixed strap',
+    loadedStretch: 'Light goblet squat, bottom hold',
+  },
+  shoulder: {
+    highRep: 'Banded pull-apart',
+    isometric: 'Pressing pulses against a door frame',
+    loadedStretch: 'Light dumbbell fly, stretched hold',
+  },
+  wrist: {
+    highRep: 'Banded wrist curl',
+    isometric: 'Wrist pulses against the other hand',
+    loadedStretch: 'Light wrist curl, stretched hold',
+  },
+  hip: {
+    highRep: 'Banded pull-through',
+    isometric: 'Hip extension pulses against a fixed strap',
+    loadedStretch: 'Light split squat, bottom hold',
+  },
+  lowerBack: {
+    highRep: 'Banded good morning',
+    isometric: 'Back extension pulses against a fixed strap',
+    loadedStretch: 'Light back extension, bottom hold',
+  },
+};
+
+/**
+ * Working range per joint for isometric angles, in degrees, with what 0° means. Approximate training
+ * ranges from memory, kept inside the usual full range of motion; not a clinical measure.
+ */
+export const JOINT_WORKING_RANGE: Readonly<Record<Joint, { from: number; to: number; zero: string }>> = {
+  elbow: { from: 0, to: 140, zero: '0° = arm straight' },
+  knee: { from: 0, to: 120, zero: '0° = leg straight' },
+  shoulder: { from: 0, to: 160, zero: '0° = arm by your side, raised to the front' },
+  wrist: { from: -60, to: 60, zero: '0° = wrist straight, minus = bent back' },
+  hip: { from: 0, to: 110, zero: '0° = standing tall' },
+  lowerBack: { from: 0, to: 40, zero: '0° = upright, leaning forward from the hips' },
+};
+
+/** Angles that, each covering ±cover degrees, span the joint's working range, evenly spread. */
+export function isometricAngles(joint: Joint, coverDegrees: number): number[] {
+  positive('isometricAngleCoverDegrees', coverDegrees);
+  const { from, to } = JOINT_WORKING_RANGE[joint];
+  const span = to - from;
+  const count = Math.max(1, Math.ceil(span / (2 * coverDegrees)));
+  if (count === 1) return [Math.round(from + span / 2)];
+  const first = from + Math.min(coverDegrees, span / 2);
+  const last = to - Math.min(coverDegrees, span / 2);
+  return Array.from({ length: count }, (_, i) => Math.round(first + ((last - first) * i) / (count - 1)));
+}
+
+/** Summed joint stress of a set of variants (e.g. the athlete's current max-effort picks). */
+export function jointLoadOf(variants: readonly Pick<Variant, 'stress'>[]): Partial<Record<Joint, number>> {
+  const load: Partial<Record<Joint, number>> = {};
+  for (const v of variants) {
+    for (const j of JOINTS) {
+      const s = v.stress[j] ?? 0;
+      if (s > 0) load[j] = (load[j] ?? 0) + s;
+    }
+  }
+  return load;
+}
+
+// ---- input checks -------------------------------------------------------------------------------------
+
+function finite(name: string, v: number): number {
+  if (typeof v !== 'number' || !Number.isFinite(v)) throw new RangeError(`${name} must be a finite number, got ${String(v)}`);
+  return v;
+}
+function positive(name: string, v: number): number {
+  if (finite(name, v) <= 0) throw new RangeError(`${name} must be greater than 0, got ${v}`);
+  return v;
+}
+function wholeAtLeast(name: string, v: number, min: number): number {
+  if (!Number.isInteger(finite(name, v)) || v < min) throw new RangeError(`${name} must be a whole number of at least ${min}, got ${v}`);
+  return v;
+}
+function oneOf<T>(name: string, v: T, allowed: readonly T[]): T {
+  if (!allowed.includes(v)) throw new RangeError(`${name} must be one of ${allowed.join(', ')}, got ${String(v)}`);
+  return v;
+}
+
+function checkRules(r: TissueRules): void {
+  wholeAtLeast('maxConsecutiveWeeks', r.maxConsecutiveWeeks, 1);
+  wholeAtLeast('pullIsometricWeeksOut', r.pullIsometricWeeksOut, -1);
+  wholeAtLeast('pullStretchWeeksOut', r.pullStretchWeeksOut, -1);
+  if (positive('sorenessThreshold', r.sorenessThreshold) > 10) {
+    throw new RangeError(`sorenessThreshold must be at most 10, got ${r.sorenessThreshold}`);
+  }
+  for (const [prefix, start, step, max] of [
+    ['isometric', r.isometricStartSeconds, r.isometricStepSeconds, r.isometricMaxSeconds],
+    ['stretch', r.stretchStartSeconds, r.stretchStepSeconds, r.stretchMaxSeconds],
+  ] as const) {
+    positive(`${prefix}StartSeconds`, start);
+    if (finite(`${prefix}StepSeconds`, step) < 0) throw new RangeError(`${prefix}StepSeconds must not be negative, got ${step}`);
+    if (finite(`${prefix}MaxSeconds`, max) < start) {
+      throw new RangeError(`${prefix}MaxSeconds (${max}) must be at least ${prefix}StartSeconds (${start})`);
+    }
+  }
+  wholeAtLeast('isometricPulsesPerAngle', r.isometricPulsesPerAngle, 1);
+  positive('isometricAngleCoverDegrees', r.isometricAngleCoverDegrees);
+  wholeAtLeast('highRepMinReps', r.highRepMinReps, 1);
+  if (wholeAtLeast('highRepReps', r.highRepReps, 1) < r.highRepMinReps) {
+    throw new RangeError(`highRepReps (${r.highRepReps}) must be at least highRepMinReps (${r.highRepMinReps})`);
+  }
+  wholeAtLeast('highRepRepStep', r.highRepRepStep, 1);
+  oneOf('highRepBand', r.highRepBand, BAND_LEVELS);
+  wholeAtLeast('stretchFatigueReps', r.stretchFatigueReps, 1);
+  wholeAtLeast('maxJointsPerWeek', r.maxJointsPerWeek, 1);
+  wholeAtLeast('painLookbackWeeks', r.painLookbackWeeks, 1);
+  wholeAtLeast('progressionResetWeeks', r.progressionResetWeeks, 1);
+}
+
+function checkInput(input: TissueInput): void {
+  parseWeek(input.week);
+  if (input.meetWeek !== undefined) parseWeek(input.meetWeek);
+  checkRules(input.rules);
+  for (const j of input.focusJoints) oneOf('focus joint', j, JOINTS);
+  for (const [j, load] of Object.entries(input.jointLoad ?? {})) {
+    oneOf('joint', j as Joint, JOINTS);
+    finite(`load on ${j}`, load ?? 0);
+  }
+  for (const item of input.history) {
+    parseWeek(item.week);
+    oneOf('kind', item.kind, TISSUE_KINDS);
+    oneOf('joint', item.joint, JOINTS);
+    if (item.kind === 'highRep') {
+      wholeAtLeast('high-rep reps in history', item.dose.reps, 1);
+      oneOf('band in history', item.dose.band, BAND_LEVELS);
+    } else if (item.kind === 'isometric') {
+      positive('isometric seconds in history', item.dose.seconds);
+    } else {
+      positive('stretch hold seconds in history', item.dose.holdSeconds);
+    }
+  }
+  for (const c of input.checkins) {
+    parseWeek(c.week);
+    oneOf('kind', c.kind, TISSUE_KINDS);
+    if (finite('soreness', c.soreness) < 0 || c.soreness > 10) throw new RangeError(`soreness must be from 0 to 10, got ${c.soreness}`);
+    for (const j of c.painJoints) oneOf('pain joint', j, JOINTS);
+  }
+}
+
+// ---- history lookups ----------------------------------------------------------------------------------
+
+type ItemOf<K extends TissueKind> = Extract<TissuePrescription, { kind: K }>;
+
+interface Past {
+  now: number;
+  kindsByWeek: Map<number, Set<TissueKind>>;
+  checkins: Map<string, { soreness: number; painJoints: Set<Joint> }>;
+  items: TissuePrescription[];
+}
+
+function readPast(input: TissueInput): Past {
+  const now = weekNumber(input.week);
+  const items = input.history.filter((h) => weekNumber(h.week) < now);
+  const kindsByWeek = new Map<number, Set<TissueKind>>();
+  for (const h of items) {
+    const n = weekNumber(h.week);
+    const set = kindsByWeek.get(n) ?? new Set<TissueKind>();
+    set.add(h.kind);
+    kindsByWeek.set(n, set);
+  }
+  // Several check-ins for the same week and kind merge to the worst soreness and every joint flagged.
+  const checkins = new Map<string, { soreness: number; painJoints: Set<Joint> }>();
+  for (const c of input.checkins) {
+    if (weekNumber(c.week) >= now) continue;
+    const key = `${weekNumber(c.week)}:${c.kind}`;
+    const merged = checkins.get(key) ?? { soreness: 0, painJoints: new Set<Joint>() };
+    merged.soreness = Math.max(merged.soreness, c.soreness);
+    for (const j of c.painJoints) merged.painJoints.add(j);
+    checkins.set(key, merged);
+  }
+  return { now, kindsByWeek, checkins, items };
+}
+
+function runLength(past: Past, kind: TissueKind): number {
+  let run = 0;
+  while (past.kindsByWeek.get(past.now - run - 1)?.has(kind)) run++;
+  return run;
+}
+
+function lastUsed(past: Past, kind: TissueKind): number {
+  let last = Number.NEGATIVE_INFINITY;
+  for (const [n, kinds] of past.kindsByWeek) if (kinds.has(kind) && n > last) last = n;
+  return last;
+}
+
+// Lower rank = lighter dose; among same-week duplicates the lighter one counts, so order never matters.
+function doseRank(item: TissuePrescription): number {
+  switch (item.kind) {
+    case 'highRep':
+      return BAND_LEVELS.indexOf(item.dose.band) * 1e6 + item.dose.reps;
+    case 'isometric':
+      return item.dose.seconds;
+    case 'loadedStretch':
+      return item.dose.holdSeconds;
+  }
+}
+
+function lastItem<K extends TissueKind>(past: Past, kind: K, joint: Joint): ItemOf<K> | undefined {
+  let best: ItemOf<K> | undefined;
+  for (const h of past.items) {
+    if (h.kind !== kind || h.joint !== joint) continue;
+    const item = h as ItemOf<K>;
+    const n = weekNumber(item.week);
+    const bestN = best ? weekNumber(best.week) : Number.NEGATIVE_INFINITY;
+    if (n > bestN || (best && n === bestN && doseRank(item) < doseRank(best))) best = item;
+  }
+  return best;
+}
+
+function checkinFor(past: Past, week: string, kind: TissueKind): { soreness: number; painJoints: Set<Joint> } | undefined {
+  return past.checkins.get(`${weekNumber(week)}:${kind}`);
+}
+
+// ---- decisions ----------------------------------------------------------------------------------------
+
+function pullWindow(rules: TissueRules, kind: TissueKind): number {
+  if (kind === 'isometric') return rules.pullIsometricWeeksOut;
+  if (kind === 'loadedStretch') return rules.pullStretchWeeksOut;
+  return -1;
+}
+
+function chooseKind(input: TissueInput, past: Past): { kind: TissueKind | null; notes: string[] } {
+  const { rules } = input;
+  const weeksOut = input.meetWeek === undefined ? undefined : weekNumber(input.meetWeek) - past.now;
+  const pulled = TISSUE_KINDS.filter((k) => weeksOut !== undefined && weeksOut >= 0 && weeksOut <= pullWindow(rules, k));
+  const notes: string[] = [];
+  if (pulled.length > 0) {
+    const when = weeksOut === 0 ? 'this is meet week' : `the meet is ${weeksOut} week${weeksOut === 1 ? '' : 's'} away`;
+    notes.push(`${capitalise(pulled.map((k) => KIND_LABEL[k]).join(' and '))} ${pulled.length > 1 ? 'are' : 'is'} pulled: ${when}.`);
+  }
+  const open = TISSUE_KINDS.filter((k) => !pulled.includes(k) && runLength(past, k) < rules.maxConsecutiveWeeks);
+  if (open.length === 0) {
+    notes.push(
+      `No connective-tissue work this week: every kind still allowed has run ${rules.maxConsecutiveWeeks} week${rules.maxConsecutiveWeeks === 1 ? '' : 's'} in a row, so the tissue gets a rest week.`,
+    );
+    return { kind: null, notes };
+  }
+  if (weeksOut !== undefined && weeksOut >= 0 && weeksOut <= 1 && open.includes('highRep')) {
+    notes.push('The meet is close: keep any high-rep work very easy and finish it early in the week.');
+  }
+  const lastWeek = past.kindsByWeek.get(past.now - 1);
+  const continuing = open.find((k) => lastWeek?.has(k));
+  if (continuing) {
+    notes.push(
+      `${capitalise(KIND_LABEL[continuing])} again: week ${runLength(past, continuing) + 1} of at most ${rules.maxConsecutiveWeeks} in a row.`,
+    );
+    return { kind: continuing, notes };
+  }
+  // Least recently used first; TISSUE_KINDS order (gentlest first) breaks ties, and the sort is stable.
+  const kind = [...open].sort((a, b) => {
+    const [x, y] = [lastUsed(past, a), lastUsed(past, b)];
+    return x === y ? 0 : x < y ? -1 : 1;
+  })[0]!;
+  const stopped = TISSUE_KINDS.find((k) => lastWeek?.has(k) && runLength(past, k) >= rules.maxConsecutiveWeeks);
+  notes.push(
+    stopped
+      ? `${capitalise(KIND_LABEL[kind])} this week: ${KIND_LABEL[stopped]} has run ${rules.maxConsecutiveWeeks} week${rules.maxConsecutiveWeeks === 1 ? '' : 's'} in a row, so it rotates out.`
+      : `${capitalise(KIND_LABEL[kind])} this week.`,
+  );
+  return { kind, notes };
+}
+
+function chooseJoints(input: TissueInput): Joint[] {
+  const load = (j: Joint): number => input.jointLoad?.[j] ?? 0;
+  const focus = [...new Set(input.focusJoints)].sort((a, b) => load(b) - load(a));
+  const extra = JOINTS.filter((j) => !focus.includes(j) && load(j) > 0).sort((a, b) => load(b) - load(a));
+  return [...focus, ...extra].slice(0, input.rules.maxJointsPerWeek);
+}
+
+function recentPain(input: TissueInput, past: Past): Map<Joint, { weeks: Set<string>; after: Set<TissueKind> }> {
+  const pain = new Map<Joint, { weeks: Set<string>; after: Set<TissueKind> }>();
+  const sorted = [...input.checkins].sort((a, b) => weekNumber(a.week) - weekNumber(b.week));
+  for (const c of sorted) {
+    const n = weekNumber(c.week);
+    if (n >= past.now || n < past.now - input.rules.painLookbackWeeks) continue;
+    for (const j of c.painJoints) {
+      const entry = pain.get(j) ?? { weeks: new Set<string>(), after: new Set<TissueKind>() };
+      entry.weeks.add(c.week);
+      entry.after.add(c.kind);
+      pain.set(j, entry);
+    }
+  }
+  return pain;
+}
+
+interface Ladder {
+  start: number;
+  step: number;
+  max: number;
+}
+
+/** Next value on a start/step/cap ladder from the last dose and the check-in after it. */
+function climb(
+  ladder: Ladder,
+  last: { week: string; value: number } | undefined,
+  checkin: { soreness: number } | undefined,
+  input: TissueInput,
+  past: Past,
+): { value: number; why?: string } {
+  const { start, step, max } = ladder;
+  if (!last) return { value: start };
+  const gap = past.now - weekNumber(last.week);
+  if (gap > input.rules.progressionResetWeeks) return { value: start, why: `starting over after ${gap} weeks away` };
+  const prev = Math.min(max, Math.max(start, last.value));
+  if (!checkin) return { value: prev, why: `kept as last time: no check-in after ${last.week}` };
+  if (checkin.soreness >= input.rules.sorenessThreshold) {
+    return { value: Math.max(start, prev - step), why: `one step back: soreness ${checkin.soreness}/10 after ${last.week}` };
+  }
+  const value = Math.min(max, prev + step);
+  return value > prev ? { value, why: `one step up: no soreness to speak of after ${last.week}` } : { value, why: 'at the cap' };
+}
+
+function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: HighRepDose; why?: string } {
+  const r = input.rules;
+  const last = lastItem(past, 'highRep', joint);
+  const ruleBand = BAND_LEVELS.indexOf(r.highRepBand);
+  if (!last) return { dose: { reps: r.highRepReps, band: r.highRepBand } };
+  const band = Math.min(BAND_LEVELS.indexOf(last.dose.band), ruleBand);
+  const reps = Math.min(last.dose.reps, r.highRepReps);
+  const checkin = checkinFor(past, last.week, 'highRep');
+  if (!checkin) {
+    return { dose: { reps, band: BAND_LEVELS[band]! }, why: `Same dose as last time: no check-in after ${last.week}.` };
+  }
+  if (checkin.soreness >= r.sorenessThreshold) {
+    const sore = `soreness ${checkin.soreness}/10 after ${last.week}`;
+    if (band > 0) {
+      return { dose: { reps, band: BAND_LEVELS[band - 1]! }, why: `Band one step lighter, same reps: ${sore}.` };
+    }
+    const fewer = Math.max(r.highRepMinReps, reps - r.highRepRepStep);
+    if (fewer < reps) {
+      return { dose: { reps: fewer, band: BAND_LEVELS[band]! }, why: `${reps - fewer} fewer reps (already on the lightest band): ${sore}.` };
+    }
+    return {
+      dose: { reps, band: BAND_LEVELS[band]! },
+      why: `Already the lightest dose and still sore (${sore}): the coach should review this work.`,
+    };
+  }
+  const more = Math.min(r.highRepReps, reps + r.highRepRepStep);
+  return {
+    dose: { reps: more, band: BAND_LEVELS[band]! },
+    ...(more > reps ? { why: `${more - reps} reps back on: no soreness to speak of after ${last.week}.` } : {}),
+  };
+}
+
+function formatSeconds(s: number): string {
+  if (s < 60) return `${s} s`;
+  const m = Math.floor(s / 60);
+  const rest = Math.round((s - m * 60) * 10) / 10;
+  return rest === 0 ? `${m} min` : `${m} min ${rest} s`;
+}
+
+function capitalise(s: string): string {
+  return s.charAt(0).toUpperCase() + s.slice(1);
+}
+
+function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Joint): TissuePrescription {
+  const r = input.rules;
+  const base = { week: input.week, joint, exercise: TISSUE_EXERCISES[joint][kind] };
+  if (kind === 'highRep') {
+    const { dose, why } = highRepDose(input, past, joint);
+    return {
+      ...base,
+      kind,
+      dose,
+      instructions: [
+        `${dose.reps} reps with the ${dose.band} band, in as few sets as feels easy.`,
+        'Use the least effort that moves the band: smooth reps, no chasing a burn or a pump.',
+        'Soreness the next day means it was done too hard: say so in the check-in.',
+        ...(why ? [why] : []),
+      ],
+    };
+  }
+  if (kind === 'isometric') {
+    const last = lastItem(past, 'isometric', joint);
+    const step = climb(
+      { start: r.isometricStartSeconds, step: r.isometricStepSeconds, max: r.isometricMaxSeconds },
+      last && { week: last.week, value: last.dose.seconds },
+      last && checkinFor(past, last.week, 'isometric'),
+      input,
+      past,
+    );
+    const angles = isometricAngles(joint, r.isometricAngleCoverDegrees);
+    return {
+      ...base,
+      kind,
+      dose: { seconds: step.value, pulsesPerAngle: r.isometricPulsesPerAngle, angles },
+      instructions: [
+        'No weight: push against something that does not move (a strap, the safety pins, a door frame).',
+        `${r.isometricPulsesPerAngle} pulses of ${formatSeconds(step.value)} at each angle: ${angles.map((a) => `${a}°`).join(', ')} (${JOINT_WORKING_RANGE[joint].zero}). Each angle covers about ${r.isometricAngleCoverDegrees}° either side.`,
+        'Build to a firm effort, not an all-out one, and relax fully between pulses.',
+        'Pulses are harder to recover from than they feel: do not add time on your own.',
+        ...(step.why ? [`Hold time ${step.why}.`] : []),
+      ],
+    };
+  }
+  const last = lastItem(past, 'loadedStretch', joint);
+  const step = climb(
+    { start: r.stretchStartSeconds, step: r.stretchStepSeconds, max: r.stretchMaxSeconds },
+    last && { week: last.week, value: last.dose.holdSeconds },
+    last && checkinFor(past, last.week, 'loadedStretch'),
+    input,
+    past,
+  );
+  return {
+    ...base,
+    kind,
+    dose: { fatigueReps: r.stretchFatigueReps, holdSeconds: step.value },
+    instructions: [
+      `First tire the muscle: ${r.stretchFatigueReps} light reps of the same movement.`,
+      `Then hold the stretched position for ${formatSeconds(step.value)}, breathing slowly; the load moves from the tired muscle to the tendon.`,
+      'Light enough to hold still and relaxed; ease out at once if the stretch turns sharp.',
+      ...(step.why ? [`Hold time ${step.why}.`] : []),
+    ],
+  };
+}
+
+/** The athlete's connective-tissue work for `input.week`. Throws a RangeError on malformed input. */
+export function prescribeTissueWork(input: TissueInput): TissueWeek {
+  checkInput(input);
+  const past = readPast(input);
+  const { kind, notes } = chooseKind(input, past);
+  const pain = recentPain(input, past);
+  const suggestions: TissueSuggestion[] = JOINTS.filter((j) => pain.has(j)).map((joint) => {
+    const { weeks, after } = pain.get(joint)!;
+    const label = JOINT_LABEL[joint];
+    return {
+      joint,
+      message:
+        `Pain at the ${label} reported after ${[...after].map((k) => KIND_LABEL[k]).join(' and ')} (${[...weeks].join(', ')}). ` +
+        `Consider adding a restriction on the ${label} for max-effort picks. Its connective-tissue work is paused meanwhile. ` +
+        'If it persists, refer the athlete to a licensed clinician.',
+    };
+  });
+  const items: TissuePrescription[] = [];
+  if (kind) {
+    const joints = chooseJoints(input);
+    if (joints.length === 0) notes.push('No focus joints set: add some in the team rules to get connective-tissue work.');
+    for (const joint of joints) {
+      if (pain.has(joint)) {
+        notes.push(`No work on the ${JOINT_LABEL[joint]} this week: pain was reported there recently.`);
+        continue;
+      }
+      items.push(buildItem(input, past, kind, joint));
+    }
+  }
+  return { kind, items, suggestions, notes: [...notes, ...TISSUE_CAUTION] };
+}
