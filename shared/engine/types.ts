@@ -83,7 +83,14 @@ export interface PlanRequest {
 }
 export interface PlanResult {
   entries: (PlanEntry & { reasons: string[] })[]; // one per athlete × week × slot that could be filled
-  unfilled: { athleteId: string; week: string; slotId: string; blockedBy: RuleId[] }[];
+  unfilled: {
+    athleteId: string;
+    week: string;
+    slotId: string;
+    blockedBy: RuleId[];
+    /** The unpinned board entry that had to go from this cell (and why) when nothing valid could replace it. */
+    dropped?: { variantId: string; rule: RuleId; message: string };
+  }[];
   swaps: { athleteId: string; week: string; slotId: string; from: string; to: string; rule: RuleId }[];
 }
 export interface Violation {

@@ -1,0 +1,185 @@
+// generatePlan: keeps pinned and still-valid board entries, replaces the rest and fills the open
+// cells, athlete by athlete, each from its own seeded stream.
+
+import { Board, addAll, buildAth, cellViolations, ctxFor, entriesOf, rangeOf, wn, type Ath, type Ctx } from './core';
+import { keptReasons, pickReasons, pinnedReasons, swapReason } from './reasons';
+import { athleteRng } from './rng';
+import { Search, buildCells, solve, type Pick } from './search';
+import { RULE_IDS, type AthleteInput, type PlanEntry, type PlanRequest, type PlanResult, type RuleId } from './types';
+
+interface Open {
+  at: number;
+  w: number;
+  week: string;
+  slot: number;
+  slotId: string;
+}
+
+interface Dropped {
+  variantId: string;
+  rule: RuleId;
+  message: string;
+}
+
+/**
+ * Plans every athlete × week × slot of the request. Decisions beyond the rules themselves:
+ * - Unpinned board entries are judged in week order (slot order within a week) against history, the
+ *   pinned entries and the entries kept before them, so of two clashing entries the earlier stays.
+ * - An unpinned entry that must go and has no valid replacement leaves its cell in `unfilled`, with the
+ *   removed entry and its rule in `dropped`; it is never kept as a silent break.
+ * - Board entries outside the requested weeks or slots count toward the rules but are not returned.
+ * - Of several board entries for one cell, the first pinned one (else the first) is the cell's entry.
+ */
+export function generatePlan(req: PlanRequest): PlanResult {
+  const ctx = ctxFor(req);
+  const weeks = [...new Set(req.weeks)];
+  weeks.forEach(wn);
+  const result: PlanResult = { entries: [], unfilled: [], swaps: [] };
+  const done = new Set<string>();
+  for (const a of req.athletes) {
+    if (done.has(a.id)) continue;
+    done.add(a.id);
+    planAthlete(ctx, a, weeks, result);
+  }
+  return result;
+}
+
+function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: PlanResult): void {
+  const ath = buildAth(ctx, input);
+  const slots = ctx.slotList;
+  const S = slots.length;
+  const nums = weeks.map(wn);
+  const weekIdx = new Map(weeks.map((w, i) => [w, i]));
+  const planned = entriesOf(ctx.req.planned, input.id);
+  const atCell: (PlanEntry | undefined)[] = new Array(weeks.length * S);
+  const context: PlanEntry[] = [];
+  for (const e of planned) {
+    const wi = weekIdx.get(e.week);
+    const slot = ctx.slots.get(e.slotId);
+    if (wi === undefined || !slot) {
+      context.push(e);
+      continue;
+    }
+    const i = wi * S + slot.idx;
+    const cur = atCell[i];
+    if (!cur || (!cur.pinned && e.pinned)) atCell[i] = e;
+  }
+  const [lo, hi] = rangeOf(nums, input.history, planned);
+  const board = new Board(ctx, lo, hi);
+  addAll(ctx, board, input.history);
+  addAll(ctx, board, context);
+  const pinned = atCell.filter((e): e is PlanEntry => !!e?.pinned);
+  addAll(ctx, board, pinned);
+
+  const kind: ('pinned' | 'kept' | 'open')[] = new Array(weeks.length * S).fill('open');
+  const dropped: (Dropped | undefined)[] = new Array(weeks.length * S);
+  atCell.forEach((e, i) => {
+    if (!e) return;
+    if (e.pinned) {
+      kind[i] = 'pinned';
+      return;
+    }
+    const found = cellViolations(ctx, ath, board, e.week, e.slotId, e.variantId);
+    if (found.length === 0) {
+      kind[i] = 'kept';
+      addAll(ctx, board, [e]);
+    } else {
+      dropped[i] = { variantId: e.variantId, rule: found[0]!.rule, message: found[0]!.message };
+    }
+  });
+
+  const open: Open[] = [];
+  for (let i = 0; i < weeks.length * S; i++) {
+    if (kind[i] !== 'open') continue;
+    const wi = Math.floor(i / S);
+    open.push({ at: i, w: nums[wi]!, week: weeks[wi]!, slot: i % S, slotId: slots[i % S]!.id });
+  }
+  const cells = buildCells(ctx, ath, board, open, athleteRng(ctx.req.rules.seed, input.id));
+  const search = new Search(ctx, ath, board, cells, Math.min(...nums), Math.max(...nums));
+  const sol = cells.length ? solve(search) : null;
+
+  // Cell index (weeks × slots) → the variant chosen there and how it won.
+  const chosen = new Map<number, { v: number; pick?: Pick }>();
+  cells.forEach((cell, q) => {
+    const v = sol ? sol.assign[q]! : -1;
+    if (v < 0) return;
+    board.add(cell.w, v, cell.slot, 1);
+    chosen.set(cell.at, { v, pick: sol!.picks[q] });
+  });
+  // A cell the bounded search left empty is filled afterwards if anything still fits there.
+  for (const cell of cells) {
+    if (chosen.has(cell.at)) continue;
+    const best = search.bestNow(cell);
+    if (!best) continue;
+    board.add(cell.w, best.v, cell.slot, 1);
+    chosen.set(cell.at, best);
+  }
+  emit(ctx, ath, board, weeks, nums, atCell, kind, dropped, chosen, result);
+}
+
+function emit(
+  ctx: Ctx,
+  ath: Ath,
+  board: Board,
+  weeks: string[],
+  nums: number[],
+  atCell: (PlanEntry | undefined)[],
+  kind: ('pinned' | 'kept' | 'open')[],
+  dropped: (Dropped | undefined)[],
+  chosen: Map<number, { v: number; pick?: Pick }>,
+  result: PlanResult,
+): void {
+  const athleteId = ath.input.id;
+  const S = ctx.slotList.length;
+  for (let i = 0; i < weeks.length * S; i++) {
+    const week = weeks[Math.floor(i / S)]!;
+    const w = nums[Math.floor(i / S)]!;
+    const slot = i % S;
+    const slotId = ctx.slotList[slot]!.id;
+    const e = atCell[i];
+    if (kind[i] === 'pinned' && e) {
+      const v = ctx.byId.get(e.variantId);
+      if (v !== undefined) board.add(w, v, slot, -1);
+      const found = cellViolations(ctx, ath, board, week, slotId, e.variantId);
+      if (v !== undefined) board.add(w, v, slot, 1);
+      result.entries.push({ athleteId, week, slotId, variantId: e.variantId, pinned: true, reasons: pinnedReasons(found) });
+      continue;
+    }
+    if (kind[i] === 'kept' && e) {
+      const v = ctx.byId.get(e.variantId)!;
+      result.entries.push({ athleteId, week, slotId, variantId: e.variantId, reasons: keptReasons(ctx, board, w, v) });
+      continue;
+    }
+    const got = chosen.get(i);
+    const gone = dropped[i];
+    if (got) {
+      const variantId = ctx.variants[got.v]!.id;
+      const reasons = pickReasons(ctx, ath, board, w, slot, got.v, got.pick);
+      if (gone) {
+        reasons.unshift(swapReason(ctx, gone.variantId, gone.message));
+        result.swaps.push({ athleteId, week, slotId, from: gone.variantId, to: variantId, rule: gone.rule });
+      }
+      result.entries.push({ athleteId, week, slotId, variantId, reasons });
+      continue;
+    }
+    result.unfilled.push({
+      athleteId,
+      week,
+      slotId,
+      blockedBy: blockedBy(ctx, ath, board, week, slotId),
+      ...(gone ? { dropped: gone } : {}),
+    });
+  }
+}
+
+/** The rules that rule out every variant of a fitting lift (or liftMismatch when none fits the slot). */
+function blockedBy(ctx: Ctx, ath: Ath, board: Board, week: string, slotId: string): RuleId[] {
+  const mask = ctx.slots.get(slotId)!.mask;
+  const rules = new Set<RuleId>();
+  ctx.variants.forEach((x, v) => {
+    if ((ctx.liftBit[v]! & mask) === 0) return;
+    for (const f of cellViolations(ctx, ath, board, week, slotId, x.id)) rules.add(f.rule);
+  });
+  if (rules.size === 0) rules.add('liftMismatch');
+  return RULE_IDS.filter((r) => rules.has(r));
+}

@@ -1,0 +1,182 @@
+// Test and benchmark fixtures: a small hand-made library and seeded generators of random libraries,
+// rules, histories, boards and meets (invented names and numbers).
+
+import { JOINTS, type AthleteInput, type Joint, type Lift, type PlanEntry, type PlanRequest, type Rules, type SlotDef, type Variant } from '../../../shared/engine/types';
+import { addWeeks, weekRange } from '../../../shared/engine/weeks';
+
+/** Small fast seeded generator for fixtures (the engine itself uses seedrandom). */
+export function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+export type Rand = () => number;
+export const int = (r: Rand, lo: number, hi: number): number => lo + Math.floor(r() * (hi - lo + 1));
+export const pick = <T>(r: Rand, list: readonly T[]): T => list[Math.floor(r() * list.length)]!;
+export const chance = (r: Rand, p: number): boolean => r() < p;
+
+export const TWO_SLOTS: SlotDef[] = [
+  { id: 'lower', lifts: ['squat', 'deadlift'] },
+  { id: 'upper', lifts: ['bench'] },
+];
+
+const FAMILIES: Record<Lift, string[]> = {
+  squat: ['box-squat', 'pause-squat', 'front-squat', 'safety-bar-squat', 'belt-squat', 'anderson-squat', 'good-morning'],
+  bench: ['board-press', 'floor-press', 'pin-press', 'close-grip', 'incline', 'pause-bench', 'reverse-band-bench'],
+  deadlift: ['rack-pull', 'deficit-pull', 'block-pull', 'snatch-grip-pull', 'paused-pull', 'stiff-leg-pull'],
+};
+const JOINT_BIAS: Record<Lift, Joint[]> = {
+  squat: ['knee', 'hip', 'lowerBack'],
+  bench: ['shoulder', 'elbow', 'wrist'],
+  deadlift: ['lowerBack', 'hip'],
+};
+export const EQUIPMENT = ['safety bar', 'cambered bar', 'boards', 'bands', 'chains', 'box', 'pins', 'blocks'];
+const BARS = ['straight bar', 'safety bar', 'cambered bar', 'football bar'];
+const EMPHASES = ['bottom', 'midRange', 'lockout'] as const;
+
+export interface LibraryOptions {
+  lifts?: Lift[];
+  familiesPerLift?: number;
+  equipmentChance?: number;
+  maxStress?: number;
+}
+
+export function randomLibrary(r: Rand, size: number, opts: LibraryOptions = {}): Variant[] {
+  const lifts = opts.lifts ?? ['squat', 'bench', 'deadlift'];
+  const out: Variant[] = [];
+  for (let i = 0; i < size; i++) {
+    const lift = lifts[i % lifts.length]!;
+    const fams = FAMILIES[lift].slice(0, opts.familiesPerLift ?? FAMILIES[lift].length);
+    const family = pick(r, fams);
+    const stress: Partial<Record<Joint, number>> = {};
+    for (const j of JOINTS) {
+      const main = JOINT_BIAS[lift].includes(j);
+      const s = main ? int(r, 0, opts.maxStress ?? 3) : chance(r, 0.15) ? 1 : 0;
+      if (s > 0) stress[j] = s;
+    }
+    const equipment = chance(r, opts.equipmentChance ?? 0.3) ? [pick(r, EQUIPMENT)] : [];
+    out.push({
+      id: `v${i}`,
+      name: `${family.replace(/-/g, ' ')} ${i}`,
+      lift,
+      family,
+      risk: int(r, 1, 3) as 1 | 2 | 3,
+      specificity: Math.round((0.3 + 0.7 * r()) * 100) / 100,
+      stress,
+      equipment,
+      ...(chance(r, 0.8) ? { emphasis: pick(r, EMPHASES) } : {}),
+      ...(chance(r, 0.8) ? { bar: pick(r, BARS) } : {}),
+    });
+  }
+  return out;
+}
+
+export function randomRules(r: Rand, seed = 'seed'): Rules {
+  const jointBudget: Partial<Record<Joint, number>> = {};
+  for (const j of JOINTS) if (chance(r, 0.6)) jointBudget[j] = int(r, 2, 12);
+  const taper = [];
+  if (chance(r, 0.7)) taper.push({ weeksOut: int(r, 1, 5), maxRisk: int(r, 1, 2) as 1 | 2 });
+  if (chance(r, 0.5)) taper.push({ weeksOut: int(r, 0, 2), maxRisk: 1 as const, minSpecificity: Math.round(r() * 80) / 100 });
+  return {
+    repeatWindowWeeks: int(r, 0, 6),
+    familyWindowWeeks: int(r, 0, 4),
+    jointWindowWeeks: int(r, 1, 4),
+    jointBudget,
+    taper,
+    seed,
+  };
+}
+
+const STARTS = ['2026-W50', '2026-W51', '2026-W52', '2027-W01', '2027-W20', '2027-W50', '2025-W30'];
+
+/** Random entries, lift-matched to their slot most of the time, one variant per cell. */
+export function randomEntries(r: Rand, athleteId: string, weeks: string[], slots: SlotDef[], variants: Variant[], fill: number): PlanEntry[] {
+  const out: PlanEntry[] = [];
+  for (const week of weeks) {
+    for (const s of slots) {
+      if (!chance(r, fill)) continue;
+      const fitting = variants.filter((v) => s.lifts.includes(v.lift));
+      const v = fitting.length && chance(r, 0.9) ? pick(r, fitting) : pick(r, variants);
+      if (v) out.push({ athleteId, week, slotId: s.id, variantId: v.id });
+    }
+  }
+  return out;
+}
+
+export interface RequestOptions {
+  athletes?: number;
+  weeks?: number;
+  historyWeeks?: number;
+  variants?: number;
+  slots?: SlotDef[];
+  planned?: number; // share of cells already on the board
+  pinned?: number; // share of board entries that are pinned
+  restrictions?: boolean;
+  lifts?: Lift[];
+}
+
+export function randomAthlete(r: Rand, id: string, weeks: string[], slots: SlotDef[], variants: Variant[], historyWeeks: number, restrictions = true): AthleteInput {
+  const hist = historyWeeks > 0 ? weekRange(addWeeks(weeks[0]!, -historyWeeks), addWeeks(weeks[0]!, -1)) : [];
+  const meet = chance(r, 0.7) ? addWeeks(weeks[0]!, int(r, -1, weeks.length + 3)) : undefined;
+  return {
+    id,
+    equipment: EQUIPMENT.filter(() => chance(r, 0.7)),
+    restrictions: restrictions && chance(r, 0.3) ? [{ joint: pick(r, JOINTS), maxStress: int(r, 0, 2) }] : [],
+    ...(meet ? { meetWeek: meet } : {}),
+    history: randomEntries(r, id, hist, slots, variants, 0.9),
+  };
+}
+
+export function randomRequest(seed: number, opts: RequestOptions = {}): PlanRequest {
+  const r = mulberry32(seed);
+  const slots = opts.slots ?? (chance(r, 0.5) ? TWO_SLOTS : [TWO_SLOTS[0]!]);
+  const variants = randomLibrary(r, opts.variants ?? int(r, 4, 30), opts.lifts ? { lifts: opts.lifts } : {});
+  const start = pick(r, STARTS);
+  const weeks = weekRange(start, addWeeks(start, (opts.weeks ?? int(r, 1, 8)) - 1));
+  const athletes: AthleteInput[] = [];
+  const planned: PlanEntry[] = [];
+  const n = opts.athletes ?? int(r, 1, 3);
+  for (let i = 0; i < n; i++) {
+    const a = randomAthlete(r, `a${i}`, weeks, slots, variants, opts.historyWeeks ?? int(r, 0, 8), opts.restrictions ?? true);
+    athletes.push(a);
+    for (const e of randomEntries(r, a.id, weeks, slots, variants, opts.planned ?? 0.3)) {
+      planned.push(chance(r, opts.pinned ?? 0.3) ? { ...e, pinned: true } : e);
+    }
+  }
+  if (planned.length && chance(r, 0.2)) planned.push({ ...planned[0]!, variantId: 'no-such-variant', pinned: false, week: weeks[weeks.length - 1]! });
+  return { variants, slots, athletes, rules: randomRules(r, `s${seed}`), weeks, planned };
+}
+
+/**
+ * A small single-athlete case the exhaustive planner can settle: 3–8 variants, 1–5 weeks, 1–2 slots,
+ * budgets on the joints the variants load, sized so that they often bind.
+ */
+export function smallCase(seed: number): PlanRequest {
+  const r = mulberry32(seed);
+  const slots = chance(r, 0.5) ? TWO_SLOTS : [TWO_SLOTS[0]!];
+  const n = int(r, slots.length === 2 ? 5 : 3, 8);
+  const lifts: Lift[] = slots.length === 2 ? ['squat', 'bench', 'deadlift', 'bench'] : ['squat', 'deadlift'];
+  const variants = randomLibrary(r, n, { lifts, equipmentChance: 0.15, familiesPerLift: int(r, 2, 5) });
+  const start = pick(r, STARTS);
+  const weeks = weekRange(start, addWeeks(start, int(r, 1, 5) - 1));
+  const J = int(r, 1, 4);
+  const jointBudget: Partial<Record<Joint, number>> = {};
+  for (const j of JOINTS) if (chance(r, 0.45)) jointBudget[j] = int(r, 1, 3 * J * slots.length);
+  const rules: Rules = {
+    repeatWindowWeeks: int(r, 0, 4),
+    familyWindowWeeks: int(r, 0, 3),
+    jointWindowWeeks: J,
+    jointBudget,
+    taper: chance(r, 0.4) ? [{ weeksOut: int(r, 0, 3), maxRisk: int(r, 1, 3) as 1 | 2 | 3 }] : [],
+    seed: `small${seed}`,
+  };
+  const athlete = randomAthlete(r, 'a0', weeks, slots, variants, int(r, 0, 4), chance(r, 0.3));
+  athlete.equipment = [...EQUIPMENT];
+  return { variants, slots, athletes: [athlete], rules, weeks, planned: [] };
+}
