@@ -5,7 +5,15 @@ import { rpeToRir } from './rpe';
 
 export type E1rmFormula = 'epley' | 'brzycki' | 'lander' | 'lombardi' | 'mayhew' | 'oconner' | 'wathan';
 
-export const E1RM_FORMULAS: readonly E1rmFormula[] = ['epley', 'brzycki', 'lander', 'lombardi', 'mayhew', 'oconner', 'wathan'];
+export const E1RM_FORMULAS: readonly E1rmFormula[] = [
+  'epley',
+  'brzycki',
+  'lander',
+  'lombardi',
+  'mayhew',
+  'oconner',
+  'wathan',
+];
 
 export const E1RM_FORMULA_LABELS: Readonly<Record<E1rmFormula, string>> = {
   epley: 'Epley',
@@ -63,7 +71,12 @@ export function estimateOneRepMax(weight: number, reps: number, formula: E1rmFor
  * e1RM of a set stopped short of failure, treating reps + reps in reserve as the reps to failure
  * (common practice with the RIR-based RPE scale, no single published source). 5 reps at RPE 8 counts as 7.
  */
-export function estimateOneRepMaxAtRpe(weight: number, reps: number, rpe: number, formula: E1rmFormula = 'epley'): number {
+export function estimateOneRepMaxAtRpe(
+  weight: number,
+  reps: number,
+  rpe: number,
+  formula: E1rmFormula = 'epley',
+): number {
   requireOneOf('formula', formula, E1RM_FORMULAS);
   requirePositive('weight', weight);
   const max = E1RM_MAX_REPS[formula];
@@ -71,7 +84,9 @@ export function estimateOneRepMaxAtRpe(weight: number, reps: number, rpe: number
   const toFailure = reps + rpeToRir(rpe);
   requireFinite('reps to failure', toFailure);
   if (toFailure > max) {
-    throw new RangeError(`reps plus reps in reserve must be at most ${max} for ${E1RM_FORMULA_LABELS[formula]}, got ${toFailure}`);
+    throw new RangeError(
+      `reps plus reps in reserve must be at most ${max} for ${E1RM_FORMULA_LABELS[formula]}, got ${toFailure}`,
+    );
   }
   return evaluate(weight, toFailure, formula);
 }

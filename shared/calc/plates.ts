@@ -245,7 +245,11 @@ export type RoundMode = 'nearest' | 'down' | 'up';
  * or up. Below the empty bar, 'nearest' and 'up' give the empty bar; 'down' throws. Above what the plates
  * can make, 'nearest' and 'down' give the heaviest load; 'up' throws.
  */
-export function roundToLoadable(weight: number, unit: WeightUnit, opts: BarOptions & { mode?: RoundMode } = {}): number {
+export function roundToLoadable(
+  weight: number,
+  unit: WeightUnit,
+  opts: BarOptions & { mode?: RoundMode } = {},
+): number {
   requireNonNegative('weight', weight);
   const mode = requireOneOf('mode', opts.mode ?? 'nearest', ['nearest', 'down', 'up'] as const);
   const r = resolve(unit, opts);

@@ -6,7 +6,10 @@ import { requireFinite } from './guard';
 export const RPE_MIN = 6;
 export const RPE_MAX = 10;
 /** Every RPE value a top set may be logged with, lightest first. */
-export const RPE_VALUES: readonly number[] = Array.from({ length: (RPE_MAX - RPE_MIN) * 2 + 1 }, (_, i) => RPE_MIN + i / 2);
+export const RPE_VALUES: readonly number[] = Array.from(
+  { length: (RPE_MAX - RPE_MIN) * 2 + 1 },
+  (_, i) => RPE_MIN + i / 2,
+);
 
 export function isValidRpe(rpe: number): boolean {
   return Number.isFinite(rpe) && rpe >= RPE_MIN && rpe <= RPE_MAX && Number.isInteger(rpe * 2);

@@ -4,7 +4,8 @@
 // Shape of a week, in order of decisions:
 // 1. Kind. One kind for the whole week ('highRep', 'isometric' or 'loadedStretch'). A kind keeps going while
 //    it has run fewer than `maxConsecutiveWeeks` weeks in a row, so adaptation can build; then the least
-//    recently used kind takes over (ties: gentlest first). Near a meet the riskier kinds are pulled: with d
+//    recently used kind takes over (ties: gentlest first). Near a meet the riskier kinds are pulled, the
+//    riskiest first (loaded stretch, then isometrics; high-rep light work stays): with d
 //    the weeks from this week to the meet (0 in the meet week), loaded stretch is out when
 //    0 <= d <= pullStretchWeeksOut and isometrics when 0 <= d <= pullIsometricWeeksOut (-1 = never pulled).
 //    When every allowed kind has used up its run, the week rests (no items), which also resets the runs.
@@ -28,6 +29,7 @@
 
 import { JOINTS, type Joint, type Variant } from './types';
 import { parseWeek, weekNumber } from './weeks';
+import { jointName } from './words';
 
 export type TissueKind = 'highRep' | 'isometric' | 'loadedStretch';
 /** Gentlest first: the order riskier work is pulled in before a meet runs the other way. */
@@ -171,15 +173,6 @@ const KIND_LABEL: Readonly<Record<TissueKind, string>> = {
   loadedStretch: 'loaded stretch',
 };
 
-const JOINT_LABEL: Readonly<Record<Joint, string>> = {
-  shoulder: 'shoulder',
-  elbow: 'elbow',
-  wrist: 'wrist',
-  lowerBack: 'lower back',
-  hip: 'hip',
-  knee: 'knee',
-};
-
 /** Ordinary exercise names per joint and kind. */
 export const TISSUE_EXERCISES: Readonly<Record<Joint, Readonly<Record<TissueKind, string>>>> = {
   elbow: {
@@ -254,7 +247,8 @@ export function jointLoadOf(variants: readonly Pick<Variant, 'stress'>[]): Parti
 // ---- input checks -------------------------------------------------------------------------------------
 
 function finite(name: string, v: number): number {
-  if (typeof v !== 'number' || !Number.isFinite(v)) throw new RangeError(`${name} must be a finite number, got ${String(v)}`);
+  if (typeof v !== 'number' || !Number.isFinite(v))
+    throw new RangeError(`${name} must be a finite number, got ${String(v)}`);
   return v;
 }
 function positive(name: string, v: number): number {
@@ -262,7 +256,8 @@ function positive(name: string, v: number): number {
   return v;
 }
 function wholeAtLeast(name: string, v: number, min: number): number {
-  if (!Number.isInteger(finite(name, v)) || v < min) throw new RangeError(`${name} must be a whole number of at least ${min}, got ${v}`);
+  if (!Number.isInteger(finite(name, v)) || v < min)
+    throw new RangeError(`${name} must be a whole number of at least ${min}, got ${v}`);
   return v;
 }
 function oneOf<T>(name: string, v: T, allowed: readonly T[]): T {
@@ -282,7 +277,8 @@ function checkRules(r: TissueRules): void {
     ['stretch', r.stretchStartSeconds, r.stretchStepSeconds, r.stretchMaxSeconds],
   ] as const) {
     positive(`${prefix}StartSeconds`, start);
-    if (finite(`${prefix}StepSeconds`, step) < 0) throw new RangeError(`${prefix}StepSeconds must not be negative, got ${step}`);
+    if (finite(`${prefix}StepSeconds`, step) < 0)
+      throw new RangeError(`${prefix}StepSeconds must not be negative, got ${step}`);
     if (finite(`${prefix}MaxSeconds`, max) < start) {
       throw new RangeError(`${prefix}MaxSeconds (${max}) must be at least ${prefix}StartSeconds (${start})`);
     }
@@ -326,7 +322,8 @@ function checkInput(input: TissueInput): void {
   for (const c of input.checkins) {
     parseWeek(c.week);
     oneOf('kind', c.kind, TISSUE_KINDS);
-    if (finite('soreness', c.soreness) < 0 || c.soreness > 10) throw new RangeError(`soreness must be from 0 to 10, got ${c.soreness}`);
+    if (finite('soreness', c.soreness) < 0 || c.soreness > 10)
+      throw new RangeError(`soreness must be from 0 to 10, got ${c.soreness}`);
     for (const j of c.painJoints) oneOf('pain joint', j, JOINTS);
   }
 }
@@ -401,7 +398,11 @@ function lastItem<K extends TissueKind>(past: Past, kind: K, joint: Joint): Item
   return best;
 }
 
-function checkinFor(past: Past, week: string, kind: TissueKind): { soreness: number; painJoints: Set<Joint> } | undefined {
+function checkinFor(
+  past: Past,
+  week: string,
+  kind: TissueKind,
+): { soreness: number; painJoints: Set<Joint> } | undefined {
   return past.checkins.get(`${weekNumber(week)}:${kind}`);
 }
 
@@ -416,11 +417,15 @@ function pullWindow(rules: TissueRules, kind: TissueKind): number {
 function chooseKind(input: TissueInput, past: Past): { kind: TissueKind | null; notes: string[] } {
   const { rules } = input;
   const weeksOut = input.meetWeek === undefined ? undefined : weekNumber(input.meetWeek) - past.now;
-  const pulled = TISSUE_KINDS.filter((k) => weeksOut !== undefined && weeksOut >= 0 && weeksOut <= pullWindow(rules, k));
+  const pulled = TISSUE_KINDS.filter(
+    (k) => weeksOut !== undefined && weeksOut >= 0 && weeksOut <= pullWindow(rules, k),
+  );
   const notes: string[] = [];
   if (pulled.length > 0) {
     const when = weeksOut === 0 ? 'this is meet week' : `the meet is ${weeksOut} week${weeksOut === 1 ? '' : 's'} away`;
-    notes.push(`${capitalise(pulled.map((k) => KIND_LABEL[k]).join(' and '))} ${pulled.length > 1 ? 'are' : 'is'} pulled: ${when}.`);
+    notes.push(
+      `${capitalise(pulled.map((k) => KIND_LABEL[k]).join(' and '))} ${pulled.length > 1 ? 'are' : 'is'} pulled: ${when}.`,
+    );
   }
   const open = TISSUE_KINDS.filter((k) => !pulled.includes(k) && runLength(past, k) < rules.maxConsecutiveWeeks);
   if (open.length === 0) {
@@ -498,10 +503,15 @@ function climb(
   const prev = Math.min(max, Math.max(start, last.value));
   if (!checkin) return { value: prev, why: `kept as last time: no check-in after ${last.week}` };
   if (checkin.soreness >= input.rules.sorenessThreshold) {
-    return { value: Math.max(start, prev - step), why: `one step back: soreness ${checkin.soreness}/10 after ${last.week}` };
+    return {
+      value: Math.max(start, prev - step),
+      why: `one step back: soreness ${checkin.soreness}/10 after ${last.week}`,
+    };
   }
   const value = Math.min(max, prev + step);
-  return value > prev ? { value, why: `one step up: no soreness to speak of after ${last.week}` } : { value, why: 'at the cap' };
+  return value > prev
+    ? { value, why: `one step up: no soreness to speak of after ${last.week}` }
+    : { value, why: 'at the cap' };
 }
 
 function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: HighRepDose; why?: string } {
@@ -522,7 +532,10 @@ function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: High
     }
     const fewer = Math.max(r.highRepMinReps, reps - r.highRepRepStep);
     if (fewer < reps) {
-      return { dose: { reps: fewer, band: BAND_LEVELS[band]! }, why: `${reps - fewer} fewer reps (already on the lightest band): ${sore}.` };
+      return {
+        dose: { reps: fewer, band: BAND_LEVELS[band]! },
+        why: `${reps - fewer} fewer reps (already on the lightest band): ${sore}.`,
+      };
     }
     return {
       dose: { reps, band: BAND_LEVELS[band]! },
@@ -616,7 +629,7 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
   const pain = recentPain(input, past);
   const suggestions: TissueSuggestion[] = JOINTS.filter((j) => pain.has(j)).map((joint) => {
     const { weeks, after } = pain.get(joint)!;
-    const label = JOINT_LABEL[joint];
+    const label = jointName(joint);
     return {
       joint,
       message:
@@ -628,10 +641,11 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
   const items: TissuePrescription[] = [];
   if (kind) {
     const joints = chooseJoints(input);
-    if (joints.length === 0) notes.push('No focus joints set: add some in the team rules to get connective-tissue work.');
+    if (joints.length === 0)
+      notes.push('No focus joints set: add some in the team rules to get connective-tissue work.');
     for (const joint of joints) {
       if (pain.has(joint)) {
-        notes.push(`No work on the ${JOINT_LABEL[joint]} this week: pain was reported there recently.`);
+        notes.push(`No work on the ${jointName(joint)} this week: pain was reported there recently.`);
         continue;
       }
       items.push(buildItem(input, past, kind, joint));

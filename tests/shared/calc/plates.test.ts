@@ -40,7 +40,9 @@ describe('kilo defaults follow the international federation’s technical rules'
     });
     expect(plateColour(20, 'kg').name).toBe('blue');
     expect(plateColour(7, 'kg').name).toBe('grey');
-    expect(Object.keys(PLATE_COLOURS.lb).sort()).toEqual(DEFAULT_BAR_SETUP.lb.plates.map((p) => String(p.weight)).sort());
+    expect(Object.keys(PLATE_COLOURS.lb).sort()).toEqual(
+      DEFAULT_BAR_SETUP.lb.plates.map((p) => String(p.weight)).sort(),
+    );
   });
 
   it('loads heaviest discs innermost, then in descending order', () => {
@@ -80,7 +82,11 @@ describe('loadBar worked examples', () => {
       { weight: 25, count: 2 },
       { weight: 20, count: 4 },
     ];
-    expect(loadBar(100, { unit: 'kg', bar: 20, collars: 0, plates })).toEqual({ perSide: [20, 20], achieved: 100, remainder: 0 });
+    expect(loadBar(100, { unit: 'kg', bar: 20, collars: 0, plates })).toEqual({
+      perSide: [20, 20],
+      achieved: 100,
+      remainder: 0,
+    });
   });
 
   it('ignores an odd plate that cannot be matched on the other side', () => {
@@ -120,7 +126,9 @@ describe('loadBar worked examples', () => {
     expect(() => loadBar(100, { unit: 'kg', collars: Number.POSITIVE_INFINITY })).toThrow(/collars .*Infinity/);
     expect(() => loadBar(100, { unit: 'st' as 'kg' })).toThrow(/unit .*"st"/);
     expect(() => loadBar(100, { unit: 'kg', plates: [{ weight: 0, count: 2 }] })).toThrow(/plate weight .*0/);
-    expect(() => loadBar(100, { unit: 'kg', plates: [{ weight: 10, count: 1.5 }] })).toThrow(/count of 10 kg plates .*1\.5/);
+    expect(() => loadBar(100, { unit: 'kg', plates: [{ weight: 10, count: 1.5 }] })).toThrow(
+      /count of 10 kg plates .*1\.5/,
+    );
   });
 });
 
@@ -171,7 +179,10 @@ function bruteForce(target: number, base: number, plates: PlateSet[]): { achieve
   const walk = (i: number, side: number, used: number): void => {
     if (i === kinds.length) {
       const total = base + 2 * side;
-      if (total <= target + 1e-9 && (total > best.achieved + 1e-9 || (Math.abs(total - best.achieved) < 1e-9 && used < best.plates))) {
+      if (
+        total <= target + 1e-9 &&
+        (total > best.achieved + 1e-9 || (Math.abs(total - best.achieved) < 1e-9 && used < best.plates))
+      ) {
         best = { achieved: total, plates: used };
       }
       return;
@@ -184,9 +195,9 @@ function bruteForce(target: number, base: number, plates: PlateSet[]): { achieve
 }
 
 describe('loadBar properties', () => {
-  const plateSet = fc.uniqueArray(fc.constantFrom(25, 20, 15, 10, 5, 2.5, 1.25, 0.5), { minLength: 1, maxLength: 5 }).chain((ws) =>
-    fc.tuple(...ws.map((w) => fc.integer({ min: 0, max: 7 }).map((count) => ({ weight: w, count })))),
-  );
+  const plateSet = fc
+    .uniqueArray(fc.constantFrom(25, 20, 15, 10, 5, 2.5, 1.25, 0.5), { minLength: 1, maxLength: 5 })
+    .chain((ws) => fc.tuple(...ws.map((w) => fc.integer({ min: 0, max: 7 }).map((count) => ({ weight: w, count })))));
   const bar = fc.constantFrom(15, 20, 25);
   const collars = fc.constantFrom(0, 2.5);
 
@@ -205,27 +216,21 @@ describe('loadBar properties', () => {
 
   it('never exceeds the target, is symmetric, heaviest first, and uses only the plates there are', () => {
     fc.assert(
-      fc.property(
-        plateSet,
-        bar,
-        collars,
-        fc.double({ min: 0, max: 400, noNaN: true }),
-        (plates, b, c, over) => {
-          const base = b + 2 * c;
-          const target = base + over;
-          const got = loadBar(target, { unit: 'kg', bar: b, collars: c, plates });
-          expect(got.achieved).toBeLessThanOrEqual(target);
-          expect(got.remainder).toBeGreaterThanOrEqual(0);
-          expect(got.achieved + got.remainder).toBeCloseTo(target, 5);
-          // Both sides carry perSide, so the total is the base plus twice one side.
-          expect(got.achieved).toBeCloseTo(base + 2 * got.perSide.reduce((s, w) => s + w, 0), 9);
-          expect([...got.perSide].sort((x, y) => y - x)).toEqual(got.perSide);
-          for (const w of new Set(got.perSide)) {
-            const available = plates.filter((p) => p.weight === w).reduce((s, p) => s + p.count, 0);
-            expect(2 * got.perSide.filter((x) => x === w).length).toBeLessThanOrEqual(available);
-          }
-        },
-      ),
+      fc.property(plateSet, bar, collars, fc.double({ min: 0, max: 400, noNaN: true }), (plates, b, c, over) => {
+        const base = b + 2 * c;
+        const target = base + over;
+        const got = loadBar(target, { unit: 'kg', bar: b, collars: c, plates });
+        expect(got.achieved).toBeLessThanOrEqual(target);
+        expect(got.remainder).toBeGreaterThanOrEqual(0);
+        expect(got.achieved + got.remainder).toBeCloseTo(target, 5);
+        // Both sides carry perSide, so the total is the base plus twice one side.
+        expect(got.achieved).toBeCloseTo(base + 2 * got.perSide.reduce((s, w) => s + w, 0), 9);
+        expect([...got.perSide].sort((x, y) => y - x)).toEqual(got.perSide);
+        for (const w of new Set(got.perSide)) {
+          const available = plates.filter((p) => p.weight === w).reduce((s, p) => s + p.count, 0);
+          expect(2 * got.perSide.filter((x) => x === w).length).toBeLessThanOrEqual(available);
+        }
+      }),
     );
   });
 

@@ -59,23 +59,28 @@ describe('warmupRamp properties', () => {
   const unit = fc.constantFrom('kg' as const, 'lb' as const);
   it('rises, is loadable with the default plates, ends below the top set, reps never climb', () => {
     fc.assert(
-      fc.property(unit, fc.double({ min: 0, max: 500, noNaN: true }), fc.integer({ min: 1, max: 10 }), (u, top, steps) => {
-        const ramp = warmupRamp(top, { unit: u, steps });
-        expect(ramp.length).toBeLessThanOrEqual(steps);
-        ramp.forEach((step, i) => {
-          expect(isLoadable(step.weight, u)).toBe(true);
-          expect(step.weight).toBeLessThan(top);
-          expect(step.reps).toBeGreaterThanOrEqual(1);
-          expect(step.reps).toBeLessThanOrEqual(10);
-          const prev = ramp[i - 1];
-          if (prev) {
-            expect(step.weight).toBeGreaterThan(prev.weight);
-            expect(step.reps).toBeLessThanOrEqual(prev.reps);
-          }
-        });
-        const emptyBar = u === 'kg' ? 25 : 45;
-        if (top > emptyBar) expect(ramp[0]).toEqual({ weight: emptyBar, reps: 10 });
-      }),
+      fc.property(
+        unit,
+        fc.double({ min: 0, max: 500, noNaN: true }),
+        fc.integer({ min: 1, max: 10 }),
+        (u, top, steps) => {
+          const ramp = warmupRamp(top, { unit: u, steps });
+          expect(ramp.length).toBeLessThanOrEqual(steps);
+          ramp.forEach((step, i) => {
+            expect(isLoadable(step.weight, u)).toBe(true);
+            expect(step.weight).toBeLessThan(top);
+            expect(step.reps).toBeGreaterThanOrEqual(1);
+            expect(step.reps).toBeLessThanOrEqual(10);
+            const prev = ramp[i - 1];
+            if (prev) {
+              expect(step.weight).toBeGreaterThan(prev.weight);
+              expect(step.reps).toBeLessThanOrEqual(prev.reps);
+            }
+          });
+          const emptyBar = u === 'kg' ? 25 : 45;
+          if (top > emptyBar) expect(ramp[0]).toEqual({ weight: emptyBar, reps: 10 });
+        },
+      ),
     );
   });
 });

@@ -1,0 +1,640 @@
+// Connective-tissue prescriptions: worked examples of each behaviour, and properties over random histories.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  BAND_LEVELS,
+  DEFAULT_TISSUE_RULES,
+  JOINT_WORKING_RANGE,
+  TISSUE_CAUTION,
+  TISSUE_KINDS,
+  isometricAngles,
+  jointLoadOf,
+  prescribeTissueWork,
+  type BandLevel,
+  type TissueCheckin,
+  type TissueInput,
+  type TissueKind,
+  type TissuePrescription,
+  type TissueRules,
+} from '../../../shared/engine/tissue';
+import { JOINTS, type Joint } from '../../../shared/engine/types';
+import { addWeeks, weekNumber } from '../../../shared/engine/weeks';
+
+const WEEK = '2027-W10';
+
+function input(over: Partial<TissueInput> = {}): TissueInput {
+  return { week: WEEK, rules: DEFAULT_TISSUE_RULES, history: [], checkins: [], focusJoints: ['elbow'], ...over };
+}
+
+function highRep(week: string, joint: Joint, reps = 100, band: BandLevel = 'light'): TissuePrescription {
+  return { week, joint, kind: 'highRep', exercise: 'x', instructions: [], dose: { reps, band } };
+}
+function iso(week: string, joint: Joint, seconds: number): TissuePrescription {
+  return {
+    week,
+    joint,
+    kind: 'isometric',
+    exercise: 'x',
+    instructions: [],
+    dose: { seconds, pulsesPerAngle: 3, angles: [] },
+  };
+}
+function stretch(week: string, joint: Joint, holdSeconds: number): TissuePrescription {
+  return {
+    week,
+    joint,
+    kind: 'loadedStretch',
+    exercise: 'x',
+    instructions: [],
+    dose: { fatigueReps: 25, holdSeconds },
+  };
+}
+function checkin(week: string, kind: TissueKind, soreness: number, painJoints: Joint[] = []): TissueCheckin {
+  return { week, kind, soreness, painJoints };
+}
+const before = (n: number): string => addWeeks(WEEK, -n);
+
+describe('starting out', () => {
+  it('begins with the gentlest kind, the default dose, and the usual cautions', () => {
+    const out = prescribeTissueWork(input({ focusJoints: ['elbow', 'knee'] }));
+    expect(out.kind).toBe('highRep');
+    expect(out.items.map((i) => [i.joint, i.kind, i.exercise])).toEqual([
+      ['elbow', 'highRep', 'Banded triceps pushdown'],
+      ['knee', 'highRep', 'Banded terminal knee extension'],
+    ]);
+    expect(out.items[0]!.dose).toEqual({ reps: 100, band: 'light' });
+    expect(out.items[0]!.week).toBe(WEEK);
+    expect(out.items[0]!.instructions.join(' ')).toMatch(/least effort/);
+    expect(out.items[0]!.instructions.join(' ')).toMatch(/Soreness the next day means it was done too hard/);
+    expect(out.notes).toEqual(expect.arrayContaining([...TISSUE_CAUTION]));
+    expect(out.notes.join(' ')).toMatch(/sharp or unusual pain/);
+    expect(out.notes.join(' ')).toMatch(/not medical advice/);
+    expect(out.notes.join(' ')).toMatch(/hot, swollen or sore/);
+    expect(out.suggestions).toEqual([]);
+  });
+
+  it('uses at least 100 reps by default (common practice: very-high-rep work of 100 or more)', () => {
+    expect(DEFAULT_TISSUE_RULES.highRepReps).toBeGreaterThanOrEqual(100);
+  });
+
+  it('says so when there are no joints to work', () => {
+    const out = prescribeTissueWork(input({ focusJoints: [] }));
+    expect(out.items).toEqual([]);
+    expect(out.notes.join(' ')).toMatch(/No focus joints/);
+  });
+});
+
+describe('rotation', () => {
+  it('keeps a kind going while its run is under the limit', () => {
+    const out = prescribeTissueWork(input({ history: [iso(before(2), 'elbow', 3), iso(before(1), 'elbow', 3)] }));
+    expect(out.kind).toBe('isometric');
+    expect(out.notes[0]).toBe('Isometric pulses again: week 3 of at most 3 in a row.');
+  });
+
+  it('rotates a kind out after the limit, to the least recently used one', () => {
+    const history = [iso(before(5), 'elbow', 3), ...[3, 2, 1].map((n) => highRep(before(n), 'elbow'))];
+    const out = prescribeTissueWork(input({ history }));
+    // Loaded stretch was never used, isometrics five weeks ago: the stretch is least recent.
+    expect(out.kind).toBe('loadedStretch');
+    expect(out.notes[0]).toMatch(/high-rep light work has run 3 weeks in a row, so it rotates out/);
+  });
+
+  it('breaks ties between unused kinds gentlest first', () => {
+    const out = prescribeTissueWork(input({ history: [1, 2, 3].map((n) => highRep(before(n), 'elbow')) }));
+    expect(out.kind).toBe('isometric');
+  });
+
+  it('counts a missed week as the end of a run', () => {
+    const history = [highRep(before(4), 'elbow'), highRep(before(3), 'elbow'), highRep(before(1), 'elbow')];
+    expect(prescribeTissueWork(input({ history })).kind).toBe('highRep');
+  });
+
+  it('follows the team limit', () => {
+    const rules = { ...DEFAULT_TISSUE_RULES, maxConsecutiveWeeks: 1 };
+    expect(prescribeTissueWork(input({ rules, history: [highRep(before(1), 'elbow')] })).kind).toBe('isometric');
+  });
+
+  it('ignores history from this week on', () => {
+    const history = [highRep(WEEK, 'elbow'), highRep(addWeeks(WEEK, 1), 'elbow'), iso(before(1), 'elbow', 3)];
+    expect(prescribeTissueWork(input({ history })).kind).toBe('isometric');
+  });
+});
+
+describe('before a meet', () => {
+  it('pulls loaded stretch first (4 weeks out by default), then isometrics (2 weeks out)', () => {
+    const stretchHistory = [1, 2, 3].map((n) => highRep(before(n), 'elbow'));
+    const allButStretch = [iso(before(6), 'elbow', 3), ...stretchHistory];
+    // Stretch would be next (least recent), but 4 weeks out it is pulled; isometrics still allowed.
+    const fourOut = prescribeTissueWork(input({ meetWeek: addWeeks(WEEK, 4), history: allButStretch }));
+    expect(fourOut.kind).toBe('isometric');
+    expect(fourOut.notes[0]).toBe('Loaded stretch is pulled: the meet is 4 weeks away.');
+    const fiveOut = prescribeTissueWork(input({ meetWeek: addWeeks(WEEK, 5), history: allButStretch }));
+    expect(fiveOut.kind).toBe('loadedStretch');
+    const twoOut = prescribeTissueWork(input({ meetWeek: addWeeks(WEEK, 2), history: [iso(before(1), 'elbow', 4)] }));
+    expect(twoOut.kind).toBe('highRep');
+    expect(twoOut.notes[0]).toBe('Isometric pulses and loaded stretch are pulled: the meet is 2 weeks away.');
+  });
+
+  it('rests the week when only high-rep work is left and it has used up its run', () => {
+    const out = prescribeTissueWork(
+      input({ meetWeek: addWeeks(WEEK, 1), history: [1, 2, 3].map((n) => highRep(before(n), 'elbow')) }),
+    );
+    expect(out.kind).toBeNull();
+    expect(out.items).toEqual([]);
+    expect(out.notes.join(' ')).toMatch(/rest week/);
+  });
+
+  it('keeps high-rep work very easy in the last week before the meet and in meet week', () => {
+    for (const d of [0, 1]) {
+      const out = prescribeTissueWork(input({ meetWeek: addWeeks(WEEK, d) }));
+      expect(out.kind).toBe('highRep');
+      expect(out.notes.join(' ')).toMatch(/keep any high-rep work very easy and finish it early in the week/);
+    }
+    expect(prescribeTissueWork(input({ meetWeek: addWeeks(WEEK, 2) })).notes.join(' ')).not.toMatch(/finish it early/);
+  });
+
+  it('pulls nothing once the meet is past, and nothing with a window of -1', () => {
+    const history = [1, 2, 3].map((n) => highRep(before(n), 'elbow'));
+    expect(prescribeTissueWork(input({ meetWeek: before(1), history })).kind).toBe('isometric');
+    const rules = { ...DEFAULT_TISSUE_RULES, pullIsometricWeeksOut: -1, pullStretchWeeksOut: -1 };
+    expect(prescribeTissueWork(input({ rules, meetWeek: WEEK, history })).kind).toBe('isometric');
+  });
+
+  it('counts weeks to the meet across a 53-week year', () => {
+    // 2026 has 53 ISO weeks: 2026-W52 → 2027-W02 is 3 weeks, inside the 4-week stretch window.
+    const history = [
+      iso('2026-W45', 'elbow', 3),
+      ...['2026-W49', '2026-W50', '2026-W51'].map((w) => highRep(w, 'elbow')),
+    ];
+    const out = prescribeTissueWork(input({ week: '2026-W52', meetWeek: '2027-W03', history }));
+    expect(out.notes[0]).toBe('Loaded stretch is pulled: the meet is 4 weeks away.');
+    expect(out.kind).toBe('isometric');
+  });
+});
+
+describe('isometric pulses', () => {
+  const isoWeek = (history: TissuePrescription[], checkins: TissueCheckin[] = []) =>
+    prescribeTissueWork(input({ history, checkins })).items[0]!;
+
+  it('start at 3 s, within the common-practice 3–5 s', () => {
+    // Common practice, no single source: pulses of about 3–5 s.
+    expect(DEFAULT_TISSUE_RULES.isometricStartSeconds).toBe(3);
+    expect(DEFAULT_TISSUE_RULES.isometricMaxSeconds).toBe(5);
+    const out = prescribeTissueWork(input({ history: [1, 2, 3].map((n) => highRep(before(n), 'elbow')) }));
+    expect(out.items[0]!.dose).toEqual({ seconds: 3, pulsesPerAngle: 3, angles: [10, 30, 50, 70, 90, 110, 130] });
+    expect(out.items[0]!.instructions.join(' ')).toMatch(/No weight/);
+    expect(out.items[0]!.instructions.join(' ')).toMatch(/3 pulses of 3 s at each angle: 10°, 30°/);
+  });
+
+  it('lengthen by 0.5 s after a week without soreness, up to 5 s', () => {
+    const item = isoWeek([iso(before(1), 'elbow', 3.5)], [checkin(before(1), 'isometric', 1)]);
+    expect(item.dose).toMatchObject({ seconds: 4 });
+    expect(item.instructions.join(' ')).toMatch(/one step up/);
+    expect(isoWeek([iso(before(1), 'elbow', 5)], [checkin(before(1), 'isometric', 0)]).dose).toMatchObject({
+      seconds: 5,
+    });
+    expect(isoWeek([iso(before(1), 'elbow', 4.8)], [checkin(before(1), 'isometric', 0)]).dose).toMatchObject({
+      seconds: 5,
+    });
+  });
+
+  it('step back after a sore week, hold without a check-in, start over after a long gap', () => {
+    expect(isoWeek([iso(before(1), 'elbow', 4.5)], [checkin(before(1), 'isometric', 3)]).dose).toMatchObject({
+      seconds: 4,
+    });
+    expect(isoWeek([iso(before(1), 'elbow', 3)], [checkin(before(1), 'isometric', 8)]).dose).toMatchObject({
+      seconds: 3,
+    });
+    const held = isoWeek([iso(before(1), 'elbow', 4)]);
+    expect(held.dose).toMatchObject({ seconds: 4 });
+    expect(held.instructions.join(' ')).toMatch(/no check-in/);
+    // Last isometrics 9 weeks ago, more than the 8-week reset: back to the start.
+    const gap = [
+      iso(before(9), 'elbow', 5),
+      stretch(before(5), 'elbow', 60),
+      ...[3, 2, 1].map((n) => highRep(before(n), 'elbow')),
+    ];
+    const restarted = isoWeek(gap, [checkin(before(9), 'isometric', 0)]);
+    expect(restarted.dose).toMatchObject({ seconds: 3 });
+    expect(restarted.instructions.join(' ')).toMatch(/starting over after 9 weeks away/);
+  });
+
+  it('follow the team’s start, step and cap', () => {
+    const rules: TissueRules = {
+      ...DEFAULT_TISSUE_RULES,
+      isometricStartSeconds: 2,
+      isometricStepSeconds: 1,
+      isometricMaxSeconds: 4,
+    };
+    const out = prescribeTissueWork(
+      input({ rules, history: [iso(before(1), 'elbow', 3.5)], checkins: [checkin(before(1), 'isometric', 0)] }),
+    );
+    expect(out.items[0]!.dose).toMatchObject({ seconds: 4 });
+  });
+
+  it('spread angles so that each, covering about ±10°, spans the working range', () => {
+    // Common practice, no single source: each angle covers roughly ±10°.
+    expect(isometricAngles('elbow', 10)).toEqual([10, 30, 50, 70, 90, 110, 130]);
+    expect(isometricAngles('lowerBack', 10)).toEqual([10, 30]);
+    expect(isometricAngles('wrist', 10)).toEqual([-50, -30, -10, 10, 30, 50]);
+    expect(isometricAngles('hip', 10)).toEqual([10, 28, 46, 64, 82, 100]);
+    for (const joint of JOINTS) {
+      for (const cover of [5, 10, 15, 25]) {
+        const angles = isometricAngles(joint, cover);
+        const { from, to } = JOINT_WORKING_RANGE[joint];
+        for (let a = from; a <= to; a++) {
+          expect(Math.min(...angles.map((x) => Math.abs(x - a))), `${joint} ${a}° with ±${cover}°`).toBeLessThanOrEqual(
+            cover + 0.5,
+          );
+        }
+      }
+    }
+  });
+});
+
+describe('loaded stretch', () => {
+  const history = (extra: TissuePrescription[]) => [iso(before(8), 'elbow', 3), ...extra];
+
+  it('tires the muscle with high reps, then holds the stretch for minutes', () => {
+    const out = prescribeTissueWork(input({ history: history([1, 2, 3].map((n) => highRep(before(n), 'elbow'))) }));
+    expect(out.kind).toBe('loadedStretch');
+    expect(out.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 60 });
+    expect(out.items[0]!.instructions[0]).toBe('First tire the muscle: 25 light reps of the same movement.');
+    expect(out.items[0]!.instructions[1]).toMatch(/^Then hold the stretched position for 1 min,/);
+  });
+
+  it('lengthens the hold by 15 s after a week without soreness and steps back after a sore one', () => {
+    const up = prescribeTissueWork(
+      input({ history: [stretch(before(1), 'elbow', 75)], checkins: [checkin(before(1), 'loadedStretch', 2)] }),
+    );
+    expect(up.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 90 });
+    expect(up.items[0]!.instructions[1]).toMatch(/1 min 30 s/);
+    const back = prescribeTissueWork(
+      input({ history: [stretch(before(1), 'elbow', 75)], checkins: [checkin(before(1), 'loadedStretch', 4)] }),
+    );
+    expect(back.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 60 });
+  });
+});
+
+describe('high-rep dose after the next-day check-in', () => {
+  const next = (last: TissuePrescription, soreness?: number) =>
+    prescribeTissueWork(
+      input({ history: [last], checkins: soreness === undefined ? [] : [checkin(last.week, 'highRep', soreness)] }),
+    ).items[0]!;
+
+  it('goes one band lighter, same reps, when soreness reaches the threshold', () => {
+    const item = next(highRep(before(1), 'elbow', 100, 'light'), 3);
+    expect(item.dose).toEqual({ reps: 100, band: 'lightest' });
+    expect(item.instructions.join(' ')).toMatch(/Band one step lighter, same reps: soreness 3\/10 after 2027-W09/);
+  });
+
+  it('cuts 20 reps once already on the lightest band, never below 60', () => {
+    const item = next(highRep(before(1), 'elbow', 100, 'lightest'), 6);
+    expect(item.dose).toEqual({ reps: 80, band: 'lightest' });
+    expect(item.instructions.join(' ')).toMatch(/20 fewer reps \(already on the lightest band\)/);
+    const floor = next(highRep(before(1), 'elbow', 60, 'lightest'), 6);
+    expect(floor.dose).toEqual({ reps: 60, band: 'lightest' });
+    expect(floor.instructions.join(' ')).toMatch(/coach should review/);
+  });
+
+  it('keeps the dose below the threshold or without a check-in, and adds reps back without raising the band', () => {
+    expect(next(highRep(before(1), 'elbow', 100, 'light'), 2).dose).toEqual({ reps: 100, band: 'light' });
+    expect(next(highRep(before(1), 'elbow', 80, 'lightest'), 1).dose).toEqual({ reps: 100, band: 'lightest' });
+    expect(next(highRep(before(1), 'elbow', 60, 'lightest'), 0).dose).toEqual({ reps: 80, band: 'lightest' });
+    const noCheckin = next(highRep(before(1), 'elbow', 80, 'lightest'));
+    expect(noCheckin.dose).toEqual({ reps: 80, band: 'lightest' });
+    expect(noCheckin.instructions.join(' ')).toMatch(/no check-in/);
+  });
+
+  it('takes the lighter of two entries for the same week and joint, whatever their order', () => {
+    const a = highRep(before(1), 'elbow', 100, 'light');
+    const b = highRep(before(1), 'elbow', 80, 'lightest');
+    for (const history of [
+      [a, b],
+      [b, a],
+    ]) {
+      const out = prescribeTissueWork(input({ history, checkins: [checkin(before(1), 'highRep', 5)] }));
+      expect(out.items[0]!.dose).toEqual({ reps: 60, band: 'lightest' });
+    }
+  });
+
+  it('merges two check-ins for the same week to the worse soreness', () => {
+    const checkins = [checkin(before(1), 'highRep', 1), checkin(before(1), 'highRep', 4)];
+    const out = prescribeTissueWork(input({ history: [highRep(before(1), 'elbow')], checkins }));
+    expect(out.items[0]!.dose).toEqual({ reps: 100, band: 'lightest' });
+  });
+
+  it('reads the check-in after the last high-rep week, not a later one of another kind', () => {
+    const rules = { ...DEFAULT_TISSUE_RULES, highRepBand: 'medium' as const };
+    const history = [
+      highRep(before(5), 'elbow', 100, 'medium'),
+      stretch(before(4), 'elbow', 60),
+      ...[3, 2, 1].map((n) => iso(before(n), 'elbow', 3)),
+    ];
+    const checkins = [checkin(before(5), 'highRep', 7), checkin(before(1), 'isometric', 0)];
+    // Isometrics have used up their run; high-rep work (5 weeks ago) is less recent than the stretch (4).
+    const out = prescribeTissueWork(input({ rules, history, checkins }));
+    expect(out.kind).toBe('highRep');
+    expect(out.items[0]!.dose).toEqual({ reps: 100, band: 'light' });
+  });
+});
+
+describe('pain on a joint', () => {
+  it('pauses that joint and suggests a restriction to the coach, for two weeks', () => {
+    const history = [highRep(before(1), 'elbow'), highRep(before(1), 'knee')];
+    const checkins = [checkin(before(1), 'highRep', 1, ['elbow'])];
+    const out = prescribeTissueWork(input({ focusJoints: ['elbow', 'knee'], history, checkins }));
+    expect(out.items.map((i) => i.joint)).toEqual(['knee']);
+    expect(out.suggestions).toHaveLength(1);
+    expect(out.suggestions[0]!.joint).toBe('elbow');
+    expect(out.suggestions[0]!.message).toMatch(/Pain at the elbow reported after high-rep light work \(2027-W09\)/);
+    expect(out.suggestions[0]!.message).toMatch(/restriction on the elbow/);
+    expect(out.suggestions[0]!.message).toMatch(/licensed clinician/);
+    expect(out.notes.join(' ')).toMatch(/No work on the elbow this week/);
+    const weekAfter = prescribeTissueWork(
+      input({ week: addWeeks(WEEK, 1), focusJoints: ['elbow', 'knee'], history, checkins }),
+    );
+    expect(weekAfter.suggestions.map((s) => s.joint)).toEqual(['elbow']);
+    const twoAfter = prescribeTissueWork(
+      input({ week: addWeeks(WEEK, 2), focusJoints: ['elbow', 'knee'], history, checkins }),
+    );
+    expect(twoAfter.suggestions).toEqual([]);
+    expect(twoAfter.items.map((i) => i.joint)).toEqual(['elbow', 'knee']);
+  });
+
+  it('suggests for a joint outside the focus list too, one suggestion per joint', () => {
+    const checkins = [
+      checkin(before(1), 'highRep', 0, ['wrist']),
+      checkin(before(2), 'isometric', 0, ['wrist', 'lowerBack']),
+    ];
+    const out = prescribeTissueWork(input({ checkins }));
+    expect(out.suggestions.map((s) => s.joint)).toEqual(['wrist', 'lowerBack']);
+    expect(out.suggestions[0]!.message).toMatch(
+      /after isometric pulses and high-rep light work \(2027-W08, 2027-W09\)/,
+    );
+    expect(out.items.map((i) => i.joint)).toEqual(['elbow']);
+  });
+});
+
+describe('target joints', () => {
+  it('orders the focus list by max-effort load, then adds other loaded joints, up to the weekly cap', () => {
+    const jointLoad = { elbow: 2, knee: 5, hip: 4, wrist: 1 };
+    const out = prescribeTissueWork(input({ focusJoints: ['elbow', 'knee', 'elbow'], jointLoad }));
+    expect(out.items.map((i) => i.joint)).toEqual(['knee', 'elbow', 'hip']);
+    const two = prescribeTissueWork(
+      input({ focusJoints: [], jointLoad, rules: { ...DEFAULT_TISSUE_RULES, maxJointsPerWeek: 2 } }),
+    );
+    expect(two.items.map((i) => i.joint)).toEqual(['knee', 'hip']);
+  });
+
+  it('sums variant stress into a joint load', () => {
+    const picks = [{ stress: { lowerBack: 3, hip: 2 } }, { stress: { elbow: 2, lowerBack: 1, knee: 0 } }];
+    expect(jointLoadOf(picks)).toEqual({ lowerBack: 4, hip: 2, elbow: 2 });
+  });
+});
+
+describe('bad input', () => {
+  it('throws a RangeError naming the bad value', () => {
+    expect(() => prescribeTissueWork(input({ week: '2027-W60' }))).toThrow(RangeError);
+    expect(() => prescribeTissueWork(input({ meetWeek: 'soon' }))).toThrow(/soon/);
+    expect(() => prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, maxConsecutiveWeeks: 0 } }))).toThrow(
+      /maxConsecutiveWeeks .*0/,
+    );
+    expect(() => prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, sorenessThreshold: 11 } }))).toThrow(
+      /sorenessThreshold .*11/,
+    );
+    expect(() => prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, isometricMaxSeconds: 2 } }))).toThrow(
+      /isometricMaxSeconds \(2\)/,
+    );
+    expect(() =>
+      prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, highRepBand: 'heavy' as BandLevel } })),
+    ).toThrow(/heavy/);
+    expect(() => prescribeTissueWork(input({ checkins: [checkin(before(1), 'highRep', 12)] }))).toThrow(
+      /soreness .*12/,
+    );
+    expect(() => prescribeTissueWork(input({ checkins: [checkin(before(1), 'highRep', Number.NaN)] }))).toThrow(
+      /soreness .*NaN/,
+    );
+    expect(() => prescribeTissueWork(input({ focusJoints: ['neck' as Joint] }))).toThrow(/neck/);
+    expect(() => prescribeTissueWork(input({ history: [highRep(before(1), 'elbow', 0)] }))).toThrow(
+      /reps in history .*0/,
+    );
+  });
+});
+
+// ---- properties over random histories ------------------------------------------------------------------
+
+const kindArb = fc.constantFrom(...TISSUE_KINDS);
+const jointArb = fc.constantFrom(...JOINTS);
+const secondsArb = fc.integer({ min: 6, max: 10 }).map((h) => h / 2); // 3 to 5 s in half seconds
+
+function randomItem(week: string, kind: TissueKind, joint: Joint, n: number): TissuePrescription {
+  if (kind === 'highRep') return highRep(week, joint, 60 + 20 * (n % 3), BAND_LEVELS[n % 3]!);
+  if (kind === 'isometric') return iso(week, joint, 3 + 0.5 * (n % 5));
+  return stretch(week, joint, 60 + 15 * (n % 9));
+}
+
+/** A random past: some weeks empty, some with one kind on a few joints, some with coach-mixed kinds. */
+const historyArb = fc
+  .array(
+    fc.record({
+      kinds: fc.subarray([...TISSUE_KINDS]),
+      joints: fc.uniqueArray(jointArb, { maxLength: 3 }),
+      n: fc.nat(100),
+    }),
+    { maxLength: 12 },
+  )
+  .map((weeks) =>
+    weeks.flatMap((w, i) => {
+      const week = addWeeks(WEEK, i - weeks.length);
+      return w.kinds.flatMap((k, j) => w.joints.map((joint) => randomItem(week, k, joint, w.n + j)));
+    }),
+  );
+
+const rulesArb: fc.Arbitrary<TissueRules> = fc
+  .record({
+    maxConsecutiveWeeks: fc.integer({ min: 1, max: 4 }),
+    pullIsometricWeeksOut: fc.integer({ min: -1, max: 5 }),
+    pullStretchWeeksOut: fc.integer({ min: -1, max: 6 }),
+    sorenessThreshold: fc.integer({ min: 1, max: 8 }),
+  })
+  .map((r) => ({ ...DEFAULT_TISSUE_RULES, ...r }));
+
+interface Scenario {
+  rules: TissueRules;
+  history: TissuePrescription[];
+  focusJoints: Joint[];
+  meetIn: number | null;
+  weeks: number;
+  feel: { soreness: number; pain: Joint[] }[];
+}
+
+const scenarioArb = (rules: fc.Arbitrary<TissueRules>): fc.Arbitrary<Scenario> =>
+  fc.record({
+    rules,
+    history: historyArb,
+    focusJoints: fc.uniqueArray(jointArb, { minLength: 1, maxLength: 4 }),
+    meetIn: fc.option(fc.integer({ min: 0, max: 20 })),
+    weeks: fc.integer({ min: 1, max: 16 }),
+    feel: fc.array(
+      fc.record({
+        soreness: fc.integer({ min: 0, max: 10 }),
+        pain: fc.oneof(
+          { weight: 4, arbitrary: fc.constant<Joint[]>([]) },
+          { weight: 1, arbitrary: fc.uniqueArray(jointArb, { maxLength: 2 }) },
+        ),
+      }),
+      { minLength: 16, maxLength: 16 },
+    ),
+  });
+
+interface Step {
+  week: string;
+  input: TissueInput;
+  out: ReturnType<typeof prescribeTissueWork>;
+}
+
+/** Plays the scenario week by week, each week's items and check-in feeding the next. */
+function play(s: Scenario): { steps: Step[]; history: TissuePrescription[]; checkins: TissueCheckin[] } {
+  let history = [...s.history];
+  const checkins: TissueCheckin[] = [];
+  const meetWeek = s.meetIn === null ? undefined : addWeeks(WEEK, s.meetIn);
+  const steps: Step[] = [];
+  for (let i = 0; i < s.weeks; i++) {
+    const week = addWeeks(WEEK, i);
+    const inp: TissueInput = {
+      week,
+      meetWeek,
+      rules: s.rules,
+      history,
+      checkins: [...checkins],
+      focusJoints: s.focusJoints,
+    };
+    const out = prescribeTissueWork(inp);
+    steps.push({ week, input: inp, out });
+    history = [...history, ...out.items];
+    const feel = s.feel[i]!;
+    if (out.kind) checkins.push(checkin(week, out.kind, feel.soreness, feel.pain));
+  }
+  return { steps, history, checkins };
+}
+
+function kindsByWeek(history: TissuePrescription[]): Map<number, Set<TissueKind>> {
+  const m = new Map<number, Set<TissueKind>>();
+  for (const h of history) {
+    const n = weekNumber(h.week);
+    m.set(n, (m.get(n) ?? new Set()).add(h.kind));
+  }
+  return m;
+}
+
+describe('properties', () => {
+  it('never runs one kind more than the team limit in a row, whatever came before', () => {
+    fc.assert(
+      fc.property(scenarioArb(rulesArb), (s) => {
+        const { steps, history } = play(s);
+        const byWeek = kindsByWeek(history);
+        for (const { week, out } of steps) {
+          if (!out.kind) continue;
+          expect(new Set(out.items.map((i) => i.kind)).size).toBeLessThanOrEqual(1);
+          let run = 1;
+          while (byWeek.get(weekNumber(week) - run)?.has(out.kind)) run++;
+          expect(run, `${out.kind} in ${week}`).toBeLessThanOrEqual(s.rules.maxConsecutiveWeeks);
+        }
+      }),
+    );
+  });
+
+  it('never gives isometrics or loaded stretch inside their pull windows before the meet', () => {
+    fc.assert(
+      fc.property(scenarioArb(rulesArb), (s) => {
+        for (const { week, input: inp, out } of play(s).steps) {
+          if (!inp.meetWeek) continue;
+          const d = weekNumber(inp.meetWeek) - weekNumber(week);
+          for (const item of out.items) {
+            if (item.kind === 'isometric') expect(d >= 0 && d <= s.rules.pullIsometricWeeksOut).toBe(false);
+            if (item.kind === 'loadedStretch') expect(d >= 0 && d <= s.rules.pullStretchWeeksOut).toBe(false);
+          }
+        }
+      }),
+    );
+  });
+
+  it('keeps isometric pulses within 3–5 s (default rules), never longer than the last time plus one step', () => {
+    fc.assert(
+      fc.property(scenarioArb(fc.constant(DEFAULT_TISSUE_RULES)), (s) => {
+        for (const { input: inp, out } of play(s).steps) {
+          for (const item of out.items) {
+            if (item.kind !== 'isometric') continue;
+            expect(item.dose.seconds).toBeGreaterThanOrEqual(3);
+            expect(item.dose.seconds).toBeLessThanOrEqual(5);
+            const prev = inp.history
+              .filter(
+                (h): h is Extract<TissuePrescription, { kind: 'isometric' }> =>
+                  h.kind === 'isometric' && h.joint === item.joint,
+              )
+              .sort((a, b) => weekNumber(b.week) - weekNumber(a.week) || a.dose.seconds - b.dose.seconds)[0];
+            if (prev)
+              expect(item.dose.seconds).toBeLessThanOrEqual(
+                prev.dose.seconds + DEFAULT_TISSUE_RULES.isometricStepSeconds,
+              );
+          }
+        }
+      }),
+    );
+  });
+
+  it('never makes high-rep work heavier after a sore check-in', () => {
+    fc.assert(
+      fc.property(scenarioArb(rulesArb), (s) => {
+        const { steps } = play(s);
+        for (const { input: inp, out } of steps) {
+          for (const item of out.items) {
+            if (item.kind !== 'highRep') continue;
+            const prev = inp.history
+              .filter(
+                (h): h is Extract<TissuePrescription, { kind: 'highRep' }> =>
+                  h.kind === 'highRep' && h.joint === item.joint,
+              )
+              .sort((a, b) => weekNumber(b.week) - weekNumber(a.week))[0];
+            if (!prev) continue;
+            const sore = inp.checkins.some(
+              (c) => c.week === prev.week && c.kind === 'highRep' && c.soreness >= s.rules.sorenessThreshold,
+            );
+            if (!sore) continue;
+            const lighterOrSame =
+              item.dose.reps <= prev.dose.reps &&
+              BAND_LEVELS.indexOf(item.dose.band) <= BAND_LEVELS.indexOf(prev.dose.band);
+            expect(lighterOrSame, `${JSON.stringify(prev.dose)} → ${JSON.stringify(item.dose)}`).toBe(true);
+            const atFloor = prev.dose.band === 'lightest' && prev.dose.reps <= s.rules.highRepMinReps;
+            if (!atFloor) expect(item.dose).not.toEqual(prev.dose);
+          }
+        }
+      }),
+    );
+  });
+
+  it('is deterministic and does not depend on the order of history or check-ins', () => {
+    fc.assert(
+      fc.property(scenarioArb(rulesArb), fc.nat(), (s, seed) => {
+        const { history, checkins } = play(s);
+        const inp: TissueInput = {
+          week: addWeeks(WEEK, s.weeks),
+          meetWeek: s.meetIn === null ? undefined : addWeeks(WEEK, s.meetIn),
+          rules: s.rules,
+          history,
+          checkins,
+          focusJoints: s.focusJoints,
+        };
+        const first = prescribeTissueWork(inp);
+        expect(prescribeTissueWork(structuredClone(inp))).toEqual(first);
+        const shuffle = <T>(xs: T[]): T[] =>
+          xs
+            .map((x, i) => ({ x, k: (i * 7919 + seed) % 104729 }))
+            .sort((a, b) => a.k - b.k)
+            .map((e) => e.x);
+        expect(prescribeTissueWork({ ...inp, history: shuffle(history), checkins: shuffle(checkins) })).toEqual(first);
+      }),
+    );
+  });
+});
