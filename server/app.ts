@@ -1,0 +1,81 @@
+// createApp(): middleware, routers and error handling, without listen() so tests can drive it.
+import express, { type Express } from 'express';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { allowedOrigins } from './config/env';
+import type { AppContext } from './context';
+import { loadSession } from './middleware/auth';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { originCheck } from './middleware/origin-check';
+import { healthRouter } from './modules/health/health.router';
+import { apiModules } from './modules';
+
+/** Paths that authenticate by signature, not cookie (payment webhooks), and so skip the Origin check. */
+export const ORIGIN_EXEMPT = ['/webhooks/'];
+
+export function createApp(ctx: AppContext): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  const https = new URL(ctx.env.APP_ORIGIN).protocol === 'https:';
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          mediaSrc: ["'self'", 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          ...(https ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+      strictTransportSecurity: https,
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger: ctx.logger,
+      // Only method, path and status: no query strings (tokens), headers or bodies.
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, path: req.url.split('?')[0] }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+      autoLogging: { ignore: (req) => req.url === "/api/health" || (req.url ?? "").startsWith("/assets/") },
+    }),
+  );
+  app.use(cookieParser());
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(originCheck(allowedOrigins(ctx.env), ORIGIN_EXEMPT));
+  api.use(healthRouter(ctx));
+  api.use(loadSession(ctx));
+  for (const makeRouter of apiModules) api.use(makeRouter(ctx));
+  api.use(apiNotFound);
+  app.use('/api', api);
+  app.locals.apiRouter = api;
+
+  const dist = ctx.env.CLIENT_DIST;
+  if (dist && existsSync(join(dist, 'index.html'))) {
+    app.use('/assets', express.static(join(dist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+    app.use(express.static(dist, { index: false }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile('index.html', { root: dist });
+    });
+  }
+
+  app.use(errorHandler(ctx.logger));
+  return app;
+}

@@ -1,0 +1,30 @@
+// The team's exercise library: max-effort variants with their joint stress, risk and specificity.
+import { datetime, decimal, index, json, mysqlEnum, mysqlTable, text, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { createdAt, id, ref, updatedAt, version } from './columns';
+import { teams } from './auth';
+
+export type StressMap = Partial<Record<'shoulder' | 'elbow' | 'wrist' | 'lowerBack' | 'hip' | 'knee', number>>;
+
+export const variants = mysqlTable(
+  'variants',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    lift: mysqlEnum('lift', ['squat', 'bench', 'deadlift']).notNull(),
+    family: varchar('family', { length: 60 }).notNull(),
+    bar: varchar('bar', { length: 40 }).notNull(),
+    equipment: json('equipment').$type<string[]>().notNull(),
+    emphasis: mysqlEnum('emphasis', ['bottom', 'midRange', 'lockout']).notNull(),
+    stress: json('stress').$type<StressMap>().notNull(),
+    risk: tinyint('risk', { unsigned: true }).notNull(),
+    specificity: decimal('specificity', { precision: 3, scale: 2, mode: 'number' }).notNull(),
+    scheme: mysqlEnum('scheme', ['single', 'triple', 'five']).notNull().default('single'),
+    notes: text('notes'),
+    archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
+    version: version(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('variants_team_name_uq').on(t.teamId, t.name), index('variants_team_lift_idx').on(t.teamId, t.lift)],
+);

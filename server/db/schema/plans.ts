@@ -1,0 +1,67 @@
+// The board: one plan entry per athlete × ISO week × max-effort slot, its append-only change history,
+// and which weeks a coach has published to the athletes.
+import { boolean, char, index, int, json, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { createdAt, id, ref, updatedAt, version } from './columns';
+import { teams, users } from './auth';
+import { athletes } from './roster';
+import { variants } from './library';
+
+export const planSources = ['engine', 'coach'] as const;
+
+export const planEntries = mysqlTable(
+  'plan_entries',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    week: char('week', { length: 8 }).notNull(),
+    slotId: varchar('slot_id', { length: 32 }).notNull(),
+    variantId: ref('variant_id').references(() => variants.id),
+    source: mysqlEnum('source', planSources).notNull(),
+    pinned: boolean('pinned').notNull().default(false),
+    reason: text('reason'),
+    reasons: json('reasons').$type<string[]>().notNull(),
+    version: version(),
+    updatedBy: ref('updated_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    uniqueIndex('plan_entries_cell_uq').on(t.athleteId, t.week, t.slotId),
+    index('plan_entries_team_week_idx').on(t.teamId, t.week),
+    index('plan_entries_variant_idx').on(t.variantId),
+  ],
+);
+
+export const planEntryHistory = mysqlTable(
+  'plan_entry_history',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    planEntryId: ref('plan_entry_id').notNull().references(() => planEntries.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id').notNull(),
+    week: char('week', { length: 8 }).notNull(),
+    slotId: varchar('slot_id', { length: 32 }).notNull(),
+    oldVariantId: ref('old_variant_id'),
+    newVariantId: ref('new_variant_id'),
+    source: mysqlEnum('source', planSources).notNull(),
+    pinned: boolean('pinned').notNull(),
+    reason: text('reason'),
+    version: int('version', { unsigned: true }).notNull(),
+    changedBy: ref('changed_by').references(() => users.id, { onDelete: 'set null' }),
+    changedAt: createdAt(),
+  },
+  (t) => [index('plan_entry_history_entry_idx').on(t.planEntryId)],
+);
+
+export const weekPublications = mysqlTable(
+  'week_publications',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    week: char('week', { length: 8 }).notNull(),
+    publishedBy: ref('published_by').references(() => users.id, { onDelete: 'set null' }),
+    publishedAt: createdAt(),
+  },
+  (t) => [uniqueIndex('week_publications_team_week_uq').on(t.teamId, t.week)],
+);

@@ -1,0 +1,110 @@
+// Athletes of a team, their injury restrictions, team rules, meets and who competes in them.
+import {
+  date,
+  datetime,
+  index,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  smallint,
+  text,
+  tinyint,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
+import { createdAt, id, ref, updatedAt, version } from './columns';
+import { teams, users } from './auth';
+
+export const joints = ['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee'] as const;
+
+export const athletes = mysqlTable(
+  'athletes',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    userId: ref('user_id').references(() => users.id, { onDelete: 'set null' }),
+    name: varchar('name', { length: 120 }).notNull(),
+    sex: mysqlEnum('sex', ['M', 'F']).notNull(),
+    birthYear: smallint('birth_year', { unsigned: true }),
+    division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
+    level: mysqlEnum('level', ['novice', 'intermediate', 'advanced', 'elite']).notNull().default('intermediate'),
+    equipment: json('equipment').$type<string[]>().notNull(),
+    ruleOverrides: json('rule_overrides').$type<Record<string, unknown>>().notNull(),
+    notes: text('notes'),
+    archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
+    version: version(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('athletes_team_idx').on(t.teamId), uniqueIndex('athletes_team_user_uq').on(t.teamId, t.userId)],
+);
+
+export const restrictions = mysqlTable(
+  'restrictions',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    joint: mysqlEnum('joint', joints).notNull(),
+    maxStress: tinyint('max_stress', { unsigned: true }).notNull(),
+    fromDate: date('from_date', { mode: 'string' }).notNull(),
+    toDate: date('to_date', { mode: 'string' }),
+    note: varchar('note', { length: 500 }),
+    createdBy: ref('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('restrictions_athlete_idx').on(t.athleteId)],
+);
+
+/** One row per team: rotation windows, joint budgets, taper rules, slots, gym equipment and the plan seed. */
+export const teamRules = mysqlTable('team_rules', {
+  teamId: ref('team_id')
+    .primaryKey()
+    .references(() => teams.id, { onDelete: 'cascade' }),
+  rules: json('rules').$type<Record<string, unknown>>().notNull(),
+  equipment: json('equipment').$type<string[]>().notNull(),
+  seed: varchar('seed', { length: 64 }).notNull(),
+  version: version(),
+  updatedBy: ref('updated_by').references(() => users.id, { onDelete: 'set null' }),
+  updatedAt: updatedAt(),
+});
+
+export const meets = mysqlTable(
+  'meets',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    name: varchar('name', { length: 160 }).notNull(),
+    date: date('date', { mode: 'string' }).notNull(),
+    location: varchar('location', { length: 160 }),
+    federation: varchar('federation', { length: 120 }),
+    notes: text('notes'),
+    version: version(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index('meets_team_date_idx').on(t.teamId, t.date)],
+);
+
+export interface AttemptPlan {
+  squat?: number[];
+  bench?: number[];
+  deadlift?: number[];
+}
+
+export const meetEntries = mysqlTable(
+  'meet_entries',
+  {
+    id: id(),
+    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    meetId: ref('meet_id').notNull().references(() => meets.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    weightClass: varchar('weight_class', { length: 8 }),
+    division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
+    attempts: json('attempts').$type<AttemptPlan>().notNull(),
+    version: version(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('meet_entries_meet_athlete_uq').on(t.meetId, t.athleteId), index('meet_entries_athlete_idx').on(t.athleteId)],
+);

@@ -1,0 +1,153 @@
+// Seeds the invented demo scenario into an empty database (never twice). Dates are relative to the
+// day of seeding: the history ends last week and the current week is already planned.
+import { sql } from 'drizzle-orm';
+import { randomBytes } from 'node:crypto';
+import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
+import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
+import type { Db, Tx } from '../client';
+import { hashPassword } from '../../lib/passwords';
+import { athletes, meetEntries, meets, memberships, restrictions, teamRules, teams, users, variants } from '../schema';
+import { DEMO_EQUIPMENT, DEMO_LIBRARY, OTHER_TEAM_LIBRARY, type DemoVariant } from './demo-library';
+import { DEMO_ATHLETES, DEMO_COACHES, DEMO_MEETS, DEMO_PASSWORD, DEMO_TEAM, OTHER_TEAM } from './demo-people';
+import { seedDemoHistory } from './demo-history';
+
+export async function seedDemoIfEmpty(db: Db, today = new Date()): Promise<boolean> {
+  // A lock so two processes starting at once cannot both seed.
+  await db.execute(sql`SELECT GET_LOCK('rackturn_seed', 30)`);
+  try {
+    const [row] = await db.select({ n: sql<number>`count(*)` }).from(teams);
+    if (Number(row?.n ?? 0) > 0) return false;
+    await seedDemo(db, today);
+    return true;
+  } finally {
+    await db.execute(sql`SELECT RELEASE_LOCK('rackturn_seed')`);
+  }
+}
+
+export function isoDay(d: Date): string {
+  return d.toISOString().slice(0, 10);
+}
+
+function saturdayOf(week: string): string {
+  return isoDay(new Date(mondayOf(week).getTime() + 5 * 86_400_000));
+}
+
+async function insertLibrary(tx: Tx, teamId: number, library: DemoVariant[]): Promise<Map<string, number>> {
+  await tx.insert(variants).values(
+    library.map((v) => ({
+      teamId,
+      name: v.name,
+      lift: v.lift,
+      family: v.family,
+      bar: v.bar,
+      equipment: v.equipment,
+      emphasis: v.emphasis,
+      stress: v.stress,
+      risk: v.risk,
+      specificity: v.specificity,
+      scheme: v.scheme,
+      notes: v.notes ?? null,
+    })),
+  );
+  const rows = await tx.select({ id: variants.id, name: variants.name }).from(variants).where(sql`${variants.teamId} = ${teamId}`);
+  return new Map(rows.map((r) => [r.name, r.id]));
+}
+
+async function insertUser(tx: Tx, email: string, name: string, passwordHash: string, unit: 'kg' | 'lb' = 'kg') {
+  const [res] = await tx.insert(users).values({ email, name, passwordHash, unit }).$returningId();
+  return res!.id;
+}
+
+export async function seedDemo(db: Db, today = new Date()): Promise<void> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const thisWeek = weekOfDate(today);
+
+  await db.transaction(async (tx) => {
+    // The demo club.
+    const [team] = await tx.insert(teams).values(DEMO_TEAM).$returningId();
+    const teamId = team!.id;
+    const staffIds: number[] = [];
+    for (const c of DEMO_COACHES) {
+      const userId = await insertUser(tx, c.email, c.name, passwordHash);
+      await tx.insert(memberships).values({ teamId, userId, role: c.role });
+      staffIds.push(userId);
+    }
+    await tx.insert(teamRules).values({
+      teamId,
+      rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>,
+      equipment: DEMO_EQUIPMENT,
+      seed: randomBytes(6).toString('hex'),
+      updatedBy: staffIds[0] ?? null,
+    });
+    const variantIds = await insertLibrary(tx, teamId, DEMO_LIBRARY);
+
+    const athleteIds = new Map<string, number>();
+    for (const a of DEMO_ATHLETES) {
+      let userId: number | null = null;
+      if (a.email) {
+        userId = await insertUser(tx, a.email, a.name, passwordHash, a.unit ?? 'kg');
+        await tx.insert(memberships).values({ teamId, userId, role: 'athlete' });
+      }
+      const [row] = await tx
+        .insert(athletes)
+        .values({
+          teamId,
+          userId,
+          name: a.name,
+          sex: a.sex,
+          birthYear: a.birthYear,
+          division: a.division,
+          level: a.level,
+          equipment: DEMO_EQUIPMENT.filter((e) => !a.lacks?.includes(e)),
+          ruleOverrides: {},
+        })
+        .$returningId();
+      athleteIds.set(a.key, row!.id);
+      if (a.restriction) {
+        await tx.insert(restrictions).values({
+          teamId,
+          athleteId: row!.id,
+          joint: a.restriction.joint,
+          maxStress: a.restriction.maxStress,
+          fromDate: isoDay(mondayOf(addWeeks(thisWeek, -3))),
+          note: a.restriction.note,
+          createdBy: staffIds[0] ?? null,
+        });
+      }
+    }
+
+    for (const m of DEMO_MEETS) {
+      const [meet] = await tx
+        .insert(meets)
+        .values({ teamId, name: m.name, date: saturdayOf(addWeeks(thisWeek, m.inWeeks)), location: m.location, federation: m.federation })
+        .$returningId();
+      for (const a of DEMO_ATHLETES.filter((x) => x.meetInWeeks === m.inWeeks)) {
+        await tx.insert(meetEntries).values({
+          teamId,
+          meetId: meet!.id,
+          athleteId: athleteIds.get(a.key)!,
+          division: a.division,
+          attempts: {},
+        });
+      }
+    }
+
+    await seedDemoHistory(tx, { teamId, today, athleteIds, variantIds, coachId: staffIds[0] ?? null });
+
+    // A second, small team, so that isolation between teams can be seen.
+    const [other] = await tx.insert(teams).values({ name: OTHER_TEAM.name, unit: 'kg', currency: 'EUR' }).$returningId();
+    const otherId = other!.id;
+    const otherCoach = await insertUser(tx, OTHER_TEAM.headCoach.email, OTHER_TEAM.headCoach.name, passwordHash);
+    await tx.insert(memberships).values({ teamId: otherId, userId: otherCoach, role: 'head_coach' });
+    await tx.insert(teamRules).values({
+      teamId: otherId,
+      rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>,
+      equipment: ['box', 'rack pins', 'blocks', 'boards'],
+      seed: randomBytes(6).toString('hex'),
+    });
+    await insertLibrary(tx, otherId, OTHER_TEAM_LIBRARY);
+    for (const a of OTHER_TEAM.athletes) {
+      await tx.insert(athletes).values({ teamId: otherId, name: a.name, sex: a.sex, division: 'open', equipment: ['box', 'rack pins', 'blocks', 'boards'], ruleOverrides: {} });
+    }
+  });
+}

@@ -1,0 +1,42 @@
+// Process entry: read the environment, prepare the database, listen, and shut down gracefully.
+import { loadEnv } from './config/env';
+import { createApp } from './app';
+import { createDatabase } from './db/client';
+import { runMigrations } from './db/migrate';
+import { createLogger } from './lib/logger';
+import { SessionKeys } from './lib/session';
+import type { AppContext } from './context';
+
+const env = loadEnv();
+const logger = createLogger(env.LOG_LEVEL);
+const database = createDatabase(env.DATABASE_URL);
+
+if (env.DB_MIGRATE) {
+  await runMigrations(database.db);
+  logger.info('migrations applied');
+}
+if (env.SEED_DEMO) {
+  const { seedDemoIfEmpty } = await import('./db/seed/demo');
+  const seeded = await seedDemoIfEmpty(database.db);
+  logger.info(seeded ? 'demo data seeded' : 'demo data already present');
+}
+
+const ctx: AppContext = { env, database, logger, sessions: new SessionKeys(env.SESSION_SECRET) };
+const app = createApp(ctx);
+const server = app.listen(env.PORT, env.HOST, () => {
+  logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'listening');
+});
+
+let closing = false;
+async function shutdown(signal: string) {
+  if (closing) return;
+  closing = true;
+  logger.info({ signal }, 'shutting down');
+  server.close();
+  server.closeIdleConnections();
+  setTimeout(() => server.closeAllConnections(), 5_000).unref();
+  await database.close().catch(() => undefined);
+  process.exit(0);
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', () => void shutdown('SIGINT'));

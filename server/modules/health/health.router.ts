@@ -1,0 +1,17 @@
+// /api/health: is the app up and can it reach the database?
+import { Router } from 'express';
+import type { AppContext } from '../../context';
+import { pingDatabase } from '../../db/client';
+import { validate } from '../../middleware/validate';
+
+export function healthRouter(ctx: AppContext): Router {
+  const router = Router();
+  router.get(
+    '/health',
+    validate({}, async (_input, _req, res) => {
+      const up = await pingDatabase(ctx.database.pool);
+      res.status(up ? 200 : 503).json({ ok: up, db: up ? 'up' : 'down' });
+    }),
+  );
+  return router;
+}

@@ -1,0 +1,4 @@
+// zod contracts for requests and responses, used by server validation and client forms alike.
+export * from './common';
+export * from './auth';
+export * from './rules';

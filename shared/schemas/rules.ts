@@ -1,0 +1,64 @@
+// Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
+import { z } from 'zod';
+
+export const liftSchema = z.enum(['squat', 'bench', 'deadlift']);
+export const jointSchema = z.enum(['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee']);
+export const riskSchema = z.union([z.literal(1), z.literal(2), z.literal(3)]);
+
+export const slotSchema = z.object({
+  id: z
+    .string()
+    .trim()
+    .regex(/^[a-z][a-z0-9-]{0,31}$/, 'Use lower-case letters, digits and dashes, starting with a letter'),
+  label: z.string().trim().min(1, 'Give the slot a name').max(40),
+  lifts: z.array(liftSchema).min(1, 'Pick at least one lift'),
+});
+
+export const taperStepSchema = z.object({
+  weeksOut: z.number().int().min(0).max(16),
+  maxRisk: riskSchema,
+  minSpecificity: z.number().min(0).max(1).optional(),
+});
+
+export const jointBudgetSchema = z.partialRecord(jointSchema, z.number().min(0).max(60));
+
+export const teamRulesSchema = z
+  .object({
+    slots: z.array(slotSchema).min(1, 'Keep at least one max-effort slot').max(4),
+    repeatWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
+    familyWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
+    jointWindowWeeks: z.number().int().min(1, 'At least 1 week').max(12),
+    jointBudget: jointBudgetSchema,
+    taper: z.array(taperStepSchema).max(8),
+    /** Bodyweight gained over the last 7 days before a meet that earns a caution, in kg (common practice). */
+    bodyweightGainCautionKg: z.number().min(0.1).max(10),
+  })
+  .superRefine((r, ctx) => {
+    const ids = new Set<string>();
+    r.slots.forEach((s, i) => {
+      if (ids.has(s.id)) ctx.addIssue({ code: 'custom', path: ['slots', i, 'id'], message: 'Slot ids must be different' });
+      ids.add(s.id);
+    });
+  });
+export type TeamRules = z.infer<typeof teamRulesSchema>;
+
+export const equipmentListSchema = z
+  .array(z.string().trim().min(1).max(40))
+  .max(60)
+  .transform((list) => [...new Set(list)]);
+
+export const DEFAULT_TEAM_RULES: TeamRules = {
+  slots: [
+    { id: 'lower', label: 'Lower max effort', lifts: ['squat', 'deadlift'] },
+    { id: 'upper', label: 'Upper max effort', lifts: ['bench'] },
+  ],
+  repeatWindowWeeks: 6,
+  familyWindowWeeks: 2,
+  jointWindowWeeks: 4,
+  jointBudget: { shoulder: 9, elbow: 8, wrist: 8, lowerBack: 9, hip: 10, knee: 10 },
+  taper: [
+    { weeksOut: 3, maxRisk: 2 },
+    { weeksOut: 1, maxRisk: 1, minSpecificity: 0.8 },
+  ],
+  bodyweightGainCautionKg: 2,
+};

@@ -1,0 +1,65 @@
+// The route table: every screen, its guard and its loader. Pages load on demand.
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
+import { ATHLETE, HEAD_COACH, STAFF, homeFor, requireUser, type LoaderMaker } from './guards';
+import { AppLayout } from './routes/app-layout';
+import { RouteError } from './routes/route-error';
+import { NotFound } from './routes/not-found';
+import type { Role } from '../../shared/schemas';
+
+interface PageModule {
+  Component: React.ComponentType;
+  makeLoader?: LoaderMaker;
+}
+
+/** A lazily loaded page guarded by role; its own loader (if any) runs after the guard. */
+function page(queryClient: QueryClient, roles: Role[] | null, load: () => Promise<PageModule>): Pick<RouteObject, 'lazy'> {
+  return {
+    lazy: async () => {
+      const mod = await load();
+      const own = mod.makeLoader?.(queryClient);
+      return {
+        Component: mod.Component,
+        loader: async (args: { request: Request; params: Record<string, string | undefined> }) => {
+          if (roles) await requireUser(queryClient, args.request, roles);
+          return own ? own(args) : null;
+        },
+      };
+    },
+  };
+}
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter([
+    {
+      errorElement: <RouteError />,
+      children: [
+        { path: '/sign-in', ...page(queryClient, null, () => import('./routes/sign-in')) },
+        { path: '/forgot-password', ...page(queryClient, null, () => import('./routes/forgot-password')) },
+        { path: '/reset-password', ...page(queryClient, null, () => import('./routes/reset-password')) },
+        { path: '/accept-invitation', ...page(queryClient, null, () => import('./routes/accept-invitation')) },
+        {
+          path: '/',
+          element: <AppLayout />,
+          loader: ({ request }) => requireUser(queryClient, request),
+          children: [
+            {
+              index: true,
+              loader: async ({ request }) => redirect(homeFor(await requireUser(queryClient, request))),
+            },
+            { path: 'board', ...page(queryClient, STAFF, () => import('./routes/board')) },
+            { path: 'library', ...page(queryClient, STAFF, () => import('./routes/library')) },
+            { path: 'roster', ...page(queryClient, STAFF, () => import('./routes/roster')) },
+            { path: 'athletes/:athleteId', ...page(queryClient, STAFF, () => import('./routes/athlete')) },
+            { path: 'meets', ...page(queryClient, STAFF, () => import('./routes/meets')) },
+            { path: 'rules', ...page(queryClient, HEAD_COACH, () => import('./routes/rules')) },
+            { path: 'my-week', ...page(queryClient, ATHLETE, () => import('./routes/my-week')) },
+            { path: 'my-history', ...page(queryClient, ATHLETE, () => import('./routes/my-history')) },
+            { path: '*', element: <NotFound /> },
+          ],
+        },
+        { path: '*', element: <NotFound /> },
+      ],
+    },
+  ]);
+}

@@ -1,0 +1,5 @@
+import { Placeholder } from '../../components/ui/page';
+
+export function Component() {
+  return <Placeholder title="Accept invitation" />;
+}

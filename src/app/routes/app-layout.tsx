@@ -1,0 +1,75 @@
+// The signed-in frame: the ink-blue bar with the role's navigation, and the page below it.
+import { NavLink, Outlet, useNavigation } from 'react-router-dom';
+import type { Role } from '../../../shared/schemas';
+import { useMe } from '../../features/auth/api/queries';
+import { useSignOut } from '../../features/auth/api/use-sign-out';
+
+const NAV: { to: string; label: string; roles: Role[] }[] = [
+  { to: '/board', label: 'Board', roles: ['head_coach', 'coach'] },
+  { to: '/library', label: 'Library', roles: ['head_coach', 'coach'] },
+  { to: '/roster', label: 'Roster', roles: ['head_coach', 'coach'] },
+  { to: '/meets', label: 'Meets', roles: ['head_coach', 'coach'] },
+  { to: '/rules', label: 'Rules', roles: ['head_coach'] },
+  { to: '/my-week', label: 'My week', roles: ['athlete'] },
+  { to: '/my-history', label: 'My history', roles: ['athlete'] },
+];
+
+const ROLE_LABEL: Record<Role, string> = { head_coach: 'Head coach', coach: 'Coach', athlete: 'Athlete' };
+
+export function AppLayout() {
+  const { data: me } = useMe();
+  const signOut = useSignOut();
+  const navigation = useNavigation();
+  if (!me) return null;
+  const links = NAV.filter((n) => n.roles.includes(me.role));
+
+  return (
+    <div className="min-h-dvh">
+      <header className="bg-ink-900 text-chalk-100">
+        <div className="mx-auto flex max-w-screen-2xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
+          <NavLink to="/" className="flex items-center gap-2 text-xl font-bold tracking-wide text-chalk-50">
+            <span aria-hidden className="inline-block h-4 w-6 rounded-sm border-x-4 border-rust-500 bg-chalk-100" />
+            Rackturn
+          </NavLink>
+          <nav aria-label="Main" className="order-3 w-full overflow-x-auto sm:order-none sm:w-auto">
+            <ul className="flex gap-1">
+              {links.map((l) => (
+                <li key={l.to}>
+                  <NavLink
+                    to={l.to}
+                    className={({ isActive }) =>
+                      `block whitespace-nowrap rounded-md px-3 py-2 font-semibold ${
+                        isActive ? 'bg-ink-700 text-chalk-50 shadow-[inset_0_-3px_0_#c4582f]' : 'text-ink-200 hover:bg-ink-800 hover:text-chalk-50'
+                      }`
+                    }
+                  >
+                    {l.label}
+                  </NavLink>
+                </li>
+              ))}
+            </ul>
+          </nav>
+          <div className="ml-auto flex items-center gap-3 text-sm">
+            <span className="hidden text-right leading-tight sm:block">
+              <span className="block font-semibold text-chalk-50">{me.name}</span>
+              <span className="text-ink-300">
+                {ROLE_LABEL[me.role]} · {me.teamName}
+              </span>
+            </span>
+            <button
+              type="button"
+              onClick={() => signOut.mutate()}
+              className="min-h-11 rounded-md border border-ink-500 px-3 font-semibold text-chalk-100 hover:bg-ink-800"
+            >
+              Sign out
+            </button>
+          </div>
+        </div>
+        {navigation.state === 'loading' ? <div className="h-0.5 animate-pulse bg-rust-500" aria-hidden /> : <div className="h-0.5" />}
+      </header>
+      <main className="mx-auto max-w-screen-2xl px-3 py-4 sm:px-6 sm:py-6">
+        <Outlet />
+      </main>
+    </div>
+  );
+}

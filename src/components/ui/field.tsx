@@ -1,0 +1,70 @@
+// Labelled form fields that show their error under the input and announce it to screen readers.
+import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+
+interface FieldShell {
+  label: string;
+  error?: string | undefined;
+  hint?: ReactNode;
+}
+
+const inputClass = (error?: string) =>
+  `block w-full rounded-md border bg-chalk-50 px-3 py-2 text-base text-ink-900 placeholder:text-ink-400 focus:border-ink-700 ${
+    error ? 'border-breach-600' : 'border-ink-300'
+  }`;
+
+function Shell({ id, label, error, hint, children }: FieldShell & { id: string; children: ReactNode }) {
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-sm font-semibold text-ink-800">
+        {label}
+      </label>
+      {children}
+      {hint && !error ? (
+        <p id={`${id}-hint`} className="text-sm text-ink-500">
+          {hint}
+        </p>
+      ) : null}
+      {error ? (
+        <p id={`${id}-error`} role="alert" className="text-sm font-medium text-breach-700">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+function describedBy(id: string, error?: string, hint?: ReactNode) {
+  return error ? `${id}-error` : hint ? `${id}-hint` : undefined;
+}
+
+export function TextField({ label, error, hint, id, ...props }: FieldShell & InputHTMLAttributes<HTMLInputElement>) {
+  const auto = useId();
+  const fid = id ?? auto;
+  return (
+    <Shell id={fid} label={label} error={error} hint={hint}>
+      <input id={fid} aria-invalid={error ? true : undefined} aria-describedby={describedBy(fid, error, hint)} className={inputClass(error)} {...props} />
+    </Shell>
+  );
+}
+
+export function SelectField({ label, error, hint, id, children, ...props }: FieldShell & SelectHTMLAttributes<HTMLSelectElement>) {
+  const auto = useId();
+  const fid = id ?? auto;
+  return (
+    <Shell id={fid} label={label} error={error} hint={hint}>
+      <select id={fid} aria-invalid={error ? true : undefined} aria-describedby={describedBy(fid, error, hint)} className={inputClass(error)} {...props}>
+        {children}
+      </select>
+    </Shell>
+  );
+}
+
+export function TextAreaField({ label, error, hint, id, ...props }: FieldShell & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  const auto = useId();
+  const fid = id ?? auto;
+  return (
+    <Shell id={fid} label={label} error={error} hint={hint}>
+      <textarea id={fid} aria-invalid={error ? true : undefined} aria-describedby={describedBy(fid, error, hint)} className={inputClass(error)} {...props} />
+    </Shell>
+  );
+}

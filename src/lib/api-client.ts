@@ -1,0 +1,54 @@
+// The one way the client talks to the API: JSON in, JSON out, failures as a typed ApiError.
+import type { ApiErrorBody } from '../../shared/schemas';
+
+export class ApiError extends Error {
+  constructor(
+    public readonly status: number,
+    public readonly code: string,
+    message: string,
+    public readonly fields: Record<string, string[]> = {},
+    public readonly body: ApiErrorBody['error'] | null = null,
+  ) {
+    super(message);
+  }
+}
+
+export interface RequestOptions {
+  method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  body?: unknown;
+  signal?: AbortSignal;
+}
+
+export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T> {
+  const isForm = typeof FormData !== 'undefined' && opts.body instanceof FormData;
+  let res: Response;
+  try {
+    res = await fetch(`/api${path}`, {
+      method: opts.method ?? 'GET',
+      credentials: 'same-origin',
+      headers: opts.body === undefined || isForm ? { Accept: 'application/json' } : { 'Content-Type': 'application/json', Accept: 'application/json' },
+      body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
+      signal: opts.signal,
+    });
+  } catch (err) {
+    if (err instanceof DOMException && err.name === 'AbortError') throw err;
+    throw new ApiError(0, 'network', 'Cannot reach Rackturn. Check the connection and try again.');
+  }
+  if (res.status === 204) return undefined as T;
+  const text = await res.text();
+  let data: unknown = null;
+  try {
+    data = text ? JSON.parse(text) : null;
+  } catch {
+    /* not JSON: handled below */
+  }
+  if (!res.ok) {
+    const err = (data as ApiErrorBody | null)?.error;
+    throw new ApiError(res.status, err?.code ?? 'http_error', err?.message ?? `The server answered ${res.status}.`, err?.fields ?? {}, err ?? null);
+  }
+  return (data ?? (text as unknown)) as T;
+}
+
+export function isApiError(err: unknown, status?: number): err is ApiError {
+  return err instanceof ApiError && (status === undefined || err.status === status);
+}

@@ -1,0 +1,64 @@
+// Test data factories: each test builds its own team, so test files can run in parallel on one database.
+import { randomUUID } from 'node:crypto';
+import bcrypt from 'bcryptjs';
+import type { Db } from '../../server/db/client';
+import { athletes, memberships, teamRules, teams, users, variants } from '../../server/db/schema';
+import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
+import { TEST_PASSWORD } from './app';
+
+// bcrypt is slow on purpose; one hash serves every test user.
+const passwordHash = bcrypt.hashSync(TEST_PASSWORD, 4);
+
+export const uniq = () => randomUUID().slice(0, 8);
+
+export async function createUser(db: Db, teamId: number, role: 'head_coach' | 'coach' | 'athlete', name?: string) {
+  const tag = uniq();
+  const email = `${role.replace('_', '-')}-${tag}@example.test`;
+  const [u] = await db.insert(users).values({ email, name: name ?? `Test ${role} ${tag}`, passwordHash }).$returningId();
+  await db.insert(memberships).values({ teamId, userId: u!.id, role });
+  return { id: u!.id, email };
+}
+
+export async function createAthlete(db: Db, teamId: number, overrides: Partial<typeof athletes.$inferInsert> = {}) {
+  const [a] = await db
+    .insert(athletes)
+    .values({ teamId, name: `Athlete ${uniq()}`, sex: 'F', equipment: ['box', 'bands', 'rack pins', 'boards'], ruleOverrides: {}, ...overrides })
+    .$returningId();
+  return a!.id;
+}
+
+export interface VariantOverrides extends Partial<typeof variants.$inferInsert> {}
+
+export async function createVariant(db: Db, teamId: number, overrides: VariantOverrides = {}) {
+  const [v] = await db
+    .insert(variants)
+    .values({
+      teamId,
+      name: `Variant ${uniq()}`,
+      lift: 'squat',
+      family: 'box squat',
+      bar: 'straight',
+      equipment: [],
+      emphasis: 'bottom',
+      stress: { lowerBack: 1, hip: 1 },
+      risk: 1,
+      specificity: 0.5,
+      scheme: 'single',
+      ...overrides,
+    })
+    .$returningId();
+  return v!.id;
+}
+
+/** A team with a head coach, a coach, and an athlete whose account is linked to a roster entry. */
+export async function createTeam(db: Db, name = `Team ${uniq()}`) {
+  const [t] = await db.insert(teams).values({ name }).$returningId();
+  const teamId = t!.id;
+  await db.insert(teamRules).values({ teamId, rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>, equipment: ['box', 'bands', 'rack pins', 'boards'], seed: 'test-seed' });
+  const headCoach = await createUser(db, teamId, 'head_coach');
+  const coach = await createUser(db, teamId, 'coach');
+  const athleteUser = await createUser(db, teamId, 'athlete');
+  const athleteId = await createAthlete(db, teamId, { userId: athleteUser.id, name: 'Linked Athlete' });
+  return { teamId, name, headCoach, coach, athleteUser, athleteId };
+}
+export type TestTeam = Awaited<ReturnType<typeof createTeam>>;
