@@ -28,7 +28,7 @@
 // medical advice; the notes always carry the usual cautions.
 
 import { JOINTS, type Joint, type Variant } from './types';
-import { parseWeek, weekNumber } from './weeks';
+import { parseWeek, weekNumber as parseWeekNumber } from './weeks';
 import { jointName } from './words';
 
 export type TissueKind = 'highRep' | 'isometric' | 'loadedStretch';
@@ -326,6 +326,18 @@ function checkInput(input: TissueInput): void {
       throw new RangeError(`soreness must be from 0 to 10, got ${c.soreness}`);
     for (const j of c.painJoints) oneOf('pain joint', j, JOINTS);
   }
+}
+
+// Week strings repeat across history and check-ins; parsing each once keeps long histories cheap.
+const weekNumbers = new Map<string, number>();
+function weekNumber(week: string): number {
+  let n = weekNumbers.get(week);
+  if (n === undefined) {
+    n = parseWeekNumber(week);
+    if (weekNumbers.size > 10_000) weekNumbers.clear();
+    weekNumbers.set(week, n);
+  }
+  return n;
 }
 
 // ---- history lookups ----------------------------------------------------------------------------------
