@@ -102,9 +102,13 @@ export async function startMariaDb({ name, port, databases, user = 'rackturn' })
   mkdirSync(dir, { recursive: true });
 
   const admin = (...args) =>
-    spawnSync(which('mariadb-admin') ?? 'mariadb-admin', ['--no-defaults', `--socket=${socket}`, '--user=root', ...args], {
-      encoding: 'utf8',
-    });
+    spawnSync(
+      which('mariadb-admin') ?? 'mariadb-admin',
+      ['--no-defaults', `--socket=${socket}`, '--user=root', ...args],
+      {
+        encoding: 'utf8',
+      },
+    );
   const ping = () => admin('--connect-timeout=1', 'ping').status === 0;
 
   let startedHere = false;
@@ -113,14 +117,18 @@ export async function startMariaDb({ name, port, databases, user = 'rackturn' })
       log(`initialising MariaDB data folder ${datadir}…`);
       rmSync(datadir, { recursive: true, force: true });
       mkdirSync(datadir, { recursive: true });
-      runSync(which('mariadb-install-db') ?? 'mariadb-install-db', [
-        '--no-defaults',
-        '--user=root',
-        `--datadir=${datadir}`,
-        '--auth-root-authentication-method=socket',
-        '--skip-test-db',
-        '--skip-name-resolve',
-      ], { stdio: ['ignore', 'ignore', 'inherit'] });
+      runSync(
+        which('mariadb-install-db') ?? 'mariadb-install-db',
+        [
+          '--no-defaults',
+          '--user=root',
+          `--datadir=${datadir}`,
+          '--auth-root-authentication-method=socket',
+          '--skip-test-db',
+          '--skip-name-resolve',
+        ],
+        { stdio: ['ignore', 'ignore', 'inherit'] },
+      );
     }
     if (existsSync(pidFile)) {
       const stale = Number(readFileSync(pidFile, 'utf8'));
@@ -158,7 +166,9 @@ export async function startMariaDb({ name, port, databases, user = 'rackturn' })
   }
 
   const sql = [
-    ...databases.map((db) => `CREATE DATABASE IF NOT EXISTS \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`),
+    ...databases.map(
+      (db) => `CREATE DATABASE IF NOT EXISTS \`${db}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
+    ),
     ...['127.0.0.1', 'localhost'].flatMap((host) => [
       `CREATE USER IF NOT EXISTS '${user}'@'${host}' IDENTIFIED BY '${secrets.dbPassword}';`,
       `ALTER USER '${user}'@'${host}' IDENTIFIED BY '${secrets.dbPassword}';`,

@@ -97,7 +97,15 @@ function buildClientIfChanged() {
     if (st.isDirectory()) for (const f of readdirSync(p).sort()) walk(join(p, f));
     else hash.update(`${p}:${st.size}:${st.mtimeMs}\n`);
   };
-  for (const p of ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json', 'public'])
+  for (const p of [
+    'src',
+    'shared',
+    'index.html',
+    'vite.config.ts',
+    'tailwind.config.ts',
+    'package-lock.json',
+    'public',
+  ])
     walk(join(ROOT, p));
   const digest = hash.digest('hex');
   const stamp = join(ROOT, 'dist', '.build-stamp');

@@ -21,9 +21,11 @@ ensureApt('chromium', ['chromium', 'fonts-liberation']);
 
 const tmp = join(ROOT, '.tmp');
 mkdirSync(tmp, { recursive: true });
+// TEST_INSTANCE and the port variables let several checkouts or developers test side by side.
+const instance = process.env.TEST_INSTANCE ?? 'test';
 const dbPort = Number(process.env.TEST_DB_PORT ?? 3308);
-const db = await startMariaDb({ name: 'test', port: dbPort, databases: ['rackturn_test', 'rackturn_e2e'] });
-log(`test MariaDB on 127.0.0.1:${dbPort}`);
+const db = await startMariaDb({ name: instance, port: dbPort, databases: ['rackturn_test', 'rackturn_e2e'] });
+log(`test MariaDB "${instance}" on 127.0.0.1:${dbPort}`);
 
 const ports = standinPorts(Number(process.env.TEST_STANDIN_PORT_BASE ?? 4500));
 const env = {
@@ -35,6 +37,8 @@ const env = {
   TEST_DB_SOCKET: db.socket,
   TEST_SESSION_SECRET: db.secrets.sessionSecret,
   TEST_APP_PORT: process.env.TEST_APP_PORT ?? '3100',
+  TEST_INSTANCE: instance,
+  TEST_DB_PORT: String(dbPort),
 };
 
 const children = [];
@@ -55,7 +59,7 @@ for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
 const standins = startChild(join(BIN, 'tsx'), ['server/standins/index.ts'], { env });
 children.push(standins);
 
-const report = join(tmp, 'vitest-report.json');
+const report = join(tmp, `${instance}-vitest-report.json`);
 rmSync(report, { force: true });
 const vitest = startChild(
   join(BIN, 'vitest'),
@@ -67,14 +71,12 @@ finished = true;
 await cleanup();
 
 let passed = 0;
-let failed = 0;
+let failed = 1; // no report at all counts as a failure
 if (existsSync(report)) {
   const r = JSON.parse(readFileSync(report, 'utf8'));
   passed = r.numPassedTests ?? 0;
   failed = (r.numFailedTests ?? 0) + (r.numRuntimeErrorTestSuites ?? 0);
   if (!r.success && failed === 0) failed = 1;
-} else {
-  failed = 1;
 }
 if (code !== 0 && failed === 0) failed = 1;
 process.stdout.write(`\n${passed} passed, ${failed} failed\n`);

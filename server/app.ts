@@ -51,7 +51,7 @@ export function createApp(ctx: AppContext): Express {
         req: (req: { method: string; url: string }) => ({ method: req.method, path: req.url.split('?')[0] }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
-      autoLogging: { ignore: (req) => req.url === "/api/health" || (req.url ?? "").startsWith("/assets/") },
+      autoLogging: { ignore: (req) => req.url === '/api/health' || (req.url ?? '').startsWith('/assets/') },
     }),
   );
   app.use(cookieParser());

@@ -54,6 +54,8 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
 
 /** Every origin whose cookie-authenticated writes are accepted. */
 export function allowedOrigins(env: Env): Set<string> {
-  const extra = env.EXTRA_ORIGINS.split(',').map((s) => s.trim()).filter(Boolean);
+  const extra = env.EXTRA_ORIGINS.split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
   return new Set([new URL(env.APP_ORIGIN).origin, ...extra]);
 }

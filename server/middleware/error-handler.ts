@@ -18,7 +18,14 @@ interface HttpishError {
   field?: string;
 }
 
-const DB_DOWN = new Set(['ECONNREFUSED', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'ECONNRESET', 'EPIPE', 'ER_SERVER_SHUTDOWN']);
+const DB_DOWN = new Set([
+  'ECONNREFUSED',
+  'PROTOCOL_CONNECTION_LOST',
+  'ETIMEDOUT',
+  'ECONNRESET',
+  'EPIPE',
+  'ER_SERVER_SHUTDOWN',
+]);
 
 /** mysql2 connection failures, possibly wrapped by drizzle as the `cause`. */
 function isDatabaseDown(err: unknown): boolean {
@@ -40,7 +47,11 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (err instanceof ZodError) {
-      res.status(400).json({ error: { code: 'validation_failed', message: 'Some fields need attention.', fields: fieldErrors(err) } });
+      res
+        .status(400)
+        .json({
+          error: { code: 'validation_failed', message: 'Some fields need attention.', fields: fieldErrors(err) },
+        });
       return;
     }
     const e = (err ?? {}) as HttpishError;
@@ -54,11 +65,17 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (typeof e.code === 'string' && e.code.startsWith('LIMIT_')) {
-      res.status(400).json({ error: { code: 'invalid_upload', message: `The upload was refused (${e.code.toLowerCase()}).` } });
+      res
+        .status(400)
+        .json({ error: { code: 'invalid_upload', message: `The upload was refused (${e.code.toLowerCase()}).` } });
       return;
     }
     if (isDatabaseDown(err)) {
-      res.status(503).json({ error: { code: 'db_unavailable', message: 'The database is not reachable right now. Try again in a moment.' } });
+      res
+        .status(503)
+        .json({
+          error: { code: 'db_unavailable', message: 'The database is not reachable right now. Try again in a moment.' },
+        });
       return;
     }
     const status = e.status ?? e.statusCode;
@@ -67,6 +84,8 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     logger.error({ err, method: req.method, path: req.path }, 'unhandled error');
-    res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. Please try again.' } });
+    res
+      .status(500)
+      .json({ error: { code: 'internal', message: 'Something went wrong on our side. Please try again.' } });
   };
 }

@@ -8,10 +8,7 @@ export const emailField = z
   .toLowerCase()
   .pipe(z.email({ message: 'Enter a valid e-mail address' }).max(254));
 
-export const passwordField = z
-  .string()
-  .min(10, 'Use at least 10 characters')
-  .max(200, 'Use at most 200 characters');
+export const passwordField = z.string().min(10, 'Use at least 10 characters').max(200, 'Use at most 200 characters');
 
 export const loginBody = z.object({
   email: emailField,

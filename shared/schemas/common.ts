@@ -2,10 +2,7 @@
 import { z } from 'zod';
 import { isIsoWeek } from '../engine/weeks';
 
-export const isoWeek = z
-  .string()
-  .trim()
-  .refine(isIsoWeek, { message: 'Use an ISO week like 2027-W05' });
+export const isoWeek = z.string().trim().refine(isIsoWeek, { message: 'Use an ISO week like 2027-W05' });
 
 export const isoDate = z.iso.date({ message: 'Use a date like 2027-03-14' });
 

@@ -36,7 +36,8 @@ export const teamRulesSchema = z
   .superRefine((r, ctx) => {
     const ids = new Set<string>();
     r.slots.forEach((s, i) => {
-      if (ids.has(s.id)) ctx.addIssue({ code: 'custom', path: ['slots', i, 'id'], message: 'Slot ids must be different' });
+      if (ids.has(s.id))
+        ctx.addIssue({ code: 'custom', path: ['slots', i, 'id'], message: 'Slot ids must be different' });
       ids.add(s.id);
     });
   });

@@ -29,4 +29,6 @@ export async function requireUser(queryClient: QueryClient, request: Request, ro
   return me;
 }
 
-export type LoaderMaker = (queryClient: QueryClient) => (args: { request: Request; params: Record<string, string | undefined> }) => Promise<unknown>;
+export type LoaderMaker = (
+  queryClient: QueryClient,
+) => (args: { request: Request; params: Record<string, string | undefined> }) => Promise<unknown>;

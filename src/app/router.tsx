@@ -13,7 +13,11 @@ interface PageModule {
 }
 
 /** A lazily loaded page guarded by role; its own loader (if any) runs after the guard. */
-function page(queryClient: QueryClient, roles: Role[] | null, load: () => Promise<PageModule>): Pick<RouteObject, 'lazy'> {
+function page(
+  queryClient: QueryClient,
+  roles: Role[] | null,
+  load: () => Promise<PageModule>,
+): Pick<RouteObject, 'lazy'> {
   return {
     lazy: async () => {
       const mod = await load();

@@ -26,7 +26,10 @@ export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T
     res = await fetch(`/api${path}`, {
       method: opts.method ?? 'GET',
       credentials: 'same-origin',
-      headers: opts.body === undefined || isForm ? { Accept: 'application/json' } : { 'Content-Type': 'application/json', Accept: 'application/json' },
+      headers:
+        opts.body === undefined || isForm
+          ? { Accept: 'application/json' }
+          : { 'Content-Type': 'application/json', Accept: 'application/json' },
       body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
       signal: opts.signal,
     });
@@ -44,7 +47,13 @@ export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T
   }
   if (!res.ok) {
     const err = (data as ApiErrorBody | null)?.error;
-    throw new ApiError(res.status, err?.code ?? 'http_error', err?.message ?? `The server answered ${res.status}.`, err?.fields ?? {}, err ?? null);
+    throw new ApiError(
+      res.status,
+      err?.code ?? 'http_error',
+      err?.message ?? `The server answered ${res.status}.`,
+      err?.fields ?? {},
+      err ?? null,
+    );
   }
   return (data ?? (text as unknown)) as T;
 }

@@ -21,7 +21,9 @@ function sessionCookie(res: request.Response): string {
 
 describe('POST /api/auth/login', () => {
   it('signs in and sets an httpOnly, SameSite=Lax session cookie with a 12-hour life', async () => {
-    const res = await request(t.app).post('/api/auth/login').send({ email: team.headCoach.email, password: TEST_PASSWORD });
+    const res = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: team.headCoach.email, password: TEST_PASSWORD });
     expect(res.status).toBe(200);
     const cookie = sessionCookie(res);
     expect(cookie).toMatch(/HttpOnly/i);
@@ -31,13 +33,19 @@ describe('POST /api/auth/login', () => {
   });
 
   it('accepts the e-mail in any case and with spaces around it', async () => {
-    const res = await request(t.app).post('/api/auth/login').send({ email: `  ${team.coach.email.toUpperCase()} `, password: TEST_PASSWORD });
+    const res = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: `  ${team.coach.email.toUpperCase()} `, password: TEST_PASSWORD });
     expect(res.status).toBe(200);
   });
 
   it('answers an unknown e-mail and a wrong password identically', async () => {
-    const wrong = await request(t.app).post('/api/auth/login').send({ email: team.coach.email, password: 'not-the-password' });
-    const unknown = await request(t.app).post('/api/auth/login').send({ email: 'nobody@example.test', password: 'not-the-password' });
+    const wrong = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: team.coach.email, password: 'not-the-password' });
+    const unknown = await request(t.app)
+      .post('/api/auth/login')
+      .send({ email: 'nobody@example.test', password: 'not-the-password' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
@@ -75,11 +83,19 @@ describe('GET /api/auth/me', () => {
     const agent = await t.signIn(team.athleteUser.email);
     const res = await agent.get('/api/auth/me');
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ email: team.athleteUser.email, role: 'athlete', teamId: team.teamId, teamName: team.name, athleteId: team.athleteId });
+    expect(res.body).toMatchObject({
+      email: team.athleteUser.email,
+      role: 'athlete',
+      teamId: team.teamId,
+      teamName: team.name,
+      athleteId: team.athleteId,
+    });
   });
 
   it('refuses a forged or tampered token', async () => {
-    const res = await request(t.app).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=eyJhbGciOiJIUzI1NiJ9.eyJzdWIiOiIxIn0.bad`);
+    const res = await request(t.app)
+      .get('/api/auth/me')
+      .set('Cookie', `${SESSION_COOKIE}=eyJhbGciOiJIUzI1NiJ9.eyJzdWIiOiIxIn0.bad`);
     expect(res.status).toBe(401);
   });
 
@@ -87,7 +103,10 @@ describe('GET /api/auth/me', () => {
     const extra = await createTeam(t.ctx.database.db);
     const agent = await t.signIn(extra.coach.email);
     expect((await agent.get('/api/auth/me')).status).toBe(200);
-    await t.ctx.database.db.update(users).set({ passwordChangedAt: new Date(Date.now() + 2000) }).where(eq(users.id, extra.coach.id));
+    await t.ctx.database.db
+      .update(users)
+      .set({ passwordChangedAt: new Date(Date.now() + 2000) })
+      .where(eq(users.id, extra.coach.id));
     expect((await agent.get('/api/auth/me')).status).toBe(401);
   });
 });
@@ -141,12 +160,20 @@ describe('sign-in rate limits', () => {
     const email = `limit-${Date.now()}@example.test`;
     const statuses: number[] = [];
     for (let i = 0; i < 5; i++) {
-      statuses.push((await request(limited.app).post('/api/auth/login').send({ email, password: 'guess-' + i })).status);
+      statuses.push(
+        (
+          await request(limited.app)
+            .post('/api/auth/login')
+            .send({ email, password: 'guess-' + i })
+        ).status,
+      );
     }
     expect(statuses.slice(0, 3)).toEqual([401, 401, 401]);
     expect(statuses.slice(3)).toEqual([429, 429]);
     // Another account from the same address is not affected by that account's limit.
-    const other = await request(limited.app).post('/api/auth/login').send({ email: team.coach.email, password: TEST_PASSWORD });
+    const other = await request(limited.app)
+      .post('/api/auth/login')
+      .send({ email: team.coach.email, password: TEST_PASSWORD });
     expect(other.status).toBe(200);
   });
 });
@@ -157,7 +184,13 @@ describe('sign-in rate limit per address', () => {
   it('limits attempts from one address across accounts', async () => {
     const statuses: number[] = [];
     for (let i = 0; i < 4; i++) {
-      statuses.push((await request(limited.app).post('/api/auth/login').send({ email: `ip-${i}-${Date.now()}@example.test`, password: 'x' })).status);
+      statuses.push(
+        (
+          await request(limited.app)
+            .post('/api/auth/login')
+            .send({ email: `ip-${i}-${Date.now()}@example.test`, password: 'x' })
+        ).status,
+      );
     }
     expect(statuses).toEqual([401, 401, 401, 429]);
   });

@@ -37,7 +37,12 @@ export function testEnv(overrides: Record<string, string> = {}) {
 export function useTestApp(envOverrides: Record<string, string> = {}): TestApp {
   const env = testEnv(envOverrides);
   const database = createDatabase(env.DATABASE_URL, { connectionLimit: 5 });
-  const ctx: AppContext = { env, database, logger: createLogger('silent'), sessions: new SessionKeys(env.SESSION_SECRET) };
+  const ctx: AppContext = {
+    env,
+    database,
+    logger: createLogger('silent'),
+    sessions: new SessionKeys(env.SESSION_SECRET),
+  };
   const app = createApp(ctx);
   afterAll(() => database.close());
   return {

@@ -14,7 +14,10 @@ export const uniq = () => randomUUID().slice(0, 8);
 export async function createUser(db: Db, teamId: number, role: 'head_coach' | 'coach' | 'athlete', name?: string) {
   const tag = uniq();
   const email = `${role.replace('_', '-')}-${tag}@example.test`;
-  const [u] = await db.insert(users).values({ email, name: name ?? `Test ${role} ${tag}`, passwordHash }).$returningId();
+  const [u] = await db
+    .insert(users)
+    .values({ email, name: name ?? `Test ${role} ${tag}`, passwordHash })
+    .$returningId();
   await db.insert(memberships).values({ teamId, userId: u!.id, role });
   return { id: u!.id, email };
 }
@@ -22,7 +25,14 @@ export async function createUser(db: Db, teamId: number, role: 'head_coach' | 'c
 export async function createAthlete(db: Db, teamId: number, overrides: Partial<typeof athletes.$inferInsert> = {}) {
   const [a] = await db
     .insert(athletes)
-    .values({ teamId, name: `Athlete ${uniq()}`, sex: 'F', equipment: ['box', 'bands', 'rack pins', 'boards'], ruleOverrides: {}, ...overrides })
+    .values({
+      teamId,
+      name: `Athlete ${uniq()}`,
+      sex: 'F',
+      equipment: ['box', 'bands', 'rack pins', 'boards'],
+      ruleOverrides: {},
+      ...overrides,
+    })
     .$returningId();
   return a!.id;
 }
@@ -54,7 +64,14 @@ export async function createVariant(db: Db, teamId: number, overrides: VariantOv
 export async function createTeam(db: Db, name = `Team ${uniq()}`) {
   const [t] = await db.insert(teams).values({ name }).$returningId();
   const teamId = t!.id;
-  await db.insert(teamRules).values({ teamId, rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>, equipment: ['box', 'bands', 'rack pins', 'boards'], seed: 'test-seed' });
+  await db
+    .insert(teamRules)
+    .values({
+      teamId,
+      rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>,
+      equipment: ['box', 'bands', 'rack pins', 'boards'],
+      seed: 'test-seed',
+    });
   const headCoach = await createUser(db, teamId, 'head_coach');
   const coach = await createUser(db, teamId, 'coach');
   const athleteUser = await createUser(db, teamId, 'athlete');

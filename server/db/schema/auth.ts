@@ -32,8 +32,12 @@ export const memberships = mysqlTable(
   'memberships',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
     role: mysqlEnum('role', roles).notNull(),
     createdAt: createdAt(),
   },
@@ -44,7 +48,9 @@ export const invitations = mysqlTable(
   'invitations',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     email: varchar('email', { length: 254 }).notNull(),
     role: mysqlEnum('role', roles).notNull(),
     athleteId: ref('athlete_id'),
@@ -55,14 +61,19 @@ export const invitations = mysqlTable(
     invitedBy: ref('invited_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex('invitations_token_uq').on(t.tokenHash), index('invitations_team_email_idx').on(t.teamId, t.email)],
+  (t) => [
+    uniqueIndex('invitations_token_uq').on(t.tokenHash),
+    index('invitations_team_email_idx').on(t.teamId, t.email),
+  ],
 );
 
 export const passwordResets = mysqlTable(
   'password_resets',
   {
     id: id(),
-    userId: ref('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
     tokenHash: char('token_hash', { length: 64 }).notNull(),
     expiresAt: datetime('expires_at', { mode: 'date', fsp: 3 }).notNull(),
     usedAt: datetime('used_at', { mode: 'date', fsp: 3 }),

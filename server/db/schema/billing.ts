@@ -8,7 +8,9 @@ export const feePlans = mysqlTable(
   'fee_plans',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     name: varchar('name', { length: 120 }).notNull(),
     priceMinor: int('price_minor', { unsigned: true }).notNull(),
     currency: char('currency', { length: 3 }).notNull(),
@@ -31,7 +33,9 @@ export const athleteBilling = mysqlTable(
     athleteId: ref('athlete_id')
       .primaryKey()
       .references(() => athletes.id, { onDelete: 'cascade' }),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     feePlanId: ref('fee_plan_id').references(() => feePlans.id, { onDelete: 'set null' }),
     providerCustomerId: varchar('provider_customer_id', { length: 120 }),
     providerSubscriptionId: varchar('provider_subscription_id', { length: 120 }),
@@ -41,7 +45,10 @@ export const athleteBilling = mysqlTable(
     version: version(),
     updatedAt: updatedAt(),
   },
-  (t) => [index('athlete_billing_team_idx').on(t.teamId), index('athlete_billing_customer_idx').on(t.providerCustomerId)],
+  (t) => [
+    index('athlete_billing_team_idx').on(t.teamId),
+    index('athlete_billing_customer_idx').on(t.providerCustomerId),
+  ],
 );
 
 export const paymentEvents = mysqlTable(

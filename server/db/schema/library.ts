@@ -1,5 +1,16 @@
 // The team's exercise library: max-effort variants with their joint stress, risk and specificity.
-import { datetime, decimal, index, json, mysqlEnum, mysqlTable, text, tinyint, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import {
+  datetime,
+  decimal,
+  index,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  text,
+  tinyint,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt, version } from './columns';
 import { teams } from './auth';
 
@@ -9,7 +20,9 @@ export const variants = mysqlTable(
   'variants',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     name: varchar('name', { length: 120 }).notNull(),
     lift: mysqlEnum('lift', ['squat', 'bench', 'deadlift']).notNull(),
     family: varchar('family', { length: 60 }).notNull(),
@@ -26,5 +39,8 @@ export const variants = mysqlTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [uniqueIndex('variants_team_name_uq').on(t.teamId, t.name), index('variants_team_lift_idx').on(t.teamId, t.lift)],
+  (t) => [
+    uniqueIndex('variants_team_name_uq').on(t.teamId, t.name),
+    index('variants_team_lift_idx').on(t.teamId, t.lift),
+  ],
 );

@@ -1,6 +1,17 @@
 // The board: one plan entry per athlete × ISO week × max-effort slot, its append-only change history,
 // and which weeks a coach has published to the athletes.
-import { boolean, char, index, int, json, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import {
+  boolean,
+  char,
+  index,
+  int,
+  json,
+  mysqlEnum,
+  mysqlTable,
+  text,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt, version } from './columns';
 import { teams, users } from './auth';
 import { athletes } from './roster';
@@ -12,8 +23,12 @@ export const planEntries = mysqlTable(
   'plan_entries',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     week: char('week', { length: 8 }).notNull(),
     slotId: varchar('slot_id', { length: 32 }).notNull(),
     variantId: ref('variant_id').references(() => variants.id),
@@ -37,8 +52,12 @@ export const planEntryHistory = mysqlTable(
   'plan_entry_history',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    planEntryId: ref('plan_entry_id').notNull().references(() => planEntries.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    planEntryId: ref('plan_entry_id')
+      .notNull()
+      .references(() => planEntries.id, { onDelete: 'cascade' }),
     athleteId: ref('athlete_id').notNull(),
     week: char('week', { length: 8 }).notNull(),
     slotId: varchar('slot_id', { length: 32 }).notNull(),
@@ -58,7 +77,9 @@ export const weekPublications = mysqlTable(
   'week_publications',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     week: char('week', { length: 8 }).notNull(),
     publishedBy: ref('published_by').references(() => users.id, { onDelete: 'set null' }),
     publishedAt: createdAt(),

@@ -21,7 +21,9 @@ export const athletes = mysqlTable(
   'athletes',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     userId: ref('user_id').references(() => users.id, { onDelete: 'set null' }),
     name: varchar('name', { length: 120 }).notNull(),
     sex: mysqlEnum('sex', ['M', 'F']).notNull(),
@@ -43,8 +45,12 @@ export const restrictions = mysqlTable(
   'restrictions',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     joint: mysqlEnum('joint', joints).notNull(),
     maxStress: tinyint('max_stress', { unsigned: true }).notNull(),
     fromDate: date('from_date', { mode: 'string' }).notNull(),
@@ -73,7 +79,9 @@ export const meets = mysqlTable(
   'meets',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
     name: varchar('name', { length: 160 }).notNull(),
     date: date('date', { mode: 'string' }).notNull(),
     location: varchar('location', { length: 160 }),
@@ -96,9 +104,15 @@ export const meetEntries = mysqlTable(
   'meet_entries',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    meetId: ref('meet_id').notNull().references(() => meets.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    meetId: ref('meet_id')
+      .notNull()
+      .references(() => meets.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     weightClass: varchar('weight_class', { length: 8 }),
     division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
     attempts: json('attempts').$type<AttemptPlan>().notNull(),
@@ -106,5 +120,8 @@ export const meetEntries = mysqlTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [uniqueIndex('meet_entries_meet_athlete_uq').on(t.meetId, t.athleteId), index('meet_entries_athlete_idx').on(t.athleteId)],
+  (t) => [
+    uniqueIndex('meet_entries_meet_athlete_uq').on(t.meetId, t.athleteId),
+    index('meet_entries_athlete_idx').on(t.athleteId),
+  ],
 );

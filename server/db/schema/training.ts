@@ -24,8 +24,12 @@ export const videos = mysqlTable(
   'videos',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     storageKey: varchar('storage_key', { length: 200 }).notNull(),
     contentType: varchar('content_type', { length: 60 }).notNull(),
     sizeBytes: bigint('size_bytes', { mode: 'number', unsigned: true }).notNull(),
@@ -40,8 +44,12 @@ export const videoComments = mysqlTable(
   'video_comments',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    videoId: ref('video_id').notNull().references(() => videos.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    videoId: ref('video_id')
+      .notNull()
+      .references(() => videos.id, { onDelete: 'cascade' }),
     authorId: ref('author_id').references(() => users.id, { onDelete: 'set null' }),
     body: text('body').notNull(),
     createdAt: createdAt(),
@@ -53,10 +61,16 @@ export const topSets = mysqlTable(
   'top_sets',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     planEntryId: ref('plan_entry_id').references(() => planEntries.id, { onDelete: 'set null' }),
-    variantId: ref('variant_id').notNull().references(() => variants.id),
+    variantId: ref('variant_id')
+      .notNull()
+      .references(() => variants.id),
     week: char('week', { length: 8 }).notNull(),
     performedOn: date('performed_on', { mode: 'string' }).notNull(),
     weightKg: decimal('weight_kg', { precision: 6, scale: 2, mode: 'number' }).notNull(),
@@ -70,15 +84,22 @@ export const topSets = mysqlTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index('top_sets_athlete_variant_idx').on(t.athleteId, t.variantId), index('top_sets_entry_idx').on(t.planEntryId)],
+  (t) => [
+    index('top_sets_athlete_variant_idx').on(t.athleteId, t.variantId),
+    index('top_sets_entry_idx').on(t.planEntryId),
+  ],
 );
 
 export const bodyweights = mysqlTable(
   'bodyweights',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     measuredOn: date('measured_on', { mode: 'string' }).notNull(),
     weightKg: decimal('weight_kg', { precision: 5, scale: 2, mode: 'number' }).notNull(),
     createdAt: createdAt(),
@@ -90,8 +111,12 @@ export const tissuePrescriptions = mysqlTable(
   'tissue_prescriptions',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     week: char('week', { length: 8 }).notNull(),
     items: json('items').$type<unknown[]>().notNull(),
     createdAt: createdAt(),
@@ -103,8 +128,12 @@ export const tissueCheckins = mysqlTable(
   'tissue_checkins',
   {
     id: id(),
-    teamId: ref('team_id').notNull().references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id').notNull().references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: ref('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    athleteId: ref('athlete_id')
+      .notNull()
+      .references(() => athletes.id, { onDelete: 'cascade' }),
     week: char('week', { length: 8 }).notNull(),
     kind: mysqlEnum('kind', ['highRep', 'isometric', 'loadedStretch']).notNull(),
     soreness: tinyint('soreness', { unsigned: true }).notNull(),

@@ -49,7 +49,10 @@ async function insertLibrary(tx: Tx, teamId: number, library: DemoVariant[]): Pr
       notes: v.notes ?? null,
     })),
   );
-  const rows = await tx.select({ id: variants.id, name: variants.name }).from(variants).where(sql`${variants.teamId} = ${teamId}`);
+  const rows = await tx
+    .select({ id: variants.id, name: variants.name })
+    .from(variants)
+    .where(sql`${variants.teamId} = ${teamId}`);
   return new Map(rows.map((r) => [r.name, r.id]));
 }
 
@@ -119,7 +122,13 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
     for (const m of DEMO_MEETS) {
       const [meet] = await tx
         .insert(meets)
-        .values({ teamId, name: m.name, date: saturdayOf(addWeeks(thisWeek, m.inWeeks)), location: m.location, federation: m.federation })
+        .values({
+          teamId,
+          name: m.name,
+          date: saturdayOf(addWeeks(thisWeek, m.inWeeks)),
+          location: m.location,
+          federation: m.federation,
+        })
         .$returningId();
       for (const a of DEMO_ATHLETES.filter((x) => x.meetInWeeks === m.inWeeks)) {
         await tx.insert(meetEntries).values({
@@ -135,7 +144,10 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
     await seedDemoHistory(tx, { teamId, today, athleteIds, variantIds, coachId: staffIds[0] ?? null });
 
     // A second, small team, so that isolation between teams can be seen.
-    const [other] = await tx.insert(teams).values({ name: OTHER_TEAM.name, unit: 'kg', currency: 'EUR' }).$returningId();
+    const [other] = await tx
+      .insert(teams)
+      .values({ name: OTHER_TEAM.name, unit: 'kg', currency: 'EUR' })
+      .$returningId();
     const otherId = other!.id;
     const otherCoach = await insertUser(tx, OTHER_TEAM.headCoach.email, OTHER_TEAM.headCoach.name, passwordHash);
     await tx.insert(memberships).values({ teamId: otherId, userId: otherCoach, role: 'head_coach' });
@@ -147,7 +159,16 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
     });
     await insertLibrary(tx, otherId, OTHER_TEAM_LIBRARY);
     for (const a of OTHER_TEAM.athletes) {
-      await tx.insert(athletes).values({ teamId: otherId, name: a.name, sex: a.sex, division: 'open', equipment: ['box', 'rack pins', 'blocks', 'boards'], ruleOverrides: {} });
+      await tx
+        .insert(athletes)
+        .values({
+          teamId: otherId,
+          name: a.name,
+          sex: a.sex,
+          division: 'open',
+          equipment: ['box', 'rack pins', 'blocks', 'boards'],
+          ruleOverrides: {},
+        });
     }
   });
 }

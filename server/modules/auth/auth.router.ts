@@ -13,14 +13,22 @@ function loginLimiters(ctx: AppContext) {
   const tooMany = () => {
     throw new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.');
   };
-  const common = { windowMs: 15 * 60 * 1000, standardHeaders: 'draft-8' as const, legacyHeaders: false, handler: tooMany };
+  const common = {
+    windowMs: 15 * 60 * 1000,
+    standardHeaders: 'draft-8' as const,
+    legacyHeaders: false,
+    handler: tooMany,
+  };
   return [
     rateLimit({ ...common, limit: ctx.env.LOGIN_LIMIT_PER_IP }),
     rateLimit({
       ...common,
       limit: ctx.env.LOGIN_LIMIT_PER_ACCOUNT,
       // Per account: the typed address, normalised the way sign-in reads it.
-      keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+      keyGenerator: (req) =>
+        `account:${String(req.body?.email ?? '')
+          .trim()
+          .toLowerCase()}`,
     }),
   ];
 }

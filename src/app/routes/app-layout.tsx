@@ -39,7 +39,9 @@ export function AppLayout() {
                     to={l.to}
                     className={({ isActive }) =>
                       `block whitespace-nowrap rounded-md px-3 py-2 font-semibold ${
-                        isActive ? 'bg-ink-700 text-chalk-50 shadow-[inset_0_-3px_0_#c4582f]' : 'text-ink-200 hover:bg-ink-800 hover:text-chalk-50'
+                        isActive
+                          ? 'bg-ink-700 text-chalk-50 shadow-[inset_0_-3px_0_#c4582f]'
+                          : 'text-ink-200 hover:bg-ink-800 hover:text-chalk-50'
                       }`
                     }
                   >
@@ -65,7 +67,11 @@ export function AppLayout() {
             </button>
           </div>
         </div>
-        {navigation.state === 'loading' ? <div className="h-0.5 animate-pulse bg-rust-500" aria-hidden /> : <div className="h-0.5" />}
+        {navigation.state === 'loading' ? (
+          <div className="h-0.5 animate-pulse bg-rust-500" aria-hidden />
+        ) : (
+          <div className="h-0.5" />
+        )}
       </header>
       <main className="mx-auto max-w-screen-2xl px-3 py-4 sm:px-6 sm:py-6">
         <Outlet />

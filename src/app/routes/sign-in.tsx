@@ -40,8 +40,21 @@ export function Component() {
         {signIn.error && !Object.keys(isApiError(signIn.error) ? signIn.error.fields : {}).length ? (
           <Notice tone="error">{signIn.error.message}</Notice>
         ) : null}
-        <TextField label="E-mail" type="email" autoComplete="username" inputMode="email" error={errors.email?.message} {...form.register('email')} />
-        <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register('password')} />
+        <TextField
+          label="E-mail"
+          type="email"
+          autoComplete="username"
+          inputMode="email"
+          error={errors.email?.message}
+          {...form.register('email')}
+        />
+        <TextField
+          label="Password"
+          type="password"
+          autoComplete="current-password"
+          error={errors.password?.message}
+          {...form.register('password')}
+        />
         <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
           {form.formState.isSubmitting ? 'Signing in…' : 'Sign in'}
         </Button>

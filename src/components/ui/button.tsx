@@ -6,7 +6,8 @@ type Size = 'sm' | 'md' | 'lg';
 
 const variants: Record<Variant, string> = {
   primary: 'bg-rust-500 text-chalk-50 hover:bg-rust-600 active:bg-rust-700 disabled:bg-rust-300',
-  secondary: 'border border-ink-600 text-ink-900 bg-chalk-50 hover:bg-chalk-200 disabled:text-ink-400 disabled:border-ink-300',
+  secondary:
+    'border border-ink-600 text-ink-900 bg-chalk-50 hover:bg-chalk-200 disabled:text-ink-400 disabled:border-ink-300',
   ghost: 'text-ink-800 hover:bg-chalk-200 disabled:text-ink-400',
   danger: 'bg-breach-600 text-chalk-50 hover:bg-breach-700 disabled:opacity-60',
 };

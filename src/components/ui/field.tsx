@@ -1,5 +1,11 @@
 // Labelled form fields that show their error under the input and announce it to screen readers.
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+import {
+  useId,
+  type InputHTMLAttributes,
+  type ReactNode,
+  type SelectHTMLAttributes,
+  type TextareaHTMLAttributes,
+} from 'react';
 
 interface FieldShell {
   label: string;
@@ -42,29 +48,60 @@ export function TextField({ label, error, hint, id, ...props }: FieldShell & Inp
   const fid = id ?? auto;
   return (
     <Shell id={fid} label={label} error={error} hint={hint}>
-      <input id={fid} aria-invalid={error ? true : undefined} aria-describedby={describedBy(fid, error, hint)} className={inputClass(error)} {...props} />
+      <input
+        id={fid}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(fid, error, hint)}
+        className={inputClass(error)}
+        {...props}
+      />
     </Shell>
   );
 }
 
-export function SelectField({ label, error, hint, id, children, ...props }: FieldShell & SelectHTMLAttributes<HTMLSelectElement>) {
+export function SelectField({
+  label,
+  error,
+  hint,
+  id,
+  children,
+  ...props
+}: FieldShell & SelectHTMLAttributes<HTMLSelectElement>) {
   const auto = useId();
   const fid = id ?? auto;
   return (
     <Shell id={fid} label={label} error={error} hint={hint}>
-      <select id={fid} aria-invalid={error ? true : undefined} aria-describedby={describedBy(fid, error, hint)} className={inputClass(error)} {...props}>
+      <select
+        id={fid}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(fid, error, hint)}
+        className={inputClass(error)}
+        {...props}
+      >
         {children}
       </select>
     </Shell>
   );
 }
 
-export function TextAreaField({ label, error, hint, id, ...props }: FieldShell & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+export function TextAreaField({
+  label,
+  error,
+  hint,
+  id,
+  ...props
+}: FieldShell & TextareaHTMLAttributes<HTMLTextAreaElement>) {
   const auto = useId();
   const fid = id ?? auto;
   return (
     <Shell id={fid} label={label} error={error} hint={hint}>
-      <textarea id={fid} aria-invalid={error ? true : undefined} aria-describedby={describedBy(fid, error, hint)} className={inputClass(error)} {...props} />
+      <textarea
+        id={fid}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(fid, error, hint)}
+        className={inputClass(error)}
+        {...props}
+      />
     </Shell>
   );
 }

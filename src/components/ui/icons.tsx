@@ -1,7 +1,15 @@
 // Rackturn's own small line icons; state icons always come with words beside them.
 import type { SVGProps } from 'react';
 
-const base = { width: 18, height: 18, viewBox: '0 0 20 20', fill: 'none', stroke: 'currentColor', strokeWidth: 2, 'aria-hidden': true } as const;
+const base = {
+  width: 18,
+  height: 18,
+  viewBox: '0 0 20 20',
+  fill: 'none',
+  stroke: 'currentColor',
+  strokeWidth: 2,
+  'aria-hidden': true,
+} as const;
 
 export const CleanIcon = (p: SVGProps<SVGSVGElement>) => (
   <svg {...base} {...p}>

@@ -17,17 +17,28 @@ export function PageHeader({ title, subtitle, actions }: { title: string; subtit
 /** Shown wherever training load is set or shown. */
 export function TrainingCaution({ className = '' }: { className?: string }) {
   return (
-    <aside aria-label="Training caution" className={`flex gap-2 rounded-md border border-caution-600/40 bg-caution-100 p-3 text-sm text-ink-800 ${className}`}>
+    <aside
+      aria-label="Training caution"
+      className={`flex gap-2 rounded-md border border-caution-600/40 bg-caution-100 p-3 text-sm text-ink-800 ${className}`}
+    >
       <WarningIcon className="mt-0.5 shrink-0 text-caution-700" />
       <p>
-        Stop the set on sharp or unusual pain. For an injury, see a licensed clinician; Rackturn plans training and is not
-        medical advice. Follow the rules of your federation and your gym.
+        Stop the set on sharp or unusual pain. For an injury, see a licensed clinician; Rackturn plans training and is
+        not medical advice. Follow the rules of your federation and your gym.
       </p>
     </aside>
   );
 }
 
-export function Notice({ tone = 'info', children, title }: { tone?: 'info' | 'error' | 'success'; children: ReactNode; title?: string }) {
+export function Notice({
+  tone = 'info',
+  children,
+  title,
+}: {
+  tone?: 'info' | 'error' | 'success';
+  children: ReactNode;
+  title?: string;
+}) {
   const tones = {
     info: 'border-ink-300 bg-chalk-50 text-ink-800',
     error: 'border-breach-600/50 bg-breach-100 text-breach-700',

@@ -22,7 +22,16 @@ export async function openBrowser(opts: { width?: number; height?: number } = {}
     executablePath: '/usr/bin/chromium',
     headless: true,
     viewport: { width: opts.width ?? 1400, height: opts.height ?? 900 },
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
   const problems: string[] = [];
@@ -42,7 +51,12 @@ export async function openBrowser(opts: { width?: number; height?: number } = {}
   };
 }
 
-export async function signInAs(b: Browser, email: string, password = DEMO_PASSWORD, page: Page = b.page): Promise<void> {
+export async function signInAs(
+  b: Browser,
+  email: string,
+  password = DEMO_PASSWORD,
+  page: Page = b.page,
+): Promise<void> {
   await page.goto(`${b.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);

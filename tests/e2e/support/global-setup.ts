@@ -17,11 +17,15 @@ let server: ChildProcess | null = null;
 
 export default async function setup(project: TestProject) {
   const databaseUrl = await recreateDatabase('rackturn_e2e');
-  const dist = join(ROOT, '.tmp', 'e2e-dist');
-  const build = spawnSync(join(ROOT, 'node_modules/.bin/vite'), ['build', '--outDir', dist, '--emptyOutDir', '--logLevel', 'warn'], {
-    cwd: ROOT,
-    stdio: 'inherit',
-  });
+  const dist = join(ROOT, '.tmp', `e2e-dist-${process.env.TEST_INSTANCE ?? 'test'}`);
+  const build = spawnSync(
+    join(ROOT, 'node_modules/.bin/vite'),
+    ['build', '--outDir', dist, '--emptyOutDir', '--logLevel', 'warn'],
+    {
+      cwd: ROOT,
+      stdio: 'inherit',
+    },
+  );
   if (build.status !== 0) throw new Error('vite build failed');
 
   const port = Number(process.env.TEST_APP_PORT ?? 3100);

@@ -424,9 +424,7 @@ describe('bad input', () => {
 
 // ---- properties over random histories ------------------------------------------------------------------
 
-const kindArb = fc.constantFrom(...TISSUE_KINDS);
 const jointArb = fc.constantFrom(...JOINTS);
-const secondsArb = fc.integer({ min: 6, max: 10 }).map((h) => h / 2); // 3 to 5 s in half seconds
 
 function randomItem(week: string, kind: TissueKind, joint: Joint, n: number): TissuePrescription {
   if (kind === 'highRep') return highRep(week, joint, 60 + 20 * (n % 3), BAND_LEVELS[n % 3]!);

@@ -1,0 +1,68 @@
+// Lint rules, including the import boundaries: the client never imports the server, the server never
+// imports the client, and shared/ stays pure (no imports outside shared/, no Node-only modules).
+import js from '@eslint/js';
+import { defineConfig } from 'eslint/config';
+import tseslint from 'typescript-eslint';
+import reactHooks from 'eslint-plugin-react-hooks';
+import globals from 'globals';
+import { builtinModules } from 'node:module';
+
+const nodeOnly = [...builtinModules, ...builtinModules.map((m) => `node:${m}`)];
+
+export default defineConfig(
+  { ignores: ['dist/**', '.data/**', '.tmp/**', 'node_modules/**', 'drizzle/**', 'coverage/**'] },
+  js.configs.recommended,
+  tseslint.configs.recommended,
+  {
+    rules: {
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none' },
+      ],
+      '@typescript-eslint/no-empty-object-type': 'off',
+    },
+  },
+  {
+    files: ['src/**/*.{ts,tsx}'],
+    plugins: { 'react-hooks': reactHooks },
+    languageOptions: { globals: globals.browser },
+    rules: {
+      ...reactHooks.configs.recommended.rules,
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['**/server/**', '**/server'], message: 'The client never imports server code.' }] },
+      ],
+    },
+  },
+  {
+    files: ['server/**/*.ts', 'scripts/**/*.{js,mjs,ts}', 'tests/**/*.{ts,tsx}', '*.{js,ts}'],
+    languageOptions: { globals: globals.node },
+  },
+  {
+    files: ['server/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['**/src/**', '**/src'], message: 'The server never imports client code.' }] },
+      ],
+    },
+  },
+  {
+    files: ['shared/**/*.ts'],
+    languageOptions: { globals: {} },
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: nodeOnly.map((name) => ({ name, message: 'shared/ runs in the browser too: no Node-only modules.' })),
+          patterns: [
+            {
+              group: ['**/server/**', '**/src/**', '../../*', '../../**'],
+              message: 'shared/ imports only from shared/.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+);
