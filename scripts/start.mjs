@@ -22,7 +22,10 @@ const dbPort = Number(process.env.DB_PORT ?? 3307);
 const t0 = Date.now();
 
 ensureNodeModules();
-const db = await startMariaDb({ name: 'dev', port: dbPort, databases: ['rackturn'] });
+// RACKTURN_INSTANCE keeps a second checkout's or developer's data, ports and build apart.
+const instance = process.env.RACKTURN_INSTANCE ?? 'dev';
+const clientOut = instance === 'dev' ? join(ROOT, 'dist') : join(ROOT, '.tmp', `dist-${instance}`);
+const db = await startMariaDb({ name: instance, port: dbPort, databases: ['rackturn'] });
 log(`MariaDB ${db.startedHere ? 'started' : 'already running'} on 127.0.0.1:${dbPort}`);
 
 const ports = standinPorts(Number(process.env.STANDIN_PORT_BASE ?? 4400));
@@ -37,7 +40,7 @@ const env = {
   APP_ORIGIN: process.env.APP_ORIGIN ?? `http://127.0.0.1:${port}`,
   DB_MIGRATE: '1',
   SEED_DEMO: process.env.NODE_ENV === 'production' ? '0' : '1',
-  CLIENT_DIST: dev ? '' : join(ROOT, 'dist'),
+  CLIENT_DIST: dev ? '' : clientOut,
   EXTRA_ORIGINS: dev ? `http://127.0.0.1:5173,http://localhost:5173` : '',
 };
 
@@ -108,12 +111,12 @@ function buildClientIfChanged() {
   ])
     walk(join(ROOT, p));
   const digest = hash.digest('hex');
-  const stamp = join(ROOT, 'dist', '.build-stamp');
+  const stamp = join(clientOut, '.build-stamp');
   if (existsSync(stamp) && readFileSync(stamp, 'utf8') === digest) {
     log('client build is up to date');
     return;
   }
   log('building the client (vite build)…');
-  runSync(join(BIN, 'vite'), ['build', '--logLevel', 'warn']);
+  runSync(join(BIN, 'vite'), ['build', '--outDir', clientOut, '--emptyOutDir', '--logLevel', 'warn']);
   writeFileSync(stamp, digest);
 }

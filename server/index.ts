@@ -6,6 +6,7 @@ import { runMigrations } from './db/migrate';
 import { createLogger } from './lib/logger';
 import { SessionKeys } from './lib/session';
 import type { AppContext } from './context';
+import { createServices, stopServices } from './services';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL);
@@ -21,7 +22,8 @@ if (env.SEED_DEMO) {
   logger.info(seeded ? 'demo data seeded' : 'demo data already present');
 }
 
-const ctx: AppContext = { env, database, logger, sessions: new SessionKeys(env.SESSION_SECRET) };
+const services = createServices(env, logger);
+const ctx: AppContext = { env, database, logger, sessions: new SessionKeys(env.SESSION_SECRET), services };
 const app = createApp(ctx);
 const server = app.listen(env.PORT, env.HOST, () => {
   logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'listening');
@@ -35,6 +37,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   setTimeout(() => server.closeAllConnections(), 5_000).unref();
+  await stopServices(services).catch(() => undefined);
   await database.close().catch(() => undefined);
   process.exit(0);
 }

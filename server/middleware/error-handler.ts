@@ -47,11 +47,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (err instanceof ZodError) {
-      res
-        .status(400)
-        .json({
-          error: { code: 'validation_failed', message: 'Some fields need attention.', fields: fieldErrors(err) },
-        });
+      res.status(400).json({
+        error: { code: 'validation_failed', message: 'Some fields need attention.', fields: fieldErrors(err) },
+      });
       return;
     }
     const e = (err ?? {}) as HttpishError;
@@ -71,11 +69,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (isDatabaseDown(err)) {
-      res
-        .status(503)
-        .json({
-          error: { code: 'db_unavailable', message: 'The database is not reachable right now. Try again in a moment.' },
-        });
+      res.status(503).json({
+        error: { code: 'db_unavailable', message: 'The database is not reachable right now. Try again in a moment.' },
+      });
       return;
     }
     const status = e.status ?? e.statusCode;

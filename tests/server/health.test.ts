@@ -8,6 +8,7 @@ import { createLogger } from '../../server/lib/logger';
 import { SessionKeys } from '../../server/lib/session';
 import { startMariaDb, type MariaDbInstance } from '../../scripts/lib.mjs';
 import { testEnv } from '../support/app';
+import { createServices } from '../../server/services';
 
 let instance: MariaDbInstance;
 let database: Database;
@@ -20,7 +21,14 @@ beforeAll(async () => {
   const env = testEnv({ DATABASE_URL: instance.urlFor('rackturn_outage') });
   database = createDatabase(env.DATABASE_URL, { connectionLimit: 3 });
   await runMigrations(database.db);
-  app = createApp({ env, database, logger: createLogger('silent'), sessions: new SessionKeys(env.SESSION_SECRET) });
+  const logger = createLogger('silent');
+  app = createApp({
+    env,
+    database,
+    logger,
+    sessions: new SessionKeys(env.SESSION_SECRET),
+    services: createServices(env, logger),
+  });
 }, 60_000);
 
 afterAll(async () => {

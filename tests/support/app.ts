@@ -8,6 +8,7 @@ import type { AppContext } from '../../server/context';
 import { createDatabase } from '../../server/db/client';
 import { createLogger } from '../../server/lib/logger';
 import { SessionKeys } from '../../server/lib/session';
+import { createServices, stopServices } from '../../server/services';
 
 export interface TestApp {
   ctx: AppContext;
@@ -37,14 +38,14 @@ export function testEnv(overrides: Record<string, string> = {}) {
 export function useTestApp(envOverrides: Record<string, string> = {}): TestApp {
   const env = testEnv(envOverrides);
   const database = createDatabase(env.DATABASE_URL, { connectionLimit: 5 });
-  const ctx: AppContext = {
-    env,
-    database,
-    logger: createLogger('silent'),
-    sessions: new SessionKeys(env.SESSION_SECRET),
-  };
+  const logger = createLogger('silent');
+  const services = createServices(env, logger);
+  const ctx: AppContext = { env, database, logger, sessions: new SessionKeys(env.SESSION_SECRET), services };
   const app = createApp(ctx);
-  afterAll(() => database.close());
+  afterAll(async () => {
+    await stopServices(services);
+    await database.close();
+  });
   return {
     ctx,
     app,

@@ -64,14 +64,12 @@ export async function createVariant(db: Db, teamId: number, overrides: VariantOv
 export async function createTeam(db: Db, name = `Team ${uniq()}`) {
   const [t] = await db.insert(teams).values({ name }).$returningId();
   const teamId = t!.id;
-  await db
-    .insert(teamRules)
-    .values({
-      teamId,
-      rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>,
-      equipment: ['box', 'bands', 'rack pins', 'boards'],
-      seed: 'test-seed',
-    });
+  await db.insert(teamRules).values({
+    teamId,
+    rules: DEFAULT_TEAM_RULES as unknown as Record<string, unknown>,
+    equipment: ['box', 'bands', 'rack pins', 'boards'],
+    seed: 'test-seed',
+  });
   const headCoach = await createUser(db, teamId, 'head_coach');
   const coach = await createUser(db, teamId, 'coach');
   const athleteUser = await createUser(db, teamId, 'athlete');

@@ -159,16 +159,14 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
     });
     await insertLibrary(tx, otherId, OTHER_TEAM_LIBRARY);
     for (const a of OTHER_TEAM.athletes) {
-      await tx
-        .insert(athletes)
-        .values({
-          teamId: otherId,
-          name: a.name,
-          sex: a.sex,
-          division: 'open',
-          equipment: ['box', 'rack pins', 'blocks', 'boards'],
-          ruleOverrides: {},
-        });
+      await tx.insert(athletes).values({
+        teamId: otherId,
+        name: a.name,
+        sex: a.sex,
+        division: 'open',
+        equipment: ['box', 'rack pins', 'blocks', 'boards'],
+        ruleOverrides: {},
+      });
     }
   });
 }
