@@ -3,7 +3,7 @@
 import type { Env } from '../config/env';
 import type { Logger } from '../lib/logger';
 
-// eslint-disable-next-line @typescript-eslint/no-empty-object-type -- each service adds its adapter here
+// Each service adds its adapter here.
 export interface Services {}
 
 export function createServices(_env: Env, _logger: Logger): Services {
