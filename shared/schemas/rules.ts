@@ -1,5 +1,6 @@
 // Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
 import { z } from 'zod';
+import { DEFAULT_TISSUE_RULES } from '../engine/tissue';
 
 export const liftSchema = z.enum(['squat', 'bench', 'deadlift']);
 export const jointSchema = z.enum(['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee']);
@@ -22,6 +23,16 @@ export const taperStepSchema = z.object({
 
 export const jointBudgetSchema = z.partialRecord(jointSchema, z.number().min(0).max(60));
 
+/** The connective-tissue settings a coach edits; the rest of the tissue module's rules keep their defaults. */
+export const tissueSettingsSchema = z.object({
+  maxConsecutiveWeeks: z.number().int().min(1, 'At least 1 week').max(12),
+  pullIsometricWeeksOut: z.number().int().min(-1).max(16),
+  pullStretchWeeksOut: z.number().int().min(-1).max(16),
+  sorenessThreshold: z.number().int().min(1).max(10),
+  focusJoints: z.array(jointSchema).max(6),
+});
+export type TissueSettings = z.infer<typeof tissueSettingsSchema>;
+
 export const teamRulesSchema = z
   .object({
     slots: z.array(slotSchema).min(1, 'Keep at least one max-effort slot').max(4),
@@ -32,6 +43,7 @@ export const teamRulesSchema = z
     taper: z.array(taperStepSchema).max(8),
     /** Bodyweight gained over the last 7 days before a meet that earns a caution, in kg (common practice). */
     bodyweightGainCautionKg: z.number().min(0.1).max(10),
+    tissue: tissueSettingsSchema,
   })
   .superRefine((r, ctx) => {
     const ids = new Set<string>();
@@ -62,4 +74,20 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
     { weeksOut: 1, maxRisk: 1, minSpecificity: 0.8 },
   ],
   bodyweightGainCautionKg: 2,
+  tissue: {
+    maxConsecutiveWeeks: DEFAULT_TISSUE_RULES.maxConsecutiveWeeks,
+    pullIsometricWeeksOut: DEFAULT_TISSUE_RULES.pullIsometricWeeksOut,
+    pullStretchWeeksOut: DEFAULT_TISSUE_RULES.pullStretchWeeksOut,
+    sorenessThreshold: DEFAULT_TISSUE_RULES.sorenessThreshold,
+    focusJoints: ['elbow', 'knee', 'shoulder'],
+  },
 };
+
+/**
+ * Rules stored before a field existed are read with that field's default, so old rows keep working.
+ */
+export function readTeamRules(stored: unknown): TeamRules {
+  const merged = { ...DEFAULT_TEAM_RULES, ...(typeof stored === 'object' && stored ? stored : {}) };
+  const parsed = teamRulesSchema.safeParse(merged);
+  return parsed.success ? parsed.data : DEFAULT_TEAM_RULES;
+}
