@@ -1,6 +1,7 @@
 // Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
 import { z } from 'zod';
 import { DEFAULT_TISSUE_RULES } from '../engine/tissue';
+import type { Rules as EngineRules, SlotDef } from '../engine/types';
 
 export const liftSchema = z.enum(['squat', 'bench', 'deadlift']);
 export const jointSchema = z.enum(['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee']);
@@ -90,4 +91,40 @@ export function readTeamRules(stored: unknown): TeamRules {
   const merged = { ...DEFAULT_TEAM_RULES, ...(typeof stored === 'object' && stored ? stored : {}) };
   const parsed = teamRulesSchema.safeParse(merged);
   return parsed.success ? parsed.data : DEFAULT_TEAM_RULES;
+}
+
+/** What a coach may change for one athlete: the rotation windows and joint budgets. */
+export const athleteRuleOverridesSchema = z
+  .object({
+    repeatWindowWeeks: z.number().int().min(1).max(26).optional(),
+    familyWindowWeeks: z.number().int().min(1).max(26).optional(),
+    jointWindowWeeks: z.number().int().min(1).max(12).optional(),
+    jointBudget: jointBudgetSchema.optional(),
+  })
+  .strict();
+export type AthleteRuleOverrides = z.infer<typeof athleteRuleOverridesSchema>;
+
+/** Reads a stored overrides object, dropping anything that no longer validates. */
+export function readRuleOverrides(stored: unknown): AthleteRuleOverrides {
+  const parsed = athleteRuleOverridesSchema.safeParse(stored ?? {});
+  return parsed.success ? parsed.data : {};
+}
+
+/**
+ * The engine's view of the rules for one athlete: team rules with the athlete's overrides on top
+ * (joint budgets merge per joint), and the team's plan seed.
+ */
+export function toEngineRules(team: TeamRules, seed: string, overrides: AthleteRuleOverrides = {}): EngineRules {
+  return {
+    repeatWindowWeeks: overrides.repeatWindowWeeks ?? team.repeatWindowWeeks,
+    familyWindowWeeks: overrides.familyWindowWeeks ?? team.familyWindowWeeks,
+    jointWindowWeeks: overrides.jointWindowWeeks ?? team.jointWindowWeeks,
+    jointBudget: { ...team.jointBudget, ...(overrides.jointBudget ?? {}) },
+    taper: team.taper.map((t) => ({ ...t })),
+    seed,
+  };
+}
+
+export function toEngineSlots(team: TeamRules): SlotDef[] {
+  return team.slots.map((s) => ({ id: s.id, lifts: [...s.lifts] }));
 }
