@@ -57,7 +57,9 @@ export const restrictions = mysqlTable(
     toDate: date('to_date', { mode: 'string' }),
     note: varchar('note', { length: 500 }),
     createdBy: ref('created_by').references(() => users.id, { onDelete: 'set null' }),
+    version: version(),
     createdAt: createdAt(),
+    updatedAt: updatedAt(),
   },
   (t) => [index('restrictions_athlete_idx').on(t.athleteId)],
 );
