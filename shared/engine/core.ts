@@ -4,6 +4,7 @@
 import {
   JOINTS,
   type AthleteInput,
+  type Emphasis,
   type Lift,
   type PlanEntry,
   type PlanRequest,
@@ -19,6 +20,7 @@ import * as W from './words';
 export const EPS = 1e-9;
 export const NJ = JOINTS.length;
 const LIFT_BIT: Record<Lift, number> = { squat: 1, bench: 2, deadlift: 4 };
+const EMPHASES: readonly Emphasis[] = ['bottom', 'midRange', 'lockout'];
 
 const numOf = new Map<string, number>();
 const strOf = new Map<number, string>();
@@ -55,6 +57,16 @@ export interface Ctx {
   fam: Int32Array;
   famNames: string[];
   liftBit: Uint8Array;
+  risk: Uint8Array;
+  spec: Float64Array;
+  /** Emphasis and bar as small numbers for the variety goal (−1 when not given). */
+  emph: Int8Array;
+  bar: Int32Array;
+  /** Equipment as bits (the first 30 kinds); a variant needing a kind past those has mask −1. */
+  equipBit: Map<string, number>;
+  equipMask: Int32Array;
+  /** Per slot, the variants whose lift fits it. */
+  bySlot: Int32Array[];
   stress: Float64Array; // variant × joint, negatives read as 0
   /** Per variant, its stresses above 0 on joints that have a budget: sJ/sV[sOff[v] .. sOff[v+1]). */
   sOff: Int32Array;
@@ -86,6 +98,13 @@ export function buildCtx(req: PlanRequest): Ctx {
   const famNames: string[] = [];
   const fam = new Int32Array(V);
   const liftBit = new Uint8Array(V);
+  const risk = new Uint8Array(V);
+  const spec = new Float64Array(V);
+  const emph = new Int8Array(V);
+  const bar = new Int32Array(V);
+  const bars = new Map<string, number>();
+  const equipBit = new Map<string, number>();
+  const equipMask = new Int32Array(V);
   const stress = new Float64Array(V * NJ);
   const budget = new Float64Array(NJ).fill(NaN);
   const budgeted: number[] = [];
@@ -108,6 +127,16 @@ export function buildCtx(req: PlanRequest): Ctx {
     }
     fam[i] = f;
     liftBit[i] = LIFT_BIT[v.lift] ?? 0;
+    risk[i] = v.risk;
+    spec[i] = v.specificity;
+    emph[i] = v.emphasis ? EMPHASES.indexOf(v.emphasis) : -1;
+    if (v.bar !== undefined && !bars.has(v.bar)) bars.set(v.bar, bars.size);
+    bar[i] = v.bar === undefined ? -1 : bars.get(v.bar)!;
+    for (const e of v.equipment) {
+      if (!equipBit.has(e) && equipBit.size < 30) equipBit.set(e, 1 << equipBit.size);
+      const bit = equipBit.get(e);
+      equipMask[i] = bit === undefined || equipMask[i]! < 0 ? -1 : equipMask[i]! | bit;
+    }
     JOINTS.forEach((j, k) => {
       const s = Math.max(0, Number(v.stress[j]) || 0);
       stress[i * NJ + k] = s;
@@ -127,6 +156,12 @@ export function buildCtx(req: PlanRequest): Ctx {
     slots.set(s.id, { idx: slotList.length, mask, def: s });
     slotList.push(s);
   }
+  const bySlot = slotList.map((_, q) => {
+    const mask = [...slots.values()][q]!.mask;
+    const list: number[] = [];
+    for (let v = 0; v < V; v++) if (liftBit[v]! & mask) list.push(v);
+    return Int32Array.from(list);
+  });
   const athletes = new Map<string, AthleteInput>();
   for (const a of req.athletes) if (!athletes.has(a.id)) athletes.set(a.id, a);
   const win = (n: number) => (Number.isFinite(n) ? Math.max(0, Math.floor(n)) : 0);
@@ -137,6 +172,13 @@ export function buildCtx(req: PlanRequest): Ctx {
     fam,
     famNames,
     liftBit,
+    risk,
+    spec,
+    emph,
+    bar,
+    equipBit,
+    equipMask,
+    bySlot,
     stress,
     sOff,
     sJ: Uint8Array.from(sJ),
@@ -174,15 +216,16 @@ export function buildAth(ctx: Ctx, input: AthleteInput): Ath {
   }
   const V = ctx.variants.length;
   const block = new Uint8Array(V);
+  let has = 0;
+  for (const e of input.equipment) has |= ctx.equipBit.get(e) ?? 0;
+  const restricted: number[] = [];
+  for (let k = 0; k < NJ; k++) if (limit[k]! < Infinity) restricted.push(k);
   for (let v = 0; v < V; v++) {
+    const need = ctx.equipMask[v]!;
     let b = 0;
-    for (const e of ctx.variants[v]!.equipment) {
-      if (!equipment.has(e)) {
-        b = 1;
-        break;
-      }
-    }
-    for (let k = 0; k < NJ; k++) {
+    if (need < 0) b = ctx.variants[v]!.equipment.every((e) => equipment.has(e)) ? 0 : 1;
+    else if (need & ~has) b = 1;
+    for (const k of restricted) {
       if (ctx.stress[v * NJ + k]! > limit[k]! + EPS) {
         b |= 2;
         break;
@@ -219,9 +262,7 @@ export function taperAt(ctx: Ctx, ath: Ath, w: number): Taper | null {
 /** Cheap test of the rules that do not depend on other entries. */
 export function staticOk(ctx: Ctx, ath: Ath, mask: number, v: number, taper: Taper | null): boolean {
   if ((ctx.liftBit[v]! & mask) === 0 || ath.block[v] !== 0) return false;
-  if (!taper) return true;
-  const x = ctx.variants[v]!;
-  return x.risk <= taper.maxRisk && x.specificity >= taper.minSpec - EPS;
+  return !taper || (ctx.risk[v]! <= taper.maxRisk && ctx.spec[v]! >= taper.minSpec - EPS);
 }
 
 const CELL_KEY = 1024;
@@ -232,7 +273,7 @@ const CELL_KEY = 1024;
  */
 export class Board {
   lo: number;
-  load: Float64Array[];
+  load: number[][];
   vUses: number[][] = [];
   fUses: number[][] = [];
   cells = new Map<number, number>();
@@ -244,7 +285,7 @@ export class Board {
   ) {
     this.lo = lo - ctx.J - 1;
     const size = Math.max(0, hi - lo) + 2 * ctx.J + 3;
-    this.load = JOINTS.map(() => new Float64Array(size));
+    this.load = JOINTS.map(() => new Array<number>(size).fill(0));
   }
 
   add(w: number, v: number, slot: number, sign: 1 | -1): void {
@@ -393,14 +434,18 @@ export function cellViolations(
     JOINTS.forEach((j, k) => {
       const s = ctx.stress[v * NJ + k]!;
       if (s > ath.limit[k]! + EPS) {
-        push('restriction', `${x.name} puts ${jointName(k)} stress ${W.num(s)} over this athlete's limit of ${W.num(ath.limit[k]!)}`);
+        push(
+          'restriction',
+          `${x.name} puts ${jointName(k)} stress ${W.num(s)} over this athlete's limit of ${W.num(ath.limit[k]!)}`,
+        );
       }
     });
   }
   const taper = taperAt(ctx, ath, w);
   if (taper) {
     const when = W.meetDistance(taper.d);
-    if (x.risk > taper.maxRisk) push('taperRisk', `${x.name} has risk ${x.risk}, above the limit of ${taper.maxRisk} ${when}`);
+    if (x.risk > taper.maxRisk)
+      push('taperRisk', `${x.name} has risk ${x.risk}, above the limit of ${taper.maxRisk} ${when}`);
     if (x.specificity < taper.minSpec - EPS) {
       push(
         'taperSpecificity',

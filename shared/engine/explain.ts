@@ -1,7 +1,20 @@
 // Live checks for the coach's board while dragging: what a drop would break, and softer warnings,
 // from indexes built once per request so each target cell costs microseconds.
 
-import { Board, addAll, buildAth, cellViolations, ctxFor, entriesOf, nearest, rangeOf, wn, ws, type Ath, type Ctx } from './core';
+import {
+  Board,
+  addAll,
+  buildAth,
+  cellViolations,
+  ctxFor,
+  entriesOf,
+  nearest,
+  rangeOf,
+  wn,
+  ws,
+  type Ath,
+  type Ctx,
+} from './core';
 import { JOINTS, type PlanEntry, type PlanRequest, type Violation } from './types';
 import * as W from './words';
 
@@ -111,7 +124,9 @@ function softWarnings(ctx: Ctx, board: Board, w: number, slotId: string, v: numb
     const budget = ctx.budget[k]!;
     if (budget > 0 && total <= budget + 1e-9 && total >= NEAR_BUDGET * budget - 1e-9) {
       const span = W.span(ws(b.start), ws(b.start + ctx.J - 1));
-      out.push(`${W.jointLoad(JOINTS[k]!)} would reach ${W.num(total)} of ${W.num(budget)} (${W.pct(total / budget)}) in ${span}`);
+      out.push(
+        `${W.jointLoad(JOINTS[k]!)} would reach ${W.num(total)} of ${W.num(budget)} (${W.pct(total / budget)}) in ${span}`,
+      );
     }
   }
   if (ctx.R > 1) {
@@ -144,7 +159,16 @@ export function explainCandidate(
   slotId: string,
   variantId: string,
 ): Violation[] {
-  const key = [req.planned, req.planned?.length, req.athletes, req.athletes.length, req.variants, req.variants.length, req.rules, req.slots];
+  const key = [
+    req.planned,
+    req.planned?.length,
+    req.athletes,
+    req.athletes.length,
+    req.variants,
+    req.variants.length,
+    req.rules,
+    req.slots,
+  ];
   let hit = prepared.get(req);
   if (!hit || hit.key.some((k, i) => k !== key[i])) {
     hit = { key, checks: prepareCandidateChecks(req) };

@@ -4,6 +4,12 @@ export * from './types';
 export * from './weeks';
 export { generatePlan } from './plan';
 export { checkPlan } from './check';
-export { explainCandidate, prepareCandidateChecks, NEAR_BUDGET, type CandidateChecks, type CandidateRating } from './explain';
+export {
+  explainCandidate,
+  prepareCandidateChecks,
+  NEAR_BUDGET,
+  type CandidateChecks,
+  type CandidateRating,
+} from './explain';
 export { jointLoadSeries, peakLoadRatio, type JointLoadPoint } from './load';
 export { jointName, jointLoad as jointLoadLabel, emphasisName } from './words';

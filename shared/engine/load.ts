@@ -26,7 +26,12 @@ function boardOf(ctx: Ctx, athleteId: string, weekNums: number[], entries: PlanE
  * For each week and each joint with a budget: the summed stress of the span of jointWindowWeeks
  * ending that week, from the athlete's history plus the given entries (not req.planned).
  */
-export function jointLoadSeries(req: PlanRequest, athleteId: string, weeks: string[], entries: PlanEntry[]): JointLoadPoint[] {
+export function jointLoadSeries(
+  req: PlanRequest,
+  athleteId: string,
+  weeks: string[],
+  entries: PlanEntry[],
+): JointLoadPoint[] {
   const ctx = ctxFor(req);
   const nums = weeks.map(wn);
   const board = boardOf(ctx, athleteId, nums, entries);
@@ -45,7 +50,12 @@ export function jointLoadSeries(req: PlanRequest, athleteId: string, weeks: stri
  * The highest ratio of summed stress to budget over every joint with a budget and every span of
  * jointWindowWeeks that overlaps `weeks` (default req.weeks), counting history and the given entries.
  */
-export function peakLoadRatio(req: PlanRequest, athleteId: string, entries: PlanEntry[], weeks: string[] = req.weeks): number {
+export function peakLoadRatio(
+  req: PlanRequest,
+  athleteId: string,
+  entries: PlanEntry[],
+  weeks: string[] = req.weeks,
+): number {
   const ctx = ctxFor(req);
   if (weeks.length === 0) return 0;
   const nums = weeks.map(wn);

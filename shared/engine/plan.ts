@@ -4,16 +4,8 @@
 import { Board, addAll, buildAth, cellViolations, ctxFor, entriesOf, rangeOf, wn, type Ath, type Ctx } from './core';
 import { keptReasons, pickReasons, pinnedReasons, swapReason } from './reasons';
 import { athleteRng } from './rng';
-import { Search, buildCells, solve, type Pick } from './search';
+import { Search, solve, type OpenCell, type Pick } from './search';
 import { RULE_IDS, type AthleteInput, type PlanEntry, type PlanRequest, type PlanResult, type RuleId } from './types';
-
-interface Open {
-  at: number;
-  w: number;
-  week: string;
-  slot: number;
-  slotId: string;
-}
 
 interface Dropped {
   variantId: string;
@@ -88,14 +80,15 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
     }
   });
 
-  const open: Open[] = [];
+  const open: OpenCell[] = [];
   for (let i = 0; i < weeks.length * S; i++) {
     if (kind[i] !== 'open') continue;
     const wi = Math.floor(i / S);
     open.push({ at: i, w: nums[wi]!, week: weeks[wi]!, slot: i % S, slotId: slots[i % S]!.id });
   }
-  const cells = buildCells(ctx, ath, board, open, athleteRng(ctx.req.rules.seed, input.id));
-  const search = new Search(ctx, ath, board, cells, Math.min(...nums), Math.max(...nums));
+  const rng = athleteRng(ctx.req.rules.seed, input.id);
+  const search = new Search(ctx, ath, board, open, Math.min(...nums), Math.max(...nums), rng);
+  const cells = search.cells;
   const sol = cells.length ? solve(search) : null;
 
   // Cell index (weeks × slots) → the variant chosen there and how it won.
@@ -103,7 +96,7 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
   cells.forEach((cell, q) => {
     const v = sol ? sol.assign[q]! : -1;
     if (v < 0) return;
-    board.add(cell.w, v, cell.slot, 1);
+    search.commit(cell, v);
     chosen.set(cell.at, { v, pick: sol!.picks[q] });
   });
   // A cell the bounded search left empty is filled afterwards if anything still fits there.
@@ -111,7 +104,7 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
     if (chosen.has(cell.at)) continue;
     const best = search.bestNow(cell);
     if (!best) continue;
-    board.add(cell.w, best.v, cell.slot, 1);
+    search.commit(cell, best.v);
     chosen.set(cell.at, best);
   }
   emit(ctx, ath, board, weeks, nums, atCell, kind, dropped, chosen, result);
@@ -142,7 +135,14 @@ function emit(
       if (v !== undefined) board.add(w, v, slot, -1);
       const found = cellViolations(ctx, ath, board, week, slotId, e.variantId);
       if (v !== undefined) board.add(w, v, slot, 1);
-      result.entries.push({ athleteId, week, slotId, variantId: e.variantId, pinned: true, reasons: pinnedReasons(found) });
+      result.entries.push({
+        athleteId,
+        week,
+        slotId,
+        variantId: e.variantId,
+        pinned: true,
+        reasons: pinnedReasons(found),
+      });
       continue;
     }
     if (kind[i] === 'kept' && e) {

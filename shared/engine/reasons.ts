@@ -27,11 +27,23 @@ export function loadReason(ctx: Ctx, board: Board, w: number, v: number): string
 }
 
 /** Reasons for a variant the engine picked, read off the finished board. */
-export function pickReasons(ctx: Ctx, ath: Ath, board: Board, w: number, slot: number, v: number, pick?: Pick): string[] {
+export function pickReasons(
+  ctx: Ctx,
+  ath: Ath,
+  board: Board,
+  w: number,
+  slot: number,
+  v: number,
+  pick?: Pick,
+): string[] {
   const x = ctx.variants[v]!;
   const out: string[] = [];
   const famGap = gapOf(lastBefore(board.fUses[ctx.fam[v]!], w), w);
-  out.push(pick?.leastFam ? `least recently used ${x.family} family (${ago(famGap)})` : `${x.family} family last used ${ago(famGap)}`);
+  out.push(
+    pick?.leastFam
+      ? `least recently used ${x.family} family (${ago(famGap)})`
+      : `${x.family} family last used ${ago(famGap)}`,
+  );
   const varGap = gapOf(lastBefore(board.vUses[v], w), w);
   out.push(varGap === undefined ? `${x.name} not done before` : `${x.name} last done ${ago(varGap)}`);
   const load = loadReason(ctx, board, w, v);

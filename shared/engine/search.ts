@@ -1,23 +1,38 @@
 // The per-athlete planner: depth-first search over the open cells in week order, with forward checking
 // and a joint-load lower bound, first for a complete rule-clean plan, then for lower peak load ratios.
 
-import { EPS, NJ, type Ath, type Board, type Ctx, lastBefore, staticOk, taperAt } from './core';
-import type { Emphasis } from './types';
+import { EPS, NJ, type Ath, type Board, type Ctx, lastBefore, taperAt } from './core';
 
 /** Recency counts up to half a year; older or never used rank alike (then noise and variety decide). */
 const GAP_CAP = 26;
 /** Effort bounds, in candidate evaluations, per athlete (not per request, so athletes stay independent). */
-export const EFFORT = { complete: 300_000, tighten: 40_000, partial: 150_000, total: 600_000, tightenTries: 8 };
+export const EFFORT = {
+  complete: 300_000,
+  partial: 150_000,
+  /** Each tightening run: this many dives' worth of effort, within [tightenMin, tighten]. */
+  tightenPerDive: 4,
+  tightenMin: 3_000,
+  tighten: 40_000,
+  /** All tightening together: this many dives' worth, but at least tightenFloor. */
+  tightenTotalPerDive: 8,
+  tightenFloor: 20_000,
+  tightenTries: 7,
+  /** Stop bisecting once the best peak is within this share of a cap proven (or given up as) infeasible. */
+  resolution: 0.02,
+};
 
-export interface Cell {
+export interface OpenCell {
   at: number; // the caller's index for the cell
   w: number;
   week: string;
   slot: number;
   slotId: string;
-  dom: Int32Array; // variants the static rules and the fixed entries allow
-  jit: Float64Array; // seeded noise per domain variant, for ties and reshuffles
-  minS: Float64Array; // per joint, the least stress any domain variant adds
+}
+
+export interface Cell extends OpenCell {
+  dom: number[]; // variants the static rules and the fixed entries allow
+  jit: number[]; // seeded noise per domain variant, for ties and reshuffles
+  minS: number[]; // per joint, the least stress any domain variant adds
   taper: boolean;
 }
 
@@ -29,24 +44,25 @@ export interface Pick {
 }
 
 export interface Solution {
-  assign: Int32Array; // variant per cell, −1 when empty
+  assign: number[]; // variant per cell, −1 when empty
   picks: (Pick | undefined)[];
   peak: number;
   empties: number;
 }
 
-const ZERO = new Float64Array(NJ);
+const ZERO = zeros(NJ);
 
-function differs<T>(a: T | undefined, b: T | undefined, full: number): number {
-  if (a === undefined || b === undefined) return full / 2;
+/** Variety bonus: full when two tags differ, half when either is unknown (−1), none when equal. */
+function differs(a: number, b: number, full: number): number {
+  if (a < 0 || b < 0) return full / 2;
   return a === b ? 0 : full;
 }
 
 export class Search {
   private readonly n: number;
-  private readonly lb: Float64Array[];
-  private cap: Float64Array;
-  private readonly full: Float64Array;
+  private readonly lb: number[][];
+  private cap: number[];
+  private readonly full: number[];
   private useMin = true;
   private partial = false;
   private limit = 0;
@@ -54,32 +70,98 @@ export class Search {
   work = 0;
   private empties = 0;
   private bestEmpties = Infinity;
-  private readonly assign: Int32Array;
+  private readonly assign: number[];
   private readonly picks: (Pick | undefined)[];
-  private readonly mBuf: Float64Array[];
-  private readonly fBuf = new Float64Array(NJ);
+  private readonly mBuf: number[][];
+  private readonly fBuf = zeros(NJ);
   best: Solution | null = null;
+  private readonly vBlock: number[];
+  private readonly fBlock: number[];
+  private famGap = 0;
+  private varGap = 0;
 
+  readonly cells: Cell[];
+
+  /** Open cells that nothing fits, even before any pick, are left out of `cells` (they stay unfilled). */
   constructor(
     private readonly ctx: Ctx,
     private readonly ath: Ath,
     private readonly board: Board,
-    private readonly cells: Cell[],
+    open: OpenCell[],
     private readonly first: number,
     private readonly last: number,
+    rng: () => number,
   ) {
-    this.n = cells.length;
-    this.lb = board.load.map((a) => new Float64Array(a.length));
+    this.lb = board.load.map((a) => zeros(a.length));
     this.full = this.budgetCaps(1, false);
     this.cap = this.full;
-    this.assign = new Int32Array(this.n).fill(-1);
+    const weeks = open.length ? last - first + 1 : 0;
+    this.vBlock = zeros(weeks * ctx.variants.length);
+    this.fBlock = zeros(weeks * ctx.famNames.length);
+    board.vUses.forEach((uses, v) => {
+      for (const u of uses) this.block(this.vBlock, ctx.variants.length, v, u, ctx.R, 1);
+    });
+    board.fUses.forEach((uses, f) => {
+      for (const u of uses) this.block(this.fBlock, ctx.famNames.length, f, u, ctx.F, 1);
+    });
+    this.cells = this.domains(open, rng);
+    this.n = this.cells.length;
+    this.assign = zeros(this.n).fill(-1);
     this.picks = new Array<Pick | undefined>(this.n);
-    this.mBuf = cells.map(() => new Float64Array(NJ));
+    this.mBuf = this.cells.map(() => zeros(NJ));
+  }
+
+  private domains(open: OpenCell[], rng: () => number): Cell[] {
+    const ctx = this.ctx;
+    const cells: Cell[] = [];
+    const m = zeros(NJ);
+    for (const o of open) {
+      const taper = taperAt(ctx, this.ath, o.w);
+      const maxRisk = taper ? taper.maxRisk : Infinity;
+      const minSpec = taper ? taper.minSpec - EPS : -Infinity;
+      this.spanMaxes(this.board.load, o.w, m);
+      const list = ctx.bySlot[o.slot]!;
+      const block = this.ath.block;
+      const dom = zeros(list.length);
+      let n = 0;
+      // The slot's list already matches its lifts; the rest of the static rules, then the fixed entries.
+      for (let i = 0; i < list.length; i++) {
+        const v = list[i]!;
+        if (block[v] !== 0 || ctx.risk[v]! > maxRisk || ctx.spec[v]! < minSpec) continue;
+        if (this.valid(v, o.w, m, ZERO)) dom[n++] = v;
+      }
+      if (n === 0) continue;
+      const minS = zeros(NJ);
+      for (const k of ctx.budgeted) {
+        let mk = Infinity;
+        for (let i = 0; i < n && mk > 0; i++) mk = Math.min(mk, ctx.stress[dom[i]! * NJ + k]!);
+        minS[k] = mk;
+      }
+      cells.push({
+        at: o.at,
+        w: o.w,
+        week: o.week,
+        slot: o.slot,
+        slotId: o.slotId,
+        dom: dom.slice(0, n),
+        jit: noise(rng, n),
+        minS,
+        taper: taper !== null,
+      });
+    }
+    return cells;
+  }
+
+  /** Counts, per planned week, the entries that keep item i (a variant or a family) out of it. */
+  private block(arr: number[], stride: number, i: number, u: number, window: number, sign: 1 | -1): void {
+    const from = Math.max(this.first, u - window + 1);
+    const to = Math.min(this.last, u + window - 1);
+    for (let x = from; x <= to; x++) arr[(x - this.first) * stride + i]! += sign;
   }
 
   /** Per-joint caps at ratio t of the budget; `strict` asks for loads below t × budget. */
-  budgetCaps(t: number, strict: boolean): Float64Array {
-    const cap = new Float64Array(NJ).fill(Infinity);
+  budgetCaps(t: number, strict: boolean): number[] {
+    const cap = zeros(NJ).fill(Infinity);
     for (const k of this.ctx.budgeted) {
       const b = this.ctx.budget[k]!;
       cap[k] = b === 0 ? 0 : Math.min(b, Math.max(0, t * b - (strict ? 1e-7 : 0)));
@@ -88,20 +170,20 @@ export class Search {
   }
 
   /** Largest summed stress of the spans holding week w, per budgeted joint, from array set `arr`. */
-  private spanMaxes(arr: Float64Array[], w: number, out: Float64Array): void {
+  private spanMaxes(arr: number[][], w: number, out: number[]): void {
     const J = this.ctx.J;
     const lo = this.board.lo;
     for (const k of this.ctx.budgeted) {
       const a = arr[k]!;
-      const at = (x: number) => {
-        const i = x - lo;
-        return i >= 0 && i < a.length ? a[i]! : 0;
-      };
+      // Week w − J + 1 … w + J − 1 as indexes into a; outside the array the load is 0.
+      const from = w - J + 1 - lo;
       let s = 0;
-      for (let x = w - J + 1; x <= w; x++) s += at(x);
+      for (let i = from; i < from + J; i++) if (i >= 0 && i < a.length) s += a[i]!;
       let best = s;
-      for (let st = w - J + 2; st <= w; st++) {
-        s += at(st + J - 1) - at(st - 1);
+      for (let i = from + 1; i <= w - lo; i++) {
+        const add = i + J - 1;
+        if (add >= 0 && add < a.length) s += a[add]!;
+        if (i - 1 >= 0 && i - 1 < a.length) s -= a[i - 1]!;
         if (s > best) best = s;
       }
       out[k] = best;
@@ -109,14 +191,11 @@ export class Search {
   }
 
   /** The hard rules that depend on other entries, for variant v in a cell at week w. */
-  private valid(v: number, w: number, m: Float64Array, mn: Float64Array, cap = this.cap): boolean {
+  private valid(v: number, w: number, m: number[], mn: number[]): boolean {
     const ctx = this.ctx;
-    const uses = this.board.vUses[v];
-    if (uses) for (const u of uses) if (u - w < ctx.R && w - u < ctx.R) return false;
-    if (ctx.F > 0) {
-      const fu = this.board.fUses[ctx.fam[v]!];
-      if (fu) for (const u of fu) if (u - w < ctx.F && w - u < ctx.F) return false;
-    }
+    if (this.vBlock[(w - this.first) * ctx.variants.length + v] !== 0) return false;
+    if (this.fBlock[(w - this.first) * ctx.famNames.length + ctx.fam[v]!] !== 0) return false;
+    const cap = this.cap;
     for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
       const k = ctx.sJ[t]!;
       if (m[k]! + ctx.sV[t]! - mn[k]! > cap[k]! + EPS) return false;
@@ -124,21 +203,20 @@ export class Search {
     return true;
   }
 
-  /** Soft-goal score of a valid candidate (higher is better). */
-  private score(c: Cell, i: number, m: Float64Array, mn: Float64Array, pick: Pick, prev: number, next: number): number {
+  /** Soft-goal score of a valid candidate (higher is better); leaves its recency in famGap/varGap. */
+  private score(c: Cell, i: number, m: number[], mn: number[], prev: number, next: number): number {
     const ctx = this.ctx;
     const v = c.dom[i]!;
-    const x = ctx.variants[v]!;
     const lf = lastBefore(this.board.fUses[ctx.fam[v]!], c.w);
     const lv = lastBefore(this.board.vUses[v], c.w);
-    pick.famGap = lf === undefined ? Infinity : c.w - lf;
-    pick.varGap = lv === undefined ? Infinity : c.w - lv;
-    let s = 2 * Math.min(pick.famGap, GAP_CAP + 1) + Math.min(pick.varGap, GAP_CAP + 1);
-    if (c.taper) s += 8 * x.specificity;
-    const emph = (u: number): Emphasis | undefined => (u >= 0 ? ctx.variants[u]!.emphasis : undefined);
-    const bar = (u: number): string | undefined => (u >= 0 ? ctx.variants[u]!.bar : undefined);
-    s += differs(x.emphasis, emph(prev), 3) + differs(x.emphasis, emph(next), 1.5);
-    s += differs(x.bar, bar(prev), 1.5) + differs(x.bar, bar(next), 0.75);
+    this.famGap = lf === undefined ? Infinity : c.w - lf;
+    this.varGap = lv === undefined ? Infinity : c.w - lv;
+    let s = 2 * Math.min(this.famGap, GAP_CAP + 1) + Math.min(this.varGap, GAP_CAP + 1);
+    if (c.taper) s += 8 * ctx.spec[v]!;
+    const e = ctx.emph[v]!;
+    const b = ctx.bar[v]!;
+    s += differs(e, prev < 0 ? -1 : ctx.emph[prev]!, 3) + differs(e, next < 0 ? -1 : ctx.emph[next]!, 1.5);
+    s += differs(b, prev < 0 ? -1 : ctx.bar[prev]!, 1.5) + differs(b, next < 0 ? -1 : ctx.bar[next]!, 0.75);
     let ratio = 0;
     for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
       const k = ctx.sJ[t]!;
@@ -148,8 +226,10 @@ export class Search {
     return s - 3 * ratio + 3 * c.jit[i]!;
   }
 
-  private apply(c: Cell, v: number, sign: 1 | -1, mn: Float64Array): void {
+  private apply(c: Cell, v: number, sign: 1 | -1, mn: number[]): void {
     this.board.add(c.w, v, c.slot, sign);
+    this.block(this.vBlock, this.ctx.variants.length, v, c.w, this.ctx.R, sign);
+    this.block(this.fBlock, this.ctx.famNames.length, this.ctx.fam[v]!, c.w, this.ctx.F, sign);
     const i = c.w - this.board.lo;
     for (const k of this.ctx.budgeted) {
       this.lb[k]![i]! += sign * (this.ctx.stress[v * NJ + k]! - mn[k]!);
@@ -201,30 +281,40 @@ export class Search {
     const prev = this.board.at(c.w - 1, c.slot) ?? -1;
     const next = this.board.at(c.w + 1, c.slot) ?? -1;
     const dom = c.dom;
-    const cand: number[] = [];
-    const scores: number[] = [];
-    const info: Pick[] = [];
+    const nb = nodeBuf(k, dom.length);
+    let cnt = 0;
     let maxFam = -1;
     let maxVar = -1;
     for (let i = 0; i < dom.length; i++) {
       if (!this.valid(dom[i]!, c.w, m, mn)) continue;
-      const p: Pick = { famGap: 0, leastFam: false, varGap: 0, leastVar: false };
-      scores.push(this.score(c, i, m, mn, p, prev, next));
-      cand.push(dom[i]!);
-      info.push(p);
-      maxFam = Math.max(maxFam, p.famGap);
-      maxVar = Math.max(maxVar, p.varGap);
+      nb.score[cnt] = this.score(c, i, m, mn, prev, next);
+      nb.cand[cnt] = dom[i]!;
+      nb.fam[cnt] = this.famGap;
+      nb.vari[cnt] = this.varGap;
+      if (this.famGap > maxFam) maxFam = this.famGap;
+      if (this.varGap > maxVar) maxVar = this.varGap;
+      cnt++;
     }
     this.work += dom.length;
+    const sc = nb.score;
     for (;;) {
       let bi = -1;
-      for (let j = 0; j < cand.length; j++) if (scores[j]! > -Infinity && (bi < 0 || scores[j]! > scores[bi]!)) bi = j;
+      let bs = -Infinity;
+      for (let j = 0; j < cnt; j++) {
+        if (sc[j]! > bs) {
+          bs = sc[j]!;
+          bi = j;
+        }
+      }
       if (bi < 0) break;
-      scores[bi] = -Infinity;
-      const v = cand[bi]!;
-      const p = info[bi]!;
-      p.leastFam = p.famGap >= maxFam;
-      p.leastVar = p.varGap >= maxVar;
+      sc[bi] = -Infinity;
+      const v = nb.cand[bi]!;
+      const p: Pick = {
+        famGap: nb.fam[bi]!,
+        leastFam: nb.fam[bi]! >= maxFam,
+        varGap: nb.vari[bi]!,
+        leastVar: nb.vari[bi]! >= maxVar,
+      };
       this.apply(c, v, 1, mn);
       this.assign[k] = v;
       this.picks[k] = p;
@@ -246,29 +336,26 @@ export class Search {
     return false;
   }
 
-  /** Largest span loads around week w on the board itself (no lower bound), for checks outside a run. */
-  maxes(w: number, out: Float64Array): void {
-    this.spanMaxes(this.board.load, w, out);
+  /** Puts a pick on the board for good (after the runs), keeping the search's counts in step. */
+  commit(c: Cell, v: number): void {
+    this.cap = this.full;
+    this.apply(c, v, 1, ZERO);
   }
 
-  /** Whether v fits at week w against the board within the full budgets (m from maxes). */
-  fits(v: number, w: number, m: Float64Array): boolean {
-    return this.valid(v, w, m, ZERO, this.full);
-  }
-
-  /** The best valid candidate for a cell against the board as it stands, or null. */
+  /** The best valid candidate for a cell against the committed board, or null. */
   bestNow(c: Cell): { v: number; pick: Pick } | null {
-    const m = new Float64Array(NJ);
-    this.maxes(c.w, m);
+    this.cap = this.full;
+    const m = zeros(NJ);
+    this.spanMaxes(this.board.load, c.w, m);
     const prev = this.board.at(c.w - 1, c.slot) ?? -1;
     const next = this.board.at(c.w + 1, c.slot) ?? -1;
     let best: { v: number; pick: Pick; s: number } | null = null;
     for (let i = 0; i < c.dom.length; i++) {
       const v = c.dom[i]!;
-      if (!this.fits(v, c.w, m)) continue;
-      const pick: Pick = { famGap: 0, leastFam: false, varGap: 0, leastVar: false };
-      const s = this.score(c, i, m, ZERO, pick, prev, next);
-      if (!best || s > best.s) best = { v, pick, s };
+      if (!this.valid(v, c.w, m, ZERO)) continue;
+      const s = this.score(c, i, m, ZERO, prev, next);
+      if (!best || s > best.s)
+        best = { v, pick: { famGap: this.famGap, leastFam: false, varGap: this.varGap, leastVar: false }, s };
     }
     return best;
   }
@@ -311,14 +398,16 @@ export class Search {
 
   private resetLb(withMin: boolean): void {
     for (const k of this.ctx.budgeted) {
-      this.lb[k]!.set(this.board.load[k]!);
+      const to = this.lb[k]!;
+      const from = this.board.load[k]!;
+      for (let i = 0; i < from.length; i++) to[i] = from[i]!;
       if (!withMin) continue;
       for (const c of this.cells) this.lb[k]![c.w - this.board.lo]! += c.minS[k]!;
     }
   }
 
   /** One bounded search; the board is left as it was (fixed entries only). */
-  run(cap: Float64Array, partial: boolean, limit: number): boolean {
+  run(cap: number[], partial: boolean, limit: number): boolean {
     this.cap = cap;
     this.partial = partial;
     this.useMin = !partial;
@@ -329,7 +418,8 @@ export class Search {
     this.resetLb(this.useMin);
     const before = this.best;
     if (!partial) this.best = null;
-    const found = this.rec(0);
+    // Forward checking keeps every open cell alive from here on; start from a state where they all are.
+    const found = (partial || this.cells.every((c) => this.alive(c))) && this.rec(0);
     const mn = (c: Cell) => (this.useMin ? c.minS : ZERO);
     for (let k = 0; k < this.n; k++) {
       const v = this.assign[k]!;
@@ -341,6 +431,47 @@ export class Search {
     if (!got) this.best = before;
     return got;
   }
+}
+
+interface NodeBuf {
+  cand: Int32Array;
+  score: Float64Array;
+  fam: Float64Array;
+  vari: Float64Array;
+}
+/** Candidate scratch per search depth, shared by all searches (they run one at a time, to the end). */
+const NODE_BUFS: NodeBuf[] = [];
+function nodeBuf(depth: number, n: number): NodeBuf {
+  let b = NODE_BUFS[depth];
+  if (!b || b.cand.length < n) {
+    const size = Math.max(n, 64);
+    b = {
+      cand: new Int32Array(size),
+      score: new Float64Array(size),
+      fam: new Float64Array(size),
+      vari: new Float64Array(size),
+    };
+    NODE_BUFS[depth] = b;
+  }
+  return b;
+}
+
+/** Plain arrays: per athlete the engine allocates many small ones, and typed arrays cost more to make. */
+function zeros(n: number): number[] {
+  return new Array<number>(n).fill(0);
+}
+
+/** n values in [0, 1): one draw from the athlete's seeded stream, spread by an integer mix per item. */
+function noise(rng: () => number, n: number): number[] {
+  const out = zeros(n);
+  let h = Math.floor(rng() * 4294967296) >>> 0;
+  for (let i = 0; i < n; i++) {
+    h = (h + 0x9e3779b9) >>> 0;
+    let t = Math.imul(h ^ (h >>> 16), 0x85ebca6b);
+    t = Math.imul(t ^ (t >>> 13), 0xc2b2ae35);
+    out[i] = ((t ^ (t >>> 16)) >>> 0) / 4294967296;
+  }
+  return out;
 }
 
 export function ratioOf(load: number, budget: number): number {
@@ -360,7 +491,7 @@ export function peakOf(ctx: Ctx, board: Board, first: number, last: number): num
 
 /**
  * Plans the open cells: a complete plan within the budgets if the search finds one, then tighter
- * peaks (first straight at the lower bound, then one step below each peak found) while effort lasts;
+ * peaks (first straight at the lower bound, then by bisection) while effort lasts;
  * without a complete plan, the plan with the fewest empty cells found.
  */
 export function solve(search: Search): Solution | null {
@@ -369,46 +500,18 @@ export function solve(search: Search): Solution | null {
     search.run(full, true, EFFORT.partial);
     return search.best;
   }
-  const lb = search.lowerBound();
-  for (let t = 0; t < EFFORT.tightenTries && search.work < EFFORT.total; t++) {
-    const best = search.best!;
-    if (best.peak <= lb + 1e-9 || !Number.isFinite(best.peak)) break;
-    const caps = t === 0 ? search.budgetCaps(lb, false) : search.budgetCaps(best.peak, true);
-    if (!search.run(caps, false, EFFORT.tighten) && t > 0) break;
+  // Feasibility only gets easier as the caps rise, so bisect on the cap between the lower bound and
+  // the best peak found; a run that gives up counts as infeasible. Failed runs get a small effort
+  // bound scaled to the size of one dive, as most of the effort would be spent proving infeasibility.
+  let lo = search.lowerBound();
+  const dive = search.work;
+  const each = Math.min(EFFORT.tighten, Math.max(EFFORT.tightenMin, EFFORT.tightenPerDive * dive));
+  const stop = dive + Math.max(EFFORT.tightenFloor, EFFORT.tightenTotalPerDive * dive);
+  for (let t = 0; t < EFFORT.tightenTries && search.work < stop; t++) {
+    const hi = search.best!.peak;
+    if (!Number.isFinite(hi) || hi <= lo + 1e-9 || hi - lo <= EFFORT.resolution * hi) break;
+    const mid = t === 0 ? lo : (lo + hi) / 2;
+    if (!search.run(search.budgetCaps(mid, false), false, Math.min(each, stop - search.work))) lo = mid;
   }
   return search.best;
-}
-
-/** The open cells that something fits, with domains checked against the fixed entries on the board. */
-export function buildCells(
-  ctx: Ctx,
-  ath: Ath,
-  board: Board,
-  open: { at: number; w: number; week: string; slot: number; slotId: string }[],
-  rng: () => number,
-): Cell[] {
-  const cells: Cell[] = [];
-  const probe = new Search(ctx, ath, board, [], 0, 0);
-  const m = new Float64Array(NJ);
-  const V = ctx.variants.length;
-  open.forEach((o) => {
-    const taper = taperAt(ctx, ath, o.w);
-    const mask = ctx.slots.get(o.slotId)!.mask;
-    probe.maxes(o.w, m);
-    const dom: number[] = [];
-    for (let v = 0; v < V; v++) {
-      if (staticOk(ctx, ath, mask, v, taper) && probe.fits(v, o.w, m)) dom.push(v);
-    }
-    if (dom.length === 0) return; // nothing fits even before any pick: the cell stays unfilled
-    const minS = new Float64Array(NJ);
-    for (const k of ctx.budgeted) {
-      let mk = Infinity;
-      for (const v of dom) mk = Math.min(mk, ctx.stress[v * NJ + k]!);
-      minS[k] = mk;
-    }
-    const jit = new Float64Array(dom.length);
-    for (let i = 0; i < jit.length; i++) jit[i] = rng();
-    cells.push({ ...o, dom: Int32Array.from(dom), jit, minS, taper: taper !== null });
-  });
-  return cells;
 }

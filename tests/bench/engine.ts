@@ -5,7 +5,16 @@ import { generatePlan, peakLoadRatio, prepareCandidateChecks, explainCandidate }
 import type { AthleteInput, PlanEntry, PlanRequest, Rules, Variant } from '../../shared/engine/types';
 import { addWeeks, weekRange } from '../../shared/engine/weeks';
 import { exhaustive } from '../shared/engine/exhaustive';
-import { EQUIPMENT, TWO_SLOTS, chance, int, mulberry32, pick, randomLibrary, smallCase } from '../shared/engine/fixtures';
+import {
+  EQUIPMENT,
+  TWO_SLOTS,
+  chance,
+  int,
+  mulberry32,
+  pick,
+  randomLibrary,
+  smallCase,
+} from '../shared/engine/fixtures';
 
 const RULES: Rules = {
   repeatWindowWeeks: 6,
@@ -38,7 +47,14 @@ function timeIt(runs: number, f: () => void): number {
 }
 
 /** A team whose history was itself planned week by week by the engine, so it follows the rules. */
-function team(n: number, variants: Variant[], historyWeeks: number, seed: number, meetFrom: number, meetTo: number): AthleteInput[] {
+function team(
+  n: number,
+  variants: Variant[],
+  historyWeeks: number,
+  seed: number,
+  meetFrom: number,
+  meetTo: number,
+): AthleteInput[] {
   const r = mulberry32(seed);
   const athletes: AthleteInput[] = [];
   for (let i = 0; i < n; i++) {
@@ -53,8 +69,15 @@ function team(n: number, variants: Variant[], historyWeeks: number, seed: number
   }
   if (historyWeeks > 0) {
     const weeks = weekRange(addWeeks(FIRST, -historyWeeks), addWeeks(FIRST, -1));
-    const past = generatePlan({ variants, slots: TWO_SLOTS, athletes: athletes.map((a) => ({ ...a, meetWeek: undefined })), rules: RULES, weeks });
-    for (const a of athletes) a.history = past.entries.filter((e) => e.athleteId === a.id).map(({ reasons: _r, ...e }) => e);
+    const past = generatePlan({
+      variants,
+      slots: TWO_SLOTS,
+      athletes: athletes.map((a) => ({ ...a, meetWeek: undefined })),
+      rules: RULES,
+      weeks,
+    });
+    for (const a of athletes)
+      a.history = past.entries.filter((e) => e.athleteId === a.id).map(({ reasons: _r, ...e }) => e);
   }
   return athletes;
 }
@@ -63,13 +86,25 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
   const variants = randomLibrary(mulberry32(42), 300);
 
   // (a) one week for 200 athletes × 2 slots, 12 weeks of history.
-  const reqA: PlanRequest = { variants, slots: TWO_SLOTS, athletes: team(200, variants, 12, 1, 0, 12), rules: RULES, weeks: [FIRST] };
+  const reqA: PlanRequest = {
+    variants,
+    slots: TWO_SLOTS,
+    athletes: team(200, variants, 12, 1, 0, 12),
+    rules: RULES,
+    weeks: [FIRST],
+  };
   const a = timeIt(9, () => generatePlan(reqA));
   const resA = generatePlan(reqA);
 
   // (b) 16 weeks up to a meet for 50 athletes.
   const athletesB = team(50, variants, 12, 2, 15, 15);
-  const reqB: PlanRequest = { variants, slots: TWO_SLOTS, athletes: athletesB, rules: RULES, weeks: weekRange(FIRST, addWeeks(FIRST, 15)) };
+  const reqB: PlanRequest = {
+    variants,
+    slots: TWO_SLOTS,
+    athletes: athletesB,
+    rules: RULES,
+    weeks: weekRange(FIRST, addWeeks(FIRST, 15)),
+  };
   const b = timeIt(5, () => generatePlan(reqB));
   const resB = generatePlan(reqB);
 
@@ -85,16 +120,20 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
   };
   const cWarm = timeIt(21, () => explainAll(reqC));
   const cCold = timeIt(21, () => explainAll({ ...reqC }));
-  const prepare = timeIt(21, () => prepareCandidateChecks({ ...reqC }).explain('ath0', FIRST, 'lower', variants[0]!.id));
+  const prepare = timeIt(21, () =>
+    prepareCandidateChecks({ ...reqC }).explain('ath0', FIRST, 'lower', variants[0]!.id),
+  );
   const checks = prepareCandidateChecks(reqC);
   const dragged = variants[10]!.id;
   const rateAll = () => {
-    for (const ath of athletesC) for (const week of weeksC) for (const slot of TWO_SLOTS) checks.rate(ath.id, week, slot.id, dragged);
+    for (const ath of athletesC)
+      for (const week of weeksC) for (const slot of TWO_SLOTS) checks.rate(ath.id, week, slot.id, dragged);
   };
   const rate720 = timeIt(21, rateAll);
   const rate720Cold = timeIt(11, () => {
     const fresh = prepareCandidateChecks({ ...reqC });
-    for (const ath of athletesC) for (const week of weeksC) for (const slot of TWO_SLOTS) fresh.rate(ath.id, week, slot.id, dragged);
+    for (const ath of athletesC)
+      for (const week of weeksC) for (const slot of TWO_SLOTS) fresh.rate(ath.id, week, slot.id, dragged);
   });
 
   // (d) quality on small random cases against the exhaustive optimum.
@@ -140,7 +179,10 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
   };
 }
 
-const direct = typeof process !== 'undefined' && process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/'));
+const direct =
+  typeof process !== 'undefined' &&
+  process.argv[1] !== undefined &&
+  import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/'));
 if (direct) {
   void runEngineBench().then((r) => console.log(JSON.stringify(r, null, 2)));
 }

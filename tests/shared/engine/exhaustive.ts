@@ -21,7 +21,11 @@ export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000): ExhaustiveR
   const rules = req.rules;
   const first = req.weeks[0]!;
   const byId = new Map(req.variants.map((v) => [v.id, v]));
-  const placed: Placed[] = athlete.history.map((e) => ({ at: weeksBetween(first, e.week), v: byId.get(e.variantId), id: e.variantId }));
+  const placed: Placed[] = athlete.history.map((e) => ({
+    at: weeksBetween(first, e.week),
+    v: byId.get(e.variantId),
+    id: e.variantId,
+  }));
   const J = Math.max(1, rules.jointWindowWeeks);
   const stressOf = (v: Variant | undefined, j: (typeof JOINTS)[number]) => (v ? (v.stress[j] ?? 0) : 0);
   const budgets = JOINTS.filter((j) => rules.jointBudget[j] !== undefined);
@@ -60,7 +64,8 @@ export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000): ExhaustiveR
     }
     for (const j of budgets) {
       if (stressOf(v, j) === 0) continue;
-      for (let st = at - J + 1; st <= at; st++) if (spanLoad(j, st) + stressOf(v, j) > rules.jointBudget[j]! + 1e-9) return false;
+      for (let st = at - J + 1; st <= at; st++)
+        if (spanLoad(j, st) + stressOf(v, j) > rules.jointBudget[j]! + 1e-9) return false;
     }
     return true;
   };

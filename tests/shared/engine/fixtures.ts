@@ -1,7 +1,17 @@
 // Test and benchmark fixtures: a small hand-made library and seeded generators of random libraries,
 // rules, histories, boards and meets (invented names and numbers).
 
-import { JOINTS, type AthleteInput, type Joint, type Lift, type PlanEntry, type PlanRequest, type Rules, type SlotDef, type Variant } from '../../../shared/engine/types';
+import {
+  JOINTS,
+  type AthleteInput,
+  type Joint,
+  type Lift,
+  type PlanEntry,
+  type PlanRequest,
+  type Rules,
+  type SlotDef,
+  type Variant,
+} from '../../../shared/engine/types';
 import { addWeeks, weekRange } from '../../../shared/engine/weeks';
 
 /** Small fast seeded generator for fixtures (the engine itself uses seedrandom). */
@@ -27,7 +37,15 @@ export const TWO_SLOTS: SlotDef[] = [
 ];
 
 const FAMILIES: Record<Lift, string[]> = {
-  squat: ['box-squat', 'pause-squat', 'front-squat', 'safety-bar-squat', 'belt-squat', 'anderson-squat', 'good-morning'],
+  squat: [
+    'box-squat',
+    'pause-squat',
+    'front-squat',
+    'safety-bar-squat',
+    'belt-squat',
+    'anderson-squat',
+    'good-morning',
+  ],
   bench: ['board-press', 'floor-press', 'pin-press', 'close-grip', 'incline', 'pause-bench', 'reverse-band-bench'],
   deadlift: ['rack-pull', 'deficit-pull', 'block-pull', 'snatch-grip-pull', 'paused-pull', 'stiff-leg-pull'],
 };
@@ -82,7 +100,8 @@ export function randomRules(r: Rand, seed = 'seed'): Rules {
   for (const j of JOINTS) if (chance(r, 0.6)) jointBudget[j] = int(r, 2, 12);
   const taper = [];
   if (chance(r, 0.7)) taper.push({ weeksOut: int(r, 1, 5), maxRisk: int(r, 1, 2) as 1 | 2 });
-  if (chance(r, 0.5)) taper.push({ weeksOut: int(r, 0, 2), maxRisk: 1 as const, minSpecificity: Math.round(r() * 80) / 100 });
+  if (chance(r, 0.5))
+    taper.push({ weeksOut: int(r, 0, 2), maxRisk: 1 as const, minSpecificity: Math.round(r() * 80) / 100 });
   return {
     repeatWindowWeeks: int(r, 0, 6),
     familyWindowWeeks: int(r, 0, 4),
@@ -96,7 +115,14 @@ export function randomRules(r: Rand, seed = 'seed'): Rules {
 const STARTS = ['2026-W50', '2026-W51', '2026-W52', '2027-W01', '2027-W20', '2027-W50', '2025-W30'];
 
 /** Random entries, lift-matched to their slot most of the time, one variant per cell. */
-export function randomEntries(r: Rand, athleteId: string, weeks: string[], slots: SlotDef[], variants: Variant[], fill: number): PlanEntry[] {
+export function randomEntries(
+  r: Rand,
+  athleteId: string,
+  weeks: string[],
+  slots: SlotDef[],
+  variants: Variant[],
+  fill: number,
+): PlanEntry[] {
   const out: PlanEntry[] = [];
   for (const week of weeks) {
     for (const s of slots) {
@@ -121,7 +147,15 @@ export interface RequestOptions {
   lifts?: Lift[];
 }
 
-export function randomAthlete(r: Rand, id: string, weeks: string[], slots: SlotDef[], variants: Variant[], historyWeeks: number, restrictions = true): AthleteInput {
+export function randomAthlete(
+  r: Rand,
+  id: string,
+  weeks: string[],
+  slots: SlotDef[],
+  variants: Variant[],
+  historyWeeks: number,
+  restrictions = true,
+): AthleteInput {
   const hist = historyWeeks > 0 ? weekRange(addWeeks(weeks[0]!, -historyWeeks), addWeeks(weeks[0]!, -1)) : [];
   const meet = chance(r, 0.7) ? addWeeks(weeks[0]!, int(r, -1, weeks.length + 3)) : undefined;
   return {
@@ -143,13 +177,22 @@ export function randomRequest(seed: number, opts: RequestOptions = {}): PlanRequ
   const planned: PlanEntry[] = [];
   const n = opts.athletes ?? int(r, 1, 3);
   for (let i = 0; i < n; i++) {
-    const a = randomAthlete(r, `a${i}`, weeks, slots, variants, opts.historyWeeks ?? int(r, 0, 8), opts.restrictions ?? true);
+    const a = randomAthlete(
+      r,
+      `a${i}`,
+      weeks,
+      slots,
+      variants,
+      opts.historyWeeks ?? int(r, 0, 8),
+      opts.restrictions ?? true,
+    );
     athletes.push(a);
     for (const e of randomEntries(r, a.id, weeks, slots, variants, opts.planned ?? 0.3)) {
       planned.push(chance(r, opts.pinned ?? 0.3) ? { ...e, pinned: true } : e);
     }
   }
-  if (planned.length && chance(r, 0.2)) planned.push({ ...planned[0]!, variantId: 'no-such-variant', pinned: false, week: weeks[weeks.length - 1]! });
+  if (planned.length && chance(r, 0.2))
+    planned.push({ ...planned[0]!, variantId: 'no-such-variant', pinned: false, week: weeks[weeks.length - 1]! });
   return { variants, slots, athletes, rules: randomRules(r, `s${seed}`), weeks, planned };
 }
 
