@@ -1,5 +1,5 @@
 // Outgoing e-mail waits in an outbox and is sent with retries, so an SMTP outage delays mail but loses none.
-import { datetime, index, int, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { datetime, index, int, json, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref } from './columns';
 import { teams } from './auth';
 
@@ -14,6 +14,8 @@ export const outbox = mysqlTable(
     subject: varchar('subject', { length: 200 }).notNull(),
     textBody: text('text_body').notNull(),
     htmlBody: text('html_body').notNull(),
+    /** Extra headers for this message (List-Unsubscribe and the like). */
+    headers: json('headers').$type<Record<string, string>>(),
     attempts: int('attempts', { unsigned: true }).notNull().default(0),
     nextAttemptAt: datetime('next_attempt_at', { mode: 'date', fsp: 3 }).notNull(),
     sentAt: datetime('sent_at', { mode: 'date', fsp: 3 }),
