@@ -26,6 +26,13 @@ const schema = z.object({
   SMTP_USER: z.string().default(''),
   SMTP_PASSWORD: z.string().default(''),
   MAIL_FROM: z.string().default('Rackturn <no-reply@rackturn.test>'),
+  /** How often the outbox sender looks for due mail; 0 turns the loop off (sends only when asked). */
+  MAIL_SEND_INTERVAL_MS: z.coerce.number().int().min(0).default(5_000),
+  /** First retry delay after a failed send; it doubles on each failure up to MAIL_RETRY_MAX_MS. */
+  MAIL_RETRY_BASE_MS: z.coerce.number().int().positive().default(30_000),
+  MAIL_RETRY_MAX_MS: z.coerce.number().int().positive().default(3_600_000),
+  RESET_LIMIT_PER_IP: z.coerce.number().int().positive().default(20),
+  RESET_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(5),
   S3_ENDPOINT: z.string().default(''),
   S3_REGION: z.string().default('us-east-1'),
   S3_BUCKET: z.string().default('rackturn-videos'),
