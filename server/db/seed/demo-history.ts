@@ -1,5 +1,15 @@
-// Twelve invented weeks of training history for the demo athletes, and the current week planned.
+// Twelve invented weeks of training for the demo athletes, planned by the same engine and rules as the
+// board (so the history obeys them), with invented top sets and bodyweights; the current week is planned
+// but not yet trained. Every number here is made up for the demo.
+import { eq } from 'drizzle-orm';
+import seedrandom from 'seedrandom';
+import { estimateOneRepMax } from '../../../shared/calc';
+import { addWeeks, generatePlan, mondayOf, weekOfDate, type AthleteInput, type Variant } from '../../../shared/engine';
+import { readTeamRules, toEngineRules, toEngineSlots } from '../../../shared/schemas/rules';
 import type { Tx } from '../client';
+import { bodyweights, planEntries, planEntryHistory, teamRules, topSets } from '../schema';
+import { DEMO_EQUIPMENT, DEMO_LIBRARY, type DemoVariant } from './demo-library';
+import { DEMO_ATHLETES, type DemoAthlete } from './demo-people';
 
 export interface HistoryContext {
   teamId: number;
@@ -9,6 +19,146 @@ export interface HistoryContext {
   coachId: number | null;
 }
 
-export async function seedDemoHistory(_tx: Tx, _ctx: HistoryContext): Promise<void> {
-  // Filled in once the rotation engine lands, so the history obeys the same rules as the board.
+export const HISTORY_WEEKS = 12;
+const DAY_MS = 86_400_000;
+
+/** How heavy a variant goes relative to the competition lift: partial ranges go heavier, hard positions lighter. */
+export function variantFactor(v: Pick<DemoVariant, 'specificity' | 'emphasis' | 'equipment'>): number {
+  const partial = v.emphasis === 'lockout' && v.equipment.some((e) => ['rack pins', 'boards', 'blocks'].includes(e));
+  const emphasis = v.emphasis === 'lockout' ? 0.08 : v.emphasis === 'bottom' ? -0.03 : 0;
+  return 0.55 + 0.45 * v.specificity + emphasis + (partial ? 0.2 : 0);
+}
+
+const REPS = { single: 1, triple: 3, five: 5 } as const;
+
+function isoDay(ms: number): string {
+  return new Date(ms).toISOString().slice(0, 10);
+}
+
+export async function seedDemoHistory(tx: Tx, ctx: HistoryContext): Promise<void> {
+  const thisWeek = weekOfDate(ctx.today);
+  const weeks = Array.from({ length: HISTORY_WEEKS + 1 }, (_, i) => addWeeks(thisWeek, i - HISTORY_WEEKS));
+  const [stored] = await tx.select().from(teamRules).where(eq(teamRules.teamId, ctx.teamId));
+  const rules = readTeamRules(stored?.rules);
+  const byId = new Map<string, DemoVariant>();
+  const variants: Variant[] = DEMO_LIBRARY.map((v) => {
+    const id = String(ctx.variantIds.get(v.name));
+    byId.set(id, v);
+    return {
+      id,
+      name: v.name,
+      lift: v.lift,
+      family: v.family,
+      risk: v.risk,
+      specificity: v.specificity,
+      stress: v.stress,
+      equipment: v.equipment,
+      emphasis: v.emphasis,
+      bar: v.bar,
+    };
+  });
+
+  const athletes: AthleteInput[] = DEMO_ATHLETES.map((a) => ({
+    id: String(ctx.athleteIds.get(a.key)),
+    equipment: DEMO_EQUIPMENT.filter((e) => !a.lacks?.includes(e)),
+    restrictions: a.restriction ? [{ joint: a.restriction.joint, maxStress: a.restriction.maxStress }] : [],
+    ...(a.meetInWeeks ? { meetWeek: addWeeks(thisWeek, a.meetInWeeks) } : {}),
+    history: [],
+  }));
+  const plan = generatePlan({
+    variants,
+    slots: toEngineSlots(rules),
+    athletes,
+    rules: toEngineRules(rules, stored?.seed ?? 'demo'),
+    weeks,
+  });
+
+  const people = new Map(DEMO_ATHLETES.map((a) => [String(ctx.athleteIds.get(a.key)), a]));
+  for (const e of plan.entries) {
+    const [row] = await tx
+      .insert(planEntries)
+      .values({
+        teamId: ctx.teamId,
+        athleteId: Number(e.athleteId),
+        week: e.week,
+        slotId: e.slotId,
+        variantId: Number(e.variantId),
+        source: 'engine',
+        pinned: false,
+        reasons: e.reasons,
+        updatedBy: ctx.coachId,
+      })
+      .$returningId();
+    await tx.insert(planEntryHistory).values({
+      teamId: ctx.teamId,
+      planEntryId: row!.id,
+      athleteId: Number(e.athleteId),
+      week: e.week,
+      slotId: e.slotId,
+      oldVariantId: null,
+      newVariantId: Number(e.variantId),
+      source: 'engine',
+      pinned: false,
+      reason: null,
+      version: 1,
+      changedBy: ctx.coachId,
+    });
+    if (e.week === thisWeek) continue;
+    const who = people.get(e.athleteId)!;
+    await tx.insert(topSets).values(topSetFor(ctx, who, byId.get(e.variantId)!, e, row!.id, weeks.indexOf(e.week)));
+  }
+
+  for (const a of DEMO_ATHLETES) {
+    await tx.insert(bodyweights).values(bodyweightsFor(ctx, a, thisWeek));
+  }
+}
+
+function topSetFor(
+  ctx: HistoryContext,
+  who: DemoAthlete,
+  v: DemoVariant,
+  e: { athleteId: string; week: string; slotId: string; variantId: string },
+  planEntryId: number,
+  weekIndex: number,
+) {
+  const rng = seedrandom(`demo-top-set:${who.key}:${e.week}:${e.slotId}`);
+  // Slow, noisy progress over the block: about +0.4 % a week.
+  const progress = 1 + 0.004 * weekIndex + (rng() - 0.5) * 0.03;
+  const e1rmTarget = who.maxes[v.lift] * variantFactor(v) * progress;
+  const reps = REPS[v.scheme];
+  // Gym numbers: whole 2.5 kg steps.
+  const weightKg = Math.max(25, Math.floor(e1rmTarget / (1 + reps / 30) / 2.5) * 2.5);
+  const rpe = 7.5 + Math.floor(rng() * 5) * 0.5; // 7.5 … 9.5
+  const day = mondayOf(e.week).getTime() + (e.slotId === 'upper' ? 3 : 1) * DAY_MS;
+  return {
+    teamId: ctx.teamId,
+    athleteId: Number(e.athleteId),
+    planEntryId,
+    variantId: Number(e.variantId),
+    week: e.week,
+    performedOn: isoDay(day),
+    weightKg,
+    reps,
+    rpe,
+    e1rmKg: Math.round(estimateOneRepMax(weightKg, reps) * 100) / 100,
+    note: rng() < 0.15 ? 'Moved well; last rep slowed down.' : null,
+  };
+}
+
+function bodyweightsFor(ctx: HistoryContext, a: DemoAthlete, thisWeek: string) {
+  const rng = seedrandom(`demo-bodyweight:${a.key}`);
+  const start = mondayOf(addWeeks(thisWeek, -HISTORY_WEEKS)).getTime();
+  // Athletes with a meet drift slowly toward their class; the rest wander around their weight.
+  const drift = a.meetInWeeks ? -0.03 : 0;
+  const rows: { teamId: number; athleteId: number; measuredOn: string; weightKg: number }[] = [];
+  for (let d = 0; d < HISTORY_WEEKS * 7; d += 2 + Math.floor(rng() * 2)) {
+    const w = a.bodyweight + drift * (d - HISTORY_WEEKS * 7) + (rng() - 0.5) * 0.8;
+    rows.push({
+      teamId: ctx.teamId,
+      athleteId: ctx.athleteIds.get(a.key)!,
+      measuredOn: isoDay(start + d * DAY_MS),
+      weightKg: Math.round(w * 10) / 10,
+    });
+  }
+  return rows;
 }

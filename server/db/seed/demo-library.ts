@@ -28,6 +28,7 @@ export const DEMO_EQUIPMENT = [
   'cambered bar',
   'multi-grip bar',
   'trap bar',
+  'belt squat machine',
 ];
 
 type Row = [
@@ -245,6 +246,29 @@ const squat: Row[] = [
     'single',
   ],
   [
+    'Belt squat',
+    'belt squat',
+    'belt',
+    ['belt squat machine'],
+    'midRange',
+    { hip: 2, knee: 2 },
+    1,
+    0.4,
+    'triple',
+    'Loads the legs and hips with the spine left almost unloaded.',
+  ],
+  [
+    'Belt squat, 2-second pause',
+    'belt squat',
+    'belt',
+    ['belt squat machine'],
+    'bottom',
+    { hip: 2, knee: 2 },
+    1,
+    0.35,
+    'triple',
+  ],
+  [
     'Competition squat, top single',
     'competition squat',
     'straight',
@@ -418,6 +442,17 @@ const hinge: Row[] = [
     { knee: 2, lowerBack: 1, hip: 1 },
     1,
     0.5,
+    'single',
+  ],
+  [
+    'Trap bar deadlift, high handles',
+    'trap bar pull',
+    'trap',
+    ['trap bar'],
+    'lockout',
+    { knee: 1, lowerBack: 1, hip: 1 },
+    1,
+    0.4,
     'single',
   ],
   [

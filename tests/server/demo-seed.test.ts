@@ -1,0 +1,92 @@
+// The demo scenario: seeded once into an empty database, consistent with the team's own rules.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { addWeeks, checkPlan, weekOfDate, type PlanEntry, type Variant } from '../../shared/engine';
+import { readTeamRules, toEngineRules, toEngineSlots } from '../../shared/schemas/rules';
+import { createDatabase, type Database } from '../../server/db/client';
+import { athletes, bodyweights, planEntries, restrictions, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
+import { seedDemoIfEmpty } from '../../server/db/seed/demo';
+import { verifyPassword } from '../../server/lib/passwords';
+import { recreateDatabase } from '../support/integration-setup';
+
+let database: Database;
+const today = new Date();
+const thisWeek = weekOfDate(today);
+
+beforeAll(async () => {
+  database = createDatabase(await recreateDatabase('rackturn_seedcheck'), { connectionLimit: 3 });
+}, 60_000);
+afterAll(() => database?.close());
+
+describe('demo seed', () => {
+  it('seeds an empty database once, and never twice', async () => {
+    expect(await seedDemoIfEmpty(database.db, today)).toBe(true);
+    expect(await seedDemoIfEmpty(database.db, today)).toBe(false);
+    const all = await database.db.select().from(teams);
+    expect(all.map((t) => t.name).sort()).toEqual(['Copperkettle Barbell Club', 'Quillmoor Strength Co.']);
+  }, 60_000);
+
+  it('has the demo accounts with the documented password', async () => {
+    for (const email of ['coach@rackturn.test', 'coach2@rackturn.test', 'athlete@rackturn.test', 'other@rackturn.test']) {
+      const [u] = await database.db.select().from(users).where(eq(users.email, email));
+      expect(u, email).toBeDefined();
+      expect(await verifyPassword('rackturn-demo', u!.passwordHash)).toBe(true);
+    }
+  });
+
+  it('gives the club about a dozen athletes, a 60+ variant library, restrictions and meets', async () => {
+    const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
+    const roster = await database.db.select().from(athletes).where(eq(athletes.teamId, club!.id));
+    expect(roster.length).toBeGreaterThanOrEqual(10);
+    const library = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
+    expect(library.length).toBeGreaterThanOrEqual(60);
+    const joints = (await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id))).map((r) => r.joint);
+    expect(joints.sort()).toEqual(['elbow', 'lowerBack']);
+  });
+
+  it('plans twelve past weeks and the current one for everyone, within the rules', async () => {
+    const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
+    const [stored] = await database.db.select().from(teamRules).where(eq(teamRules.teamId, club!.id));
+    const rules = readTeamRules(stored!.rules);
+    const lib = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
+    const roster = await database.db.select().from(athletes).where(eq(athletes.teamId, club!.id));
+    const rows = await database.db.select().from(planEntries).where(eq(planEntries.teamId, club!.id));
+    const limits = await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id));
+
+    const weeks = Array.from({ length: 13 }, (_, i) => addWeeks(thisWeek, i - 12));
+    expect([...new Set(rows.map((r) => r.week))].sort()).toEqual(weeks);
+    expect(rows.length).toBe(roster.length * weeks.length * rules.slots.length);
+
+    const entries: PlanEntry[] = rows.map((r) => ({ athleteId: String(r.athleteId), week: r.week, slotId: r.slotId, variantId: String(r.variantId) }));
+    const engineVariants: Variant[] = lib.map((v) => ({ id: String(v.id), name: v.name, lift: v.lift, family: v.family, risk: v.risk as 1 | 2 | 3, specificity: v.specificity, stress: v.stress, equipment: v.equipment }));
+    const violations = checkPlan(
+      {
+        variants: engineVariants,
+        slots: toEngineSlots(rules),
+        rules: toEngineRules(rules, stored!.seed),
+        weeks,
+        athletes: roster.map((a) => ({
+          id: String(a.id),
+          equipment: a.equipment,
+          restrictions: limits.filter((l) => l.athleteId === a.id).map((l) => ({ joint: l.joint, maxStress: l.maxStress })),
+          history: [],
+        })),
+      },
+      entries,
+    );
+    expect(violations).toEqual([]);
+  });
+
+  it('logs top sets for the past weeks only, and bodyweights up to now', async () => {
+    const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
+    const sets = await database.db.select().from(topSets).where(eq(topSets.teamId, club!.id));
+    const setWeeks = new Set(sets.map((s) => s.week));
+    expect(setWeeks.size).toBe(12);
+    expect(setWeeks.has(thisWeek)).toBe(false);
+    for (const s of sets) expect(s.e1rmKg).toBeGreaterThanOrEqual(s.weightKg);
+    const weights = await database.db.select().from(bodyweights).where(eq(bodyweights.teamId, club!.id));
+    expect(weights.length).toBeGreaterThan(12 * 2 * 10);
+    const latest = weights.map((w) => w.measuredOn).sort().at(-1)!;
+    expect(latest < today.toISOString().slice(0, 10)).toBe(true);
+  });
+});
