@@ -2,6 +2,7 @@
 // day of seeding: the history ends last week and the current week is already planned.
 import { sql } from 'drizzle-orm';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
+import { weightClass } from '../../../shared/calc';
 import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
 import type { Db, Tx } from '../client';
 import { hashPassword } from '../../lib/passwords';
@@ -134,6 +135,7 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
           teamId,
           meetId: meet!.id,
           athleteId: athleteIds.get(a.key)!,
+          weightClass: weightClass(a.bodyweight, a.sex, { division: a.division }),
           division: a.division,
           attempts: {},
         });
