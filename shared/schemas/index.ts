@@ -2,3 +2,4 @@
 export * from './common';
 export * from './auth';
 export * from './rules';
+export * from './training';

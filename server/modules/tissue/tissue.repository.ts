@@ -1,0 +1,145 @@
+// SQL for connective-tissue prescriptions and check-ins, and the few facts their generation reads
+// (team rules, the next meet, the week's max-effort picks). Every query is scoped to the team.
+import { and, asc, desc, eq, gt, gte, isNotNull, lt, sql } from 'drizzle-orm';
+import type { Joint, Variant } from '../../../shared/engine/types';
+import type { TissueKind, TissuePrescription } from '../../../shared/engine/tissue';
+import type { Queryable } from '../../db/client';
+import {
+  meetEntries,
+  meets,
+  planEntries,
+  teamRules,
+  tissueCheckins,
+  tissuePrescriptions,
+  variants,
+} from '../../db/schema';
+
+export async function findTeamRulesRow(db: Queryable, teamId: number) {
+  const [row] = await db.select().from(teamRules).where(eq(teamRules.teamId, teamId)).limit(1);
+  return row ?? null;
+}
+
+export async function findPrescription(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const [row] = await db
+    .select()
+    .from(tissuePrescriptions)
+    .where(
+      and(
+        eq(tissuePrescriptions.teamId, teamId),
+        eq(tissuePrescriptions.athleteId, athleteId),
+        eq(tissuePrescriptions.week, week),
+      ),
+    )
+    .limit(1);
+  return row ? { ...row, items: row.items as TissuePrescription[] } : null;
+}
+
+/** Stored prescriptions of the weeks before `week`, oldest first. */
+export async function listPrescriptionsBefore(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const rows = await db
+    .select({ week: tissuePrescriptions.week, items: tissuePrescriptions.items })
+    .from(tissuePrescriptions)
+    .where(
+      and(
+        eq(tissuePrescriptions.teamId, teamId),
+        eq(tissuePrescriptions.athleteId, athleteId),
+        lt(tissuePrescriptions.week, week),
+      ),
+    )
+    .orderBy(asc(tissuePrescriptions.week));
+  return rows.map((r) => ({ week: r.week, items: r.items as TissuePrescription[] }));
+}
+
+/**
+ * Stores a week's prescription unless one is there already (two requests generating the same week at
+ * once compute the same thing; the first write wins and both read it back).
+ */
+export async function insertPrescriptionIfAbsent(
+  db: Queryable,
+  row: { teamId: number; athleteId: number; week: string; items: TissuePrescription[] },
+) {
+  await db
+    .insert(tissuePrescriptions)
+    .values(row)
+    .onDuplicateKeyUpdate({ set: { id: sql`${tissuePrescriptions.id}` } });
+}
+
+/** Drops stored prescriptions after both weeks, so they are generated again with newer check-ins. */
+export async function deletePrescriptionsAfter(db: Queryable, teamId: number, athleteId: number, week: string) {
+  await db
+    .delete(tissuePrescriptions)
+    .where(
+      and(
+        eq(tissuePrescriptions.teamId, teamId),
+        eq(tissuePrescriptions.athleteId, athleteId),
+        gt(tissuePrescriptions.week, week),
+      ),
+    );
+}
+
+export async function listCheckins(db: Queryable, teamId: number, athleteId: number, opts: { limit?: number } = {}) {
+  const q = db
+    .select()
+    .from(tissueCheckins)
+    .where(and(eq(tissueCheckins.teamId, teamId), eq(tissueCheckins.athleteId, athleteId)))
+    .orderBy(desc(tissueCheckins.week), desc(tissueCheckins.createdAt), desc(tissueCheckins.id));
+  const rows = opts.limit ? await q.limit(opts.limit) : await q;
+  return rows.map((r) => ({ ...r, painJoints: r.painJoints as Joint[] }));
+}
+
+export async function insertCheckin(
+  db: Queryable,
+  row: {
+    teamId: number;
+    athleteId: number;
+    week: string;
+    kind: TissueKind;
+    soreness: number;
+    painJoints: Joint[];
+    note: string | null;
+  },
+) {
+  const [res] = await db.insert(tissueCheckins).values(row).$returningId();
+  const [saved] = await db.select().from(tissueCheckins).where(eq(tissueCheckins.id, res!.id));
+  return { ...saved!, painJoints: saved!.painJoints as Joint[] };
+}
+
+/** The date of the athlete's next meet on or after `fromDate`, if any. */
+export async function findNextMeet(db: Queryable, teamId: number, athleteId: number, fromDate: string) {
+  const [row] = await db
+    .select({
+      id: meets.id,
+      name: meets.name,
+      date: meets.date,
+      weightClass: meetEntries.weightClass,
+      division: meetEntries.division,
+    })
+    .from(meetEntries)
+    .innerJoin(meets, and(eq(meets.id, meetEntries.meetId), eq(meets.teamId, teamId)))
+    .where(and(eq(meetEntries.teamId, teamId), eq(meetEntries.athleteId, athleteId), gte(meets.date, fromDate)))
+    .orderBy(asc(meets.date), asc(meets.id))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Joint stress of the variants picked for the athlete's max-effort slots that week. */
+export async function weekPickStress(
+  db: Queryable,
+  teamId: number,
+  athleteId: number,
+  week: string,
+): Promise<Pick<Variant, 'stress'>[]> {
+  const rows = await db
+    .select({ stress: variants.stress })
+    .from(planEntries)
+    .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
+    .where(
+      and(
+        eq(planEntries.teamId, teamId),
+        eq(planEntries.athleteId, athleteId),
+        eq(planEntries.week, week),
+        isNotNull(planEntries.variantId),
+      ),
+    );
+  return rows.map((r) => ({ stress: r.stress }));
+}
