@@ -38,6 +38,8 @@ const schema = z.object({
   S3_BUCKET: z.string().default('rackturn-videos'),
   S3_ACCESS_KEY_ID: z.string().default(''),
   S3_SECRET_ACCESS_KEY: z.string().default(''),
+  /** Largest video upload accepted, in bytes (200 MB). */
+  VIDEO_MAX_BYTES: z.coerce.number().int().positive().default(200 * 1024 * 1024),
   PAYMENTS_HOST: z.string().default(''),
   PAYMENTS_PORT: z.coerce.number().int().default(4403),
   PAYMENTS_PROTOCOL: z.enum(['http', 'https']).default('https'),

@@ -2,13 +2,19 @@
 // Each talks to the real service through its SDK, or to the local stand-in on loopback.
 import type { Env } from '../config/env';
 import type { Logger } from '../lib/logger';
+import { createStorage, type Storage } from './storage';
 
 // Each service adds its adapter here.
-export interface Services {}
+export interface Services {
+  /** Uploaded videos in object storage. */
+  storage: Storage;
+}
 
-export function createServices(_env: Env, _logger: Logger): Services {
-  return {};
+export function createServices(env: Env, _logger: Logger): Services {
+  return { storage: createStorage(env) };
 }
 
 /** Stops background work (outbox senders and the like) on shutdown. */
-export async function stopServices(_services: Services): Promise<void> {}
+export async function stopServices(services: Services): Promise<void> {
+  services.storage.close();
+}
