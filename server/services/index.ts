@@ -2,19 +2,26 @@
 // Each talks to the real service through its SDK, or to the local stand-in on loopback.
 import type { Env } from '../config/env';
 import type { Logger } from '../lib/logger';
+import { createMailService, type MailService } from './mail';
 import { createStorage, type Storage } from './storage';
 
 // Each service adds its adapter here.
 export interface Services {
+  /** Outgoing e-mail: queued in the outbox, delivered over SMTP by a sender loop. */
+  mail: MailService;
   /** Uploaded videos in object storage. */
   storage: Storage;
 }
 
-export function createServices(env: Env, _logger: Logger): Services {
-  return { storage: createStorage(env) };
+export function createServices(env: Env, logger: Logger): Services {
+  return {
+    mail: createMailService(env, logger),
+    storage: createStorage(env),
+  };
 }
 
 /** Stops background work (outbox senders and the like) on shutdown. */
 export async function stopServices(services: Services): Promise<void> {
+  await services.mail.stop();
   services.storage.close();
 }

@@ -443,7 +443,7 @@ export function cellViolations(
   }
   const taper = taperAt(ctx, ath, w);
   if (taper) {
-    const when = W.meetDistance(taper.d);
+    const when = W.meetWhen(taper.d);
     if (x.risk > taper.maxRisk)
       push('taperRisk', `${x.name} has risk ${x.risk}, above the limit of ${taper.maxRisk} ${when}`);
     if (x.specificity < taper.minSpec - EPS) {

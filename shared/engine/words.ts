@@ -51,3 +51,8 @@ export function span(first: string, last: string): string {
 export function meetDistance(d: number): string {
   return d === 0 ? 'in the meet week' : `${weeks(d)} out from the meet`;
 }
+
+/** The same, to end a sentence: "in the meet week", "at 2 weeks out from the meet". */
+export function meetWhen(d: number): string {
+  return d === 0 ? meetDistance(d) : `at ${meetDistance(d)}`;
+}

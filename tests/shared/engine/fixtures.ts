@@ -223,3 +223,186 @@ export function smallCase(seed: number): PlanRequest {
   athlete.equipment = [...EQUIPMENT];
   return { variants, slots, athletes: [athlete], rules, weeks, planned: [] };
 }
+
+/** A small invented library with the trade's ordinary exercise names, for worked examples. */
+export const HAND_LIBRARY: Variant[] = [
+  {
+    id: 'box-ssb',
+    name: 'Box squat, parallel box, safety bar',
+    lift: 'squat',
+    family: 'box-squat',
+    risk: 2,
+    specificity: 0.7,
+    stress: { knee: 1, hip: 2, lowerBack: 2 },
+    equipment: ['safety bar', 'box'],
+    emphasis: 'bottom',
+    bar: 'safety bar',
+  },
+  {
+    id: 'box-low',
+    name: 'Box squat, low box',
+    lift: 'squat',
+    family: 'box-squat',
+    risk: 2,
+    specificity: 0.75,
+    stress: { knee: 2, hip: 2, lowerBack: 1 },
+    equipment: ['box'],
+    emphasis: 'bottom',
+    bar: 'straight bar',
+  },
+  {
+    id: 'pause-squat',
+    name: 'Pause squat',
+    lift: 'squat',
+    family: 'pause-squat',
+    risk: 1,
+    specificity: 0.9,
+    stress: { knee: 2, hip: 1, lowerBack: 1 },
+    equipment: [],
+    emphasis: 'bottom',
+    bar: 'straight bar',
+  },
+  {
+    id: 'gm-cambered',
+    name: 'Good morning, cambered bar',
+    lift: 'squat',
+    family: 'good-morning',
+    risk: 3,
+    specificity: 0.3,
+    stress: { lowerBack: 3, hip: 3 },
+    equipment: ['cambered bar'],
+    emphasis: 'midRange',
+    bar: 'cambered bar',
+  },
+  {
+    id: 'rack-pull',
+    name: 'Rack pull, below the knee',
+    lift: 'deadlift',
+    family: 'rack-pull',
+    risk: 2,
+    specificity: 0.5,
+    stress: { lowerBack: 2, hip: 1 },
+    equipment: ['pins'],
+    emphasis: 'lockout',
+    bar: 'straight bar',
+  },
+  {
+    id: 'deficit-pull',
+    name: 'Deficit deadlift, 5 cm',
+    lift: 'deadlift',
+    family: 'deficit-pull',
+    risk: 3,
+    specificity: 0.8,
+    stress: { lowerBack: 3, hip: 2, knee: 1 },
+    equipment: ['blocks'],
+    emphasis: 'bottom',
+    bar: 'straight bar',
+  },
+  {
+    id: 'paused-pull',
+    name: 'Paused deadlift',
+    lift: 'deadlift',
+    family: 'paused-pull',
+    risk: 1,
+    specificity: 0.95,
+    stress: { lowerBack: 2, hip: 2 },
+    equipment: [],
+    emphasis: 'midRange',
+    bar: 'straight bar',
+  },
+  {
+    id: 'floor-press',
+    name: 'Floor press',
+    lift: 'bench',
+    family: 'floor-press',
+    risk: 1,
+    specificity: 0.6,
+    stress: { elbow: 2, wrist: 1 },
+    equipment: [],
+    emphasis: 'lockout',
+    bar: 'straight bar',
+  },
+  {
+    id: 'board-2',
+    name: 'Two-board press, close grip',
+    lift: 'bench',
+    family: 'board-press',
+    risk: 2,
+    specificity: 0.65,
+    stress: { elbow: 3, wrist: 2, shoulder: 1 },
+    equipment: ['boards'],
+    emphasis: 'lockout',
+    bar: 'straight bar',
+  },
+  {
+    id: 'pin-press',
+    name: 'Pin press, chest height',
+    lift: 'bench',
+    family: 'pin-press',
+    risk: 2,
+    specificity: 0.7,
+    stress: { shoulder: 2, elbow: 1 },
+    equipment: ['pins'],
+    emphasis: 'bottom',
+    bar: 'straight bar',
+  },
+  {
+    id: 'long-pause-bench',
+    name: 'Long-pause bench',
+    lift: 'bench',
+    family: 'pause-bench',
+    risk: 1,
+    specificity: 0.95,
+    stress: { shoulder: 2, elbow: 1, wrist: 1 },
+    equipment: [],
+    emphasis: 'bottom',
+    bar: 'straight bar',
+  },
+  {
+    id: 'reverse-band-bench',
+    name: 'Reverse-band bench',
+    lift: 'bench',
+    family: 'band-bench',
+    risk: 3,
+    specificity: 0.6,
+    stress: { shoulder: 1, elbow: 2, wrist: 2 },
+    equipment: ['bands'],
+    emphasis: 'lockout',
+    bar: 'straight bar',
+  },
+];
+
+export const ALL_GEAR = ['safety bar', 'box', 'cambered bar', 'pins', 'blocks', 'boards', 'bands'];
+
+/** Rules that switch every rule off, for examples that turn on one rule at a time. */
+export function quietRules(extra: Partial<Rules> = {}): Rules {
+  return {
+    repeatWindowWeeks: 0,
+    familyWindowWeeks: 0,
+    jointWindowWeeks: 4,
+    jointBudget: {},
+    taper: [],
+    seed: 'example',
+    ...extra,
+  };
+}
+
+export function athlete(extra: Partial<AthleteInput> = {}): AthleteInput {
+  return { id: 'nora', equipment: [...ALL_GEAR], restrictions: [], history: [], ...extra };
+}
+
+export function entry(week: string, slotId: string, variantId: string, extra: Partial<PlanEntry> = {}): PlanEntry {
+  return { athleteId: 'nora', week, slotId, variantId, ...extra };
+}
+
+export function handRequest(extra: Partial<PlanRequest> = {}): PlanRequest {
+  return {
+    variants: HAND_LIBRARY,
+    slots: TWO_SLOTS,
+    athletes: [athlete()],
+    rules: quietRules(),
+    weeks: ['2027-W03'],
+    planned: [],
+    ...extra,
+  };
+}
