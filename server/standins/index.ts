@@ -1,5 +1,6 @@
 // Local stand-ins for hosted services (mail, object storage, payments), on loopback, in one process.
 // Started by `npm start` and `npm test`; ports and folders come from the environment.
+import { startSmtpStandIn } from './smtp';
 import { startS3StandIn } from './s3';
 
 export interface StandIn {
@@ -10,7 +11,7 @@ export interface StandIn {
 type Starter = (env: NodeJS.ProcessEnv) => Promise<StandIn>;
 
 /** Each hosted service's stand-in, started in this order. */
-export const standIns: Starter[] = [startS3StandIn];
+export const standIns: Starter[] = [startSmtpStandIn, startS3StandIn];
 
 export async function startStandIns(env: NodeJS.ProcessEnv = process.env): Promise<StandIn[]> {
   const started: StandIn[] = [];
