@@ -2,6 +2,7 @@
 // Started by `npm start` and `npm test`; ports and folders come from the environment.
 import { startSmtpStandIn } from './smtp';
 import { startS3StandIn } from './s3';
+import { startPaymentsStandIn } from './payments';
 
 export interface StandIn {
   name: string;
@@ -11,7 +12,7 @@ export interface StandIn {
 type Starter = (env: NodeJS.ProcessEnv) => Promise<StandIn>;
 
 /** Each hosted service's stand-in, started in this order. */
-export const standIns: Starter[] = [startSmtpStandIn, startS3StandIn];
+export const standIns: Starter[] = [startSmtpStandIn, startS3StandIn, startPaymentsStandIn];
 
 export async function startStandIns(env: NodeJS.ProcessEnv = process.env): Promise<StandIn[]> {
   const started: StandIn[] = [];
