@@ -3,3 +3,5 @@ export * from './common';
 export * from './auth';
 export * from './rules';
 export * from './training';
+export * from './invitations';
+export * from './mail';
