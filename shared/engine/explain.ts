@@ -132,13 +132,13 @@ function softWarnings(ctx: Ctx, board: Board, w: number, slotId: string, v: numb
   if (ctx.R > 1) {
     const u = nearest(board.vUses[v], w, ctx.R + 2);
     if (u !== undefined && Math.abs(u - w) >= ctx.R) {
-      out.push(`${x.name} is also in ${ws(u)}, just outside the ${W.weeks(ctx.R)} repeat window`);
+      out.push(`${x.name} is also in ${ws(u)}, just outside the ${ctx.R}-week repeat window`);
     }
   }
   if (ctx.F > 0) {
     const u = nearest(board.fUses[ctx.fam[v]!], w, ctx.F + 2);
     if (u !== undefined && Math.abs(u - w) >= ctx.F) {
-      out.push(`the ${x.family} family is also in ${ws(u)}, just outside its ${W.weeks(ctx.F)} window`);
+      out.push(`the ${x.family} family is also in ${ws(u)}, just outside its ${ctx.F}-week window`);
     }
   }
   const slot = ctx.slots.get(slotId);

@@ -1,0 +1,38 @@
+// The planner against an exhaustive search on small cases: it must find a complete plan whenever one
+// exists, with a peak joint load ratio close to the best possible.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { checkPlan, generatePlan, peakLoadRatio } from '../../../shared/engine/index';
+import { exhaustive } from './exhaustive';
+import { smallCase } from './fixtures';
+
+describe('planning ahead on small cases', () => {
+  it('leaves nothing unfilled whenever some complete rule-clean plan exists', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 2 ** 31 - 1 }), (seed) => {
+        const req = smallCase(seed);
+        const ex = exhaustive(req);
+        const res = generatePlan(req);
+        expect(checkPlan(req, res.entries)).toEqual([]);
+        if (ex.feasible) expect(res.unfilled).toEqual([]);
+        else expect(res.unfilled.length).toBeGreaterThan(0);
+      }),
+      { numRuns: 400 },
+    );
+  });
+
+  it('reaches a peak joint load ratio within 10% of the optimum in at least 95% of cases', () => {
+    const gaps: number[] = [];
+    for (let seed = 5000; gaps.length < 300; seed++) {
+      const req = smallCase(seed);
+      const ex = exhaustive(req);
+      if (!ex.feasible) continue;
+      const res = generatePlan(req);
+      const peak = peakLoadRatio(req, req.athletes[0]!.id, res.entries);
+      expect(peak).toBeGreaterThanOrEqual(ex.bestPeak - 1e-9); // the optimum really is a lower bound
+      gaps.push(ex.bestPeak > 0 ? (peak - ex.bestPeak) / ex.bestPeak : peak);
+    }
+    const within = gaps.filter((g) => g <= 0.1 + 1e-9).length / gaps.length;
+    expect(within).toBeGreaterThanOrEqual(0.95);
+  });
+});
