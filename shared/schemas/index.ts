@@ -3,5 +3,7 @@ export * from './common';
 export * from './auth';
 export * from './rules';
 export * from './training';
+export * from './my-week';
+export * from './videos';
 export * from './invitations';
 export * from './mail';

@@ -99,9 +99,10 @@ export const topSetListQuery = z.object({
 
 export const MAX_BODYWEIGHT = { kg: 300, lb: 660 } as const;
 
+export const bodyweightDateParams = z.object({ measuredOn: isoDate });
+
 export const logBodyweightBody = z
   .object({
-    measuredOn: isoDate,
     unit: unitSchema,
     weight: weightInput,
   })

@@ -2,7 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import type { Db } from '../../server/db/client';
-import { athletes, memberships, teamRules, teams, users, variants } from '../../server/db/schema';
+import { athletes, memberships, planEntries, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { TEST_PASSWORD } from './app';
 
@@ -77,3 +77,54 @@ export async function createTeam(db: Db, name = `Team ${uniq()}`) {
   return { teamId, name, headCoach, coach, athleteUser, athleteId };
 }
 export type TestTeam = Awaited<ReturnType<typeof createTeam>>;
+
+/** A plan entry (one athlete × week × slot) holding a variant. */
+export async function createPlanEntry(
+  db: Db,
+  teamId: number,
+  athleteId: number,
+  variantId: number,
+  overrides: Partial<typeof planEntries.$inferInsert> = {},
+) {
+  const [p] = await db
+    .insert(planEntries)
+    .values({
+      teamId,
+      athleteId,
+      variantId,
+      week: '2026-W10',
+      slotId: 'lower',
+      source: 'engine',
+      reasons: [],
+      ...overrides,
+    })
+    .$returningId();
+  return p!.id;
+}
+
+/** A logged top set; the e1RM is Epley's on the reps done unless given. */
+export async function createTopSet(
+  db: Db,
+  teamId: number,
+  athleteId: number,
+  variantId: number,
+  overrides: Partial<typeof topSets.$inferInsert> = {},
+) {
+  const weightKg = overrides.weightKg ?? 100;
+  const reps = overrides.reps ?? 1;
+  const [s] = await db
+    .insert(topSets)
+    .values({
+      teamId,
+      athleteId,
+      variantId,
+      week: '2026-W10',
+      performedOn: '2026-03-04',
+      weightKg,
+      reps,
+      e1rmKg: Math.round(weightKg * (reps === 1 ? 1 : 1 + reps / 30) * 100) / 100,
+      ...overrides,
+    })
+    .$returningId();
+  return s!.id;
+}

@@ -76,7 +76,7 @@ async function tissueInput(db: Queryable, teamId: number, athleteId: number, wee
 
 /**
  * The athlete's connective-tissue work for `week`: the stored prescription, or a new one generated and
- * stored (one per athlete and week). Notes and coach suggestions are worked out from what is known now.
+ * stored (one per athlete and week; weeks already over are generated but not stored). Notes and coach suggestions are worked out from what is known now.
  * Throws NotFoundError when the athlete is not on that team.
  */
 export async function tissueWorkFor(
@@ -84,13 +84,15 @@ export async function tissueWorkFor(
   teamId: number,
   athleteId: number,
   week: string,
+  today = new Date(),
 ): Promise<TissueWorkWeek> {
   const db = dbOf(source);
   if (!(await findTeamAthlete(db, teamId, athleteId))) throw new NotFoundError('That athlete');
   const input = await tissueInput(db, teamId, athleteId, week);
   const fresh = prescribeTissueWork(input);
   let stored = await findPrescription(db, teamId, athleteId, week);
-  if (!stored) {
+  // A week already over is shown as it would have been, but not written into the athlete's history.
+  if (!stored && week >= weekOfDate(today)) {
     await insertPrescriptionIfAbsent(db, { teamId, athleteId, week, items: fresh.items });
     stored = await findPrescription(db, teamId, athleteId, week);
   }
@@ -145,7 +147,7 @@ export async function recordCheckin(
       week: [`Check-ins reach back at most ${CHECKIN_LOOKBACK_WEEKS} weeks`],
     });
   }
-  const work = await tissueWorkFor(ctx, teamId, athleteId, body.week);
+  const work = await tissueWorkFor(ctx, teamId, athleteId, body.week, today);
   if (!work.kind) {
     throw new ValidationError('Some fields need attention.', {
       week: ['There was no connective-tissue work that week to report on'],

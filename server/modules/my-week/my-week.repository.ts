@@ -1,0 +1,33 @@
+// SQL for the athlete's week: the max-effort picks on the board for that week, with their variants.
+import { and, asc, eq, isNotNull } from 'drizzle-orm';
+import type { Queryable } from '../../db/client';
+import { planEntries, variants } from '../../db/schema';
+
+export async function weekPicks(db: Queryable, teamId: number, athleteId: number, week: string) {
+  return db
+    .select({
+      planEntryId: planEntries.id,
+      slotId: planEntries.slotId,
+      variant: {
+        id: variants.id,
+        name: variants.name,
+        lift: variants.lift,
+        family: variants.family,
+        bar: variants.bar,
+        specificity: variants.specificity,
+        scheme: variants.scheme,
+        notes: variants.notes,
+      },
+    })
+    .from(planEntries)
+    .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
+    .where(
+      and(
+        eq(planEntries.teamId, teamId),
+        eq(planEntries.athleteId, athleteId),
+        eq(planEntries.week, week),
+        isNotNull(planEntries.variantId),
+      ),
+    )
+    .orderBy(asc(planEntries.slotId));
+}

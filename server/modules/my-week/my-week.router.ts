@@ -1,0 +1,33 @@
+// /api/my-week and /api/my-history: the athlete's own week and history pages.
+import { Router } from 'express';
+import { myWeekQuery } from '../../../shared/schemas';
+import type { AppContext } from '../../context';
+import { ATHLETE, authOf, requireRole } from '../../middleware/auth';
+import { validate } from '../../middleware/validate';
+import { historyOf } from '../top-sets/history.service';
+import { myWeek } from './my-week.service';
+import { ownAthleteId } from './whose';
+
+export function myWeekRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get(
+    '/my-week',
+    requireRole(ATHLETE),
+    validate({ query: myWeekQuery }, ({ query }, req) => {
+      const auth = authOf(req);
+      return myWeek(ctx, { teamId: auth.teamId, athleteId: ownAthleteId(req), unit: auth.unit }, query.week);
+    }),
+  );
+
+  router.get(
+    '/my-history',
+    requireRole(ATHLETE),
+    validate({}, async (_input, req) => {
+      const auth = authOf(req);
+      return { unit: auth.unit, ...(await historyOf(ctx.database.db, auth.teamId, ownAthleteId(req))) };
+    }),
+  );
+
+  return router;
+}

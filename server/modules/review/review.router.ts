@@ -1,0 +1,45 @@
+// /api/athletes/:id/review: what a coach reviews on the athlete's page — tissue suggestions and
+// check-ins, videos with comments, records per variant and the e1RM and bodyweight series.
+import { Router } from 'express';
+import { weekOfDate } from '../../../shared/engine/weeks';
+import { idParams, type AthleteReview } from '../../../shared/schemas';
+import type { AppContext } from '../../context';
+import { STAFF, authOf, requireRole } from '../../middleware/auth';
+import { validate } from '../../middleware/validate';
+import { NotFoundError } from '../../lib/errors';
+import { findTeamAthlete } from '../my-week/athlete.repository';
+import { recentCheckins, tissueSuggestionsFor } from '../tissue/tissue.service';
+import { historyOf } from '../top-sets/history.service';
+import { athleteVideos } from '../videos/videos.service';
+
+export function reviewRouter(ctx: AppContext): Router {
+  const router = Router();
+  const db = ctx.database.db;
+
+  router.get(
+    '/athletes/:id/review',
+    requireRole(STAFF),
+    validate({ params: idParams }, async ({ params }, req): Promise<AthleteReview> => {
+      const { teamId } = authOf(req);
+      const athlete = await findTeamAthlete(db, teamId, params.id);
+      if (!athlete) throw new NotFoundError('That athlete');
+      const week = weekOfDate(new Date());
+      const [suggestions, checkins, videos, history] = await Promise.all([
+        tissueSuggestionsFor(db, teamId, athlete.id, week),
+        recentCheckins(db, teamId, athlete.id, 12),
+        athleteVideos(db, teamId, athlete.id),
+        historyOf(db, teamId, athlete.id),
+      ]);
+      return {
+        athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
+        week,
+        suggestions,
+        checkins,
+        videos,
+        ...history,
+      };
+    }),
+  );
+
+  return router;
+}
