@@ -2,6 +2,10 @@
 import type { Router } from 'express';
 import type { AppContext } from '../context';
 import { authRouter } from './auth/auth.router';
+import { emailRouter } from './email/email.router';
+import { invitationsRouter } from './invitations/invitations.router';
+import { passwordResetRouter } from './password-reset/password-reset.router';
+import { publishingRouter } from './publishing/publishing.router';
 import { bodyweightsRouter } from './bodyweights/bodyweights.router';
 import { myWeekRouter } from './my-week/my-week.router';
 import { reviewRouter } from './review/review.router';
@@ -11,6 +15,10 @@ import { videosRouter } from './videos/videos.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
+  passwordResetRouter,
+  invitationsRouter,
+  publishingRouter,
+  emailRouter,
   myWeekRouter,
   topSetsRouter,
   videosRouter,

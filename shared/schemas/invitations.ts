@@ -58,6 +58,7 @@ export const listInvitationsQuery = listQuery.extend({
   sort: z.enum(INVITATION_SORTS).default('-createdAt'),
 });
 export type ListInvitationsQuery = z.input<typeof listInvitationsQuery>;
+export type ListInvitationsParams = z.output<typeof listInvitationsQuery>;
 
 /** Roster entries without an account and without an open invitation: what an athlete invitation can link. */
 export const linkableAthleteSchema = z.object({ id: z.number(), name: z.string() });

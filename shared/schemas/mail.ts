@@ -36,4 +36,5 @@ export const publicationSchema = z.object({
 });
 export type Publication = z.infer<typeof publicationSchema>;
 
-export const unsubscribeQuery = z.object({ token: z.string().trim().min(16).max(2000) });
+/** Lenient on purpose: a broken link gets a readable page rather than a JSON error. */
+export const unsubscribeQuery = z.object({ token: z.string().trim().max(2000).default('') });

@@ -1,0 +1,67 @@
+// /api/auth/password-reset: ask for a reset link, check a link, and set the new password with it.
+import { Router } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { forgotPasswordBody, resetPasswordBody, resetTokenQuery } from '../../../shared/schemas';
+import type { AppContext } from '../../context';
+import { validate } from '../../middleware/validate';
+import { AppError } from '../../lib/errors';
+import { setSessionCookie } from '../../lib/session';
+import { RESET_REQUESTED, checkResetToken, completeReset, requestReset } from './password-reset.service';
+
+/** Every request answers after at least this long, so its timing does not tell whether the address is known. */
+export const RESET_ANSWER_FLOOR_MS = 300;
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+function resetLimiters(ctx: AppContext) {
+  const common = {
+    windowMs: 15 * 60 * 1000,
+    standardHeaders: 'draft-8' as const,
+    legacyHeaders: false,
+    handler: () => {
+      throw new AppError(429, 'too_many_attempts', 'Too many reset requests. Wait a few minutes and try again.');
+    },
+  };
+  return [
+    rateLimit({ ...common, limit: ctx.env.RESET_LIMIT_PER_IP }),
+    rateLimit({
+      ...common,
+      limit: ctx.env.RESET_LIMIT_PER_ADDRESS,
+      keyGenerator: (req) =>
+        `reset:${String(req.body?.email ?? '')
+          .trim()
+          .toLowerCase()}`,
+    }),
+  ];
+}
+
+export function passwordResetRouter(ctx: AppContext): Router {
+  const router = Router();
+
+  router.post(
+    '/auth/password-reset',
+    ...resetLimiters(ctx),
+    validate({ body: forgotPasswordBody }, async ({ body }) => {
+      const started = Date.now();
+      await requestReset(ctx, body.email);
+      await sleep(Math.max(0, RESET_ANSWER_FLOOR_MS - (Date.now() - started)));
+      return { ok: true, message: RESET_REQUESTED };
+    }),
+  );
+
+  router.get(
+    '/auth/password-reset/check',
+    validate({ query: resetTokenQuery }, ({ query }) => checkResetToken(ctx, query.token)),
+  );
+
+  router.post(
+    '/auth/password-reset/complete',
+    validate({ body: resetPasswordBody }, async ({ body }, req, res) => {
+      const done = await completeReset(ctx, body.token, body.password);
+      if (done.membership) setSessionCookie(req, res, await ctx.sessions.sign(done.userId, done.membership.teamId));
+      return { ok: true, signedIn: Boolean(done.membership) };
+    }),
+  );
+
+  return router;
+}

@@ -1,0 +1,91 @@
+// SQL for publishing a week: the publication row, who receives the weekly e-mail, their picks, and how
+// far the e-mails of a publication have got.
+import { and, asc, eq, inArray, isNull, like, sql } from 'drizzle-orm';
+import type { Queryable } from '../../db/client';
+import {
+  athletes,
+  memberships,
+  outbox,
+  planEntries,
+  teamRules,
+  users,
+  variants,
+  weekPublications,
+} from '../../db/schema';
+
+export async function findPublication(db: Queryable, teamId: number, week: string) {
+  const [row] = await db
+    .select({
+      id: weekPublications.id,
+      publishedAt: weekPublications.publishedAt,
+      publishedByName: users.name,
+    })
+    .from(weekPublications)
+    .leftJoin(users, eq(users.id, weekPublications.publishedBy))
+    .where(and(eq(weekPublications.teamId, teamId), eq(weekPublications.week, week)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Records the publication; false when the week was already published (by anyone, at any time). */
+export async function insertPublication(db: Queryable, teamId: number, week: string, userId: number) {
+  const [res] = await db
+    .insert(weekPublications)
+    .values({ teamId, week, publishedBy: userId })
+    .onDuplicateKeyUpdate({ set: { week: sql`${weekPublications.week}` } });
+  return res.affectedRows === 1;
+}
+
+/** Athletes of the team with an account in it and the weekly e-mail switched on. */
+export async function weeklyRecipients(db: Queryable, teamId: number) {
+  return db
+    .select({
+      athleteId: athletes.id,
+      athleteName: athletes.name,
+      userId: users.id,
+      email: users.email,
+    })
+    .from(athletes)
+    .innerJoin(users, eq(users.id, athletes.userId))
+    .innerJoin(
+      memberships,
+      and(eq(memberships.userId, users.id), eq(memberships.teamId, teamId), eq(memberships.role, 'athlete')),
+    )
+    .where(and(eq(athletes.teamId, teamId), isNull(athletes.archivedAt), eq(users.weeklyEmail, true)))
+    .orderBy(asc(athletes.name));
+}
+
+/** The week's max-effort picks of these athletes, with the variant behind each. */
+export async function weekPicks(db: Queryable, teamId: number, week: string, athleteIds: number[]) {
+  if (athleteIds.length === 0) return [];
+  return db
+    .select({
+      athleteId: planEntries.athleteId,
+      slotId: planEntries.slotId,
+      variantName: variants.name,
+      scheme: variants.scheme,
+      notes: variants.notes,
+    })
+    .from(planEntries)
+    .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
+    .where(and(eq(planEntries.teamId, teamId), eq(planEntries.week, week), inArray(planEntries.athleteId, athleteIds)));
+}
+
+export async function teamRulesOf(db: Queryable, teamId: number) {
+  const [row] = await db.select({ rules: teamRules.rules }).from(teamRules).where(eq(teamRules.teamId, teamId));
+  return row?.rules ?? null;
+}
+
+export const weeklyDedupePrefix = (teamId: number, week: string) => `weekly:${teamId}:${week}:`;
+
+/** Delivered and waiting e-mails of one publication. */
+export async function deliveryCounts(db: Queryable, teamId: number, week: string) {
+  const [row] = await db
+    .select({
+      sent: sql<number>`coalesce(sum(${outbox.sentAt} is not null), 0)`,
+      queued: sql<number>`coalesce(sum(${outbox.sentAt} is null), 0)`,
+    })
+    .from(outbox)
+    .where(and(eq(outbox.teamId, teamId), like(outbox.dedupeKey, `${weeklyDedupePrefix(teamId, week)}%`)));
+  return { sent: Number(row?.sent ?? 0), queued: Number(row?.queued ?? 0) };
+}
