@@ -1,0 +1,129 @@
+// Connective-tissue work per athlete and week: generated from the team's settings and stored once,
+// check-ins validated and stored, pain turning into a suggestion the coach sees.
+import { beforeAll, describe, expect, it } from 'vitest';
+import type request from 'supertest';
+import { and, eq } from 'drizzle-orm';
+import { DEFAULT_TISSUE_RULES, prescribeTissueWork } from '../../shared/engine/tissue';
+import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
+import { teamRules, tissuePrescriptions } from '../../server/db/schema';
+import { tissueWorkFor } from '../../server/modules/tissue/tissue.service';
+import { useTestApp } from '../support/app';
+import { createPlanEntry, createTeam, createVariant, type TestTeam } from '../support/factories';
+
+const t = useTestApp();
+const thisWeek = weekOfDate(new Date());
+let team: TestTeam;
+let athlete: request.Agent;
+
+beforeAll(async () => {
+  const db = t.ctx.database.db;
+  team = await createTeam(db);
+  // The team works wrists first; this week's pick loads the wrist and the elbow.
+  await db
+    .update(teamRules)
+    .set({
+      rules: {
+        ...DEFAULT_TEAM_RULES,
+        tissue: { ...DEFAULT_TEAM_RULES.tissue, focusJoints: ['wrist', 'knee'] },
+      } as unknown as Record<string, unknown>,
+    })
+    .where(eq(teamRules.teamId, team.teamId));
+  const press = await createVariant(db, team.teamId, { lift: 'bench', stress: { elbow: 3, wrist: 2 } });
+  await createPlanEntry(db, team.teamId, team.athleteId, press, { week: thisWeek, slotId: 'upper' });
+  await createPlanEntry(db, team.teamId, team.athleteId, press, { week: addWeeks(thisWeek, 1), slotId: 'upper' });
+  athlete = await t.signIn(team.athleteUser.email);
+});
+
+describe('tissueWorkFor', () => {
+  it('generates the week from the team settings and the week’s picks, and stores it once', async () => {
+    const db = t.ctx.database.db;
+    const first = await tissueWorkFor(t.ctx, team.teamId, team.athleteId, thisWeek);
+    // The same inputs through the pure module: focus joints first, then the loaded elbow, at most three.
+    const expected = prescribeTissueWork({
+      week: thisWeek,
+      rules: { ...DEFAULT_TISSUE_RULES },
+      history: [],
+      checkins: [],
+      focusJoints: ['wrist', 'knee'],
+      jointLoad: { elbow: 3, wrist: 2 },
+    });
+    expect(first.items).toEqual(expected.items);
+    expect(first.items.map((i) => i.joint)).toEqual(['wrist', 'knee', 'elbow']);
+    expect(first.kind).toBe('highRep');
+    expect(first.notes).toEqual(expect.arrayContaining(['Stop on sharp or unusual pain.']));
+    const again = await tissueWorkFor(db, team.teamId, team.athleteId, thisWeek);
+    expect(again.items).toEqual(first.items);
+    const rows = await db
+      .select()
+      .from(tissuePrescriptions)
+      .where(and(eq(tissuePrescriptions.athleteId, team.athleteId), eq(tissuePrescriptions.week, thisWeek)));
+    expect(rows).toHaveLength(1);
+  });
+
+  it('does not store weeks that are already over, and refuses another team’s athlete', async () => {
+    const other = await createTeam(t.ctx.database.db);
+    const past = await tissueWorkFor(t.ctx, team.teamId, team.athleteId, addWeeks(thisWeek, -5));
+    expect(past.items.length).toBeGreaterThan(0);
+    const rows = await t.ctx.database.db
+      .select()
+      .from(tissuePrescriptions)
+      .where(eq(tissuePrescriptions.week, addWeeks(thisWeek, -5)));
+    expect(rows.filter((r) => r.athleteId === team.athleteId)).toHaveLength(0);
+    await expect(tissueWorkFor(t.ctx, team.teamId, other.athleteId, thisWeek)).rejects.toMatchObject({ status: 404 });
+  });
+});
+
+describe('POST /api/tissue/checkins', () => {
+  it('answers field errors, and refuses a week to come or long gone', async () => {
+    const bad = await athlete
+      .post('/api/tissue/checkins')
+      .send({ week: '2027-W60', soreness: 11, painJoints: ['toe'] });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['painJoints.0', 'soreness', 'week']);
+    const future = await athlete
+      .post('/api/tissue/checkins')
+      .send({ week: addWeeks(thisWeek, 1), soreness: 0, painJoints: [] });
+    expect(future.body.error.fields.week[0]).toMatch(/not come/);
+    const old = await athlete
+      .post('/api/tissue/checkins')
+      .send({ week: addWeeks(thisWeek, -6), soreness: 0, painJoints: [] });
+    expect(old.body.error.fields.week[0]).toMatch(/at most 2 weeks/);
+  });
+
+  it('stores a check-in with the week’s kind, shows it on the week page, and regenerates next week', async () => {
+    const db = t.ctx.database.db;
+    await tissueWorkFor(t.ctx, team.teamId, team.athleteId, addWeeks(thisWeek, 1)); // e.g. generated for an e-mail
+    const res = await athlete
+      .post('/api/tissue/checkins')
+      .send({ week: thisWeek, soreness: 2, painJoints: ['elbow', 'elbow'], note: 'Elbow twinged on the last set' });
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ week: thisWeek, kind: 'highRep', soreness: 2, painJoints: ['elbow'] });
+    const next = await db
+      .select()
+      .from(tissuePrescriptions)
+      .where(
+        and(eq(tissuePrescriptions.athleteId, team.athleteId), eq(tissuePrescriptions.week, addWeeks(thisWeek, 1))),
+      );
+    expect(next).toHaveLength(0);
+    const week = await athlete.get('/api/my-week');
+    expect(week.body.checkins[0]).toMatchObject({ week: thisWeek, kind: 'highRep' });
+    expect(week.body.checkins[0].done[0].note).toBe('Elbow twinged on the last set');
+  });
+
+  it('turns pain on a joint into a suggestion on the coach’s review, and pauses that joint next week', async () => {
+    const coach = await t.signIn(team.coach.email);
+    const review = await coach.get(`/api/athletes/${team.athleteId}/review`);
+    expect(review.status).toBe(200);
+    expect(review.body.suggestions).toEqual([
+      expect.objectContaining({
+        joint: 'elbow',
+        message: expect.stringMatching(/Consider adding a restriction on the elbow/),
+      }),
+    ]);
+    expect(review.body.checkins[0]).toMatchObject({ painJoints: ['elbow'] });
+    const next = await tissueWorkFor(t.ctx, team.teamId, team.athleteId, addWeeks(thisWeek, 1));
+    expect(next.items.map((i) => i.joint)).not.toContain('elbow');
+    expect(next.notes.join(' ')).toMatch(/No work on the elbow this week/);
+  });
+});
