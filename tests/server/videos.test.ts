@@ -174,11 +174,9 @@ describe('POST /api/top-sets/:id/video', () => {
   });
 });
 
-function binary(
-  res: NodeJS.ReadableStream & { setEncoding(e: string): void },
-  cb: (err: Error | null, body: Buffer) => void,
-) {
+/** Collects a response body as bytes (supertest would otherwise try to read video as text). */
+const binary = ((res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
   res.on('data', (c: Buffer) => chunks.push(c));
   res.on('end', () => cb(null, Buffer.concat(chunks)));
-}
+}) as unknown as Parameters<request.Test['parse']>[0];

@@ -1,6 +1,6 @@
 // Per-variant records and the e1RM of a logged set: pure, so the rules are tested on their own.
 import { estimateOneRepMax } from '../../../shared/calc';
-import type { TopSet, VariantRecord } from '../../../shared/schemas';
+import type { TopSet } from '../../../shared/schemas';
 
 /**
  * e1RM stored with a top set: Epley on the reps actually done, rounded to 0.01 kg like the column. The RPE
@@ -30,7 +30,7 @@ export function recordOf<T extends Mark>(sets: readonly T[]): { bestE1rm: T | nu
 }
 
 /** How a new set compares with every earlier set on the same variant. */
-export function compareWithRecord(set: Mark, earlier: VariantRecord) {
+export function compareWithRecord(set: Mark, earlier: { bestE1rm: Mark | null; heaviest: Mark | null }) {
   return {
     firstOnVariant: earlier.bestE1rm === null,
     newRecord: earlier.bestE1rm === null || set.e1rmKg > earlier.bestE1rm.e1rmKg,
