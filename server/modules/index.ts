@@ -2,6 +2,8 @@
 import type { Router } from 'express';
 import type { AppContext } from '../context';
 import { authRouter } from './auth/auth.router';
+import { boardRouter } from './board/board.router';
+import { plansRouter } from './plans/plans.router';
 import { emailRouter } from './email/email.router';
 import { invitationsRouter } from './invitations/invitations.router';
 import { passwordResetRouter } from './password-reset/password-reset.router';
@@ -15,6 +17,8 @@ import { videosRouter } from './videos/videos.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
+  plansRouter,
+  boardRouter,
   passwordResetRouter,
   invitationsRouter,
   publishingRouter,

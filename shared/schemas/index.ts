@@ -2,6 +2,7 @@
 export * from './common';
 export * from './auth';
 export * from './rules';
+export * from './plans';
 export * from './training';
 export * from './my-week';
 export * from './videos';

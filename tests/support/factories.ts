@@ -128,3 +128,27 @@ export async function createTopSet(
     .$returningId();
   return s!.id;
 }
+
+/**
+ * A library the planner can fill many weeks from: `perLift` variants each of squat, deadlift and bench,
+ * each in its own family, with light joint stress and no equipment.
+ */
+export async function createPlanLibrary(db: Db, teamId: number, perLift = 6) {
+  const make = async (lift: 'squat' | 'deadlift' | 'bench', i: number) =>
+    createVariant(db, teamId, {
+      name: `${lift} variant ${i} ${uniq()}`,
+      lift,
+      family: `${lift} family ${i}`,
+      emphasis: (['bottom', 'midRange', 'lockout'] as const)[i % 3],
+      stress: lift === 'bench' ? { shoulder: 1, elbow: 1 } : { lowerBack: 1, hip: 1, knee: 1 },
+      specificity: 0.9,
+      equipment: [],
+    });
+  const out = { squat: [] as number[], deadlift: [] as number[], bench: [] as number[] };
+  for (let i = 0; i < perLift; i++) {
+    out.squat.push(await make('squat', i));
+    out.deadlift.push(await make('deadlift', i));
+    out.bench.push(await make('bench', i));
+  }
+  return out;
+}

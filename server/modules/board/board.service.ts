@@ -1,0 +1,43 @@
+// The coach's board in one answer: athletes with their planning facts, the library, rules and slots, the
+// entries of the visible weeks, and every other entry as engine input, so the browser can check drops itself.
+import { weekRange } from '../../../shared/engine';
+import type { BoardData, BoardQuery } from '../../../shared/schemas';
+import type { Db } from '../../db/client';
+import { daysOfWeeks, loadPlanning, today } from '../plans/plans.context';
+import { entryDtos } from '../plans/plans.dto';
+import { entriesOfAthletes } from '../plans/plans.repository';
+
+export async function loadBoard(db: Db, teamId: number, q: BoardQuery): Promise<BoardData> {
+  const t = today();
+  const [, lastDay] = daysOfWeeks(q.from, q.to);
+  const planning = await loadPlanning(db, teamId, {
+    // Restrictions matter for the weeks still to plan: from today to the board's last day.
+    restrictionDays: [t.day < lastDay ? t.day : lastDay, lastDay],
+    today: t,
+  });
+  const rows = await entriesOfAthletes(
+    db,
+    teamId,
+    planning.athletes.map((a) => a.board.id),
+  );
+  const visible = rows.filter((r) => r.week >= q.from && r.week <= q.to);
+  const context: BoardData['context'] = [];
+  for (const r of rows) {
+    if ((r.week >= q.from && r.week <= q.to) || r.variantId === null) continue;
+    context.push({ athleteId: r.athleteId, week: r.week, slotId: r.slotId, variantId: r.variantId, pinned: r.pinned });
+  }
+  return {
+    currentWeek: t.week,
+    from: q.from,
+    to: q.to,
+    weeks: weekRange(q.from, q.to),
+    rules: planning.rules,
+    seed: planning.seed,
+    rulesVersion: planning.rulesVersion,
+    slots: planning.slots,
+    variants: planning.variants,
+    athletes: planning.athletes.map((a) => a.board),
+    entries: await entryDtos(db, visible),
+    context,
+  };
+}

@@ -1,0 +1,78 @@
+// /api/plans: the plan entries of the board — list, save, clear, batch, history, generation, and the
+// signed-in athlete's own picks.
+import { Router } from 'express';
+import {
+  clearPlanQuery,
+  generateBody,
+  myPlanQuery,
+  planBatchBody,
+  planCellParams,
+  planHistoryQuery,
+  planListQuery,
+  savePlanBody,
+} from '../../../shared/schemas';
+import type { AppContext } from '../../context';
+import { ATHLETE, STAFF, authOf, requireRole } from '../../middleware/auth';
+import { validate } from '../../middleware/validate';
+import { generate } from './generate.service';
+import { batchField, clearCell, listPlans, myPlan, planHistory, saveChanges } from './plans.service';
+
+export function plansRouter(ctx: AppContext): Router {
+  const router = Router();
+  const db = ctx.database.db;
+
+  router.get(
+    '/plans',
+    requireRole(STAFF),
+    validate({ query: planListQuery }, ({ query }, req) => listPlans(db, authOf(req).teamId, query)),
+  );
+
+  router.get(
+    '/plans/mine',
+    requireRole(ATHLETE),
+    validate({ query: myPlanQuery }, ({ query }, req) => myPlan(db, authOf(req), query.week)),
+  );
+
+  router.post(
+    '/plans/generate',
+    requireRole(STAFF),
+    validate({ body: generateBody }, ({ body }, req) => generate(db, authOf(req), body)),
+  );
+
+  router.post(
+    '/plans/batch',
+    requireRole(STAFF),
+    validate({ body: planBatchBody }, async ({ body }, req) => {
+      const { entries } = await saveChanges(db, authOf(req), body.changes, batchField);
+      return { items: entries, total: entries.length };
+    }),
+  );
+
+  router.put(
+    '/plans/:athleteId/:week/:slotId',
+    requireRole(STAFF),
+    validate({ params: planCellParams, body: savePlanBody }, async ({ params, body }, req, res) => {
+      const { entries, created } = await saveChanges(db, authOf(req), [{ ...params, ...body }]);
+      if (created) res.status(201);
+      return entries[0];
+    }),
+  );
+
+  router.delete(
+    '/plans/:athleteId/:week/:slotId',
+    requireRole(STAFF),
+    validate({ params: planCellParams, query: clearPlanQuery }, ({ params, query }, req) =>
+      clearCell(db, authOf(req), params, query.version),
+    ),
+  );
+
+  router.get(
+    '/plans/:athleteId/:week/:slotId/history',
+    requireRole(STAFF),
+    validate({ params: planCellParams, query: planHistoryQuery }, ({ params, query }, req) =>
+      planHistory(db, authOf(req).teamId, params, query.limit, query.offset),
+    ),
+  );
+
+  return router;
+}
