@@ -2,6 +2,10 @@
 import type { Router } from 'express';
 import type { AppContext } from '../context';
 import { authRouter } from './auth/auth.router';
+import { athletesRouter } from './athletes/athletes.router';
+import { meetsRouter } from './meets/meets.router';
+import { rulesRouter } from './rules/rules.router';
+import { variantsRouter } from './variants/variants.router';
 import { boardRouter } from './board/board.router';
 import { plansRouter } from './plans/plans.router';
 import { emailRouter } from './email/email.router';
@@ -17,6 +21,10 @@ import { videosRouter } from './videos/videos.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
+  variantsRouter,
+  athletesRouter,
+  meetsRouter,
+  rulesRouter,
   plansRouter,
   boardRouter,
   passwordResetRouter,

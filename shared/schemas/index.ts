@@ -8,3 +8,6 @@ export * from './my-week';
 export * from './videos';
 export * from './invitations';
 export * from './mail';
+export * from './library';
+export * from './roster';
+export * from './meets';

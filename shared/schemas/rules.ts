@@ -128,3 +128,20 @@ export function toEngineRules(team: TeamRules, seed: string, overrides: AthleteR
 export function toEngineSlots(team: TeamRules): SlotDef[] {
   return team.slots.map((s) => ({ id: s.id, lifts: [...s.lifts] }));
 }
+
+/** `PUT /api/rules`: the whole rules document and the gym's equipment, with the version that was read (0: none yet). */
+export const teamRulesBody = z.object({
+  rules: teamRulesSchema,
+  equipment: equipmentListSchema,
+  version: z.number().int().min(0),
+});
+export type TeamRulesBody = z.input<typeof teamRulesBody>;
+
+export interface TeamRulesDoc {
+  rules: TeamRules;
+  equipment: string[];
+  /** 0 while the team has never saved its rules (the defaults apply). */
+  version: number;
+  updatedAt: string | null;
+  updatedBy: { id: number; name: string } | null;
+}

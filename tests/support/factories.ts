@@ -3,6 +3,7 @@ import { randomUUID } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import type { Db } from '../../server/db/client';
 import { athletes, memberships, planEntries, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
+import { bodyweights, meetEntries, meets, restrictions } from '../../server/db/schema';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { TEST_PASSWORD } from './app';
 
@@ -151,4 +152,45 @@ export async function createPlanLibrary(db: Db, teamId: number, perLift = 6) {
     out.bench.push(await make('bench', i));
   }
   return out;
+}
+
+/** A restriction on one joint, in force from the given day (a past Monday by default) with no end. */
+export async function createRestriction(
+  db: Db,
+  teamId: number,
+  athleteId: number,
+  overrides: Partial<typeof restrictions.$inferInsert> = {},
+) {
+  const [r] = await db
+    .insert(restrictions)
+    .values({ teamId, athleteId, joint: 'elbow', maxStress: 1, fromDate: '2026-01-05', ...overrides })
+    .$returningId();
+  return r!.id;
+}
+
+/** A meet on the given day (a day in 2030 by default, so it counts as upcoming). */
+export async function createMeet(db: Db, teamId: number, overrides: Partial<typeof meets.$inferInsert> = {}) {
+  const [m] = await db
+    .insert(meets)
+    .values({ teamId, name: `Meet ${uniq()}`, date: '2030-06-01', ...overrides })
+    .$returningId();
+  return m!.id;
+}
+
+export async function createMeetEntry(
+  db: Db,
+  teamId: number,
+  meetId: number,
+  athleteId: number,
+  overrides: Partial<typeof meetEntries.$inferInsert> = {},
+) {
+  const [e] = await db
+    .insert(meetEntries)
+    .values({ teamId, meetId, athleteId, attempts: {}, ...overrides })
+    .$returningId();
+  return e!.id;
+}
+
+export async function createBodyweight(db: Db, teamId: number, athleteId: number, measuredOn: string, weightKg: number) {
+  await db.insert(bodyweights).values({ teamId, athleteId, measuredOn, weightKg });
 }

@@ -1,0 +1,47 @@
+// Authorization entries for the roster: athletes, their restrictions and their history.
+import { createAthlete, createRestriction } from '../../support/factories';
+import { staff, type MatrixModule } from './types';
+
+export const matrix: MatrixModule = {
+  async setup(db, team) {
+    // An athlete of its own, so archiving it leaves the team's linked athlete to the other modules.
+    const athleteId = await createAthlete(db, team.teamId, { name: 'Matrix roster athlete' });
+    const restrictionId = await createRestriction(db, team.teamId, athleteId);
+    return { rosterAthlete: athleteId, rosterRestriction: restrictionId };
+  },
+  cases: {
+    'GET /api/athletes': { path: () => '/api/athletes', expect: staff(200, 200) },
+    'GET /api/athletes/accounts': { path: () => '/api/athletes/accounts', expect: staff(200, 200) },
+    'POST /api/athletes': { path: () => '/api/athletes', invalidBody: {}, expect: staff(400, 400) },
+    'GET /api/athletes/:id': { path: (f) => `/api/athletes/${f.ids.rosterAthlete}`, expect: staff(200) },
+    'PATCH /api/athletes/:id': {
+      path: (f) => `/api/athletes/${f.ids.rosterAthlete}`,
+      invalidBody: { sex: 'X' },
+      validBody: () => ({ notes: 'not yours', version: 1 }),
+      expect: staff(400),
+    },
+    // Archiving twice is the same as once.
+    'DELETE /api/athletes/:id': { path: (f) => `/api/athletes/${f.ids.rosterAthlete}`, expect: staff(200) },
+    'GET /api/athletes/:id/history': {
+      path: (f) => `/api/athletes/${f.ids.rosterAthlete}/history`,
+      expect: staff(200),
+    },
+    'POST /api/athletes/:id/restrictions': {
+      path: (f) => `/api/athletes/${f.ids.rosterAthlete}/restrictions`,
+      invalidBody: { joint: 'spine' },
+      validBody: () => ({ joint: 'knee', maxStress: 1, fromDate: '2026-01-05' }),
+      expect: staff(400),
+    },
+    'PATCH /api/athletes/:id/restrictions/:restrictionId': {
+      path: (f) => `/api/athletes/${f.ids.rosterAthlete}/restrictions/${f.ids.rosterRestriction}`,
+      invalidBody: { maxStress: 7 },
+      validBody: () => ({ note: 'not yours', version: 1 }),
+      expect: staff(400),
+    },
+    // The coach's delete removes it; the head coach then finds nothing to delete.
+    'DELETE /api/athletes/:id/restrictions/:restrictionId': {
+      path: (f) => `/api/athletes/${f.ids.rosterAthlete}/restrictions/${f.ids.rosterRestriction}`,
+      expect: { signedOut: 401, athlete: 403, coach: 204, headCoach: 404, otherTeam: 404 },
+    },
+  },
+};
