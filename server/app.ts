@@ -57,7 +57,9 @@ export function createApp(ctx: AppContext): Express {
   app.use(cookieParser());
 
   const api = express.Router();
-  api.use(express.json({ limit: '1mb' }));
+  // Signature-checked webhooks read their raw body themselves: the signature covers the exact bytes.
+  const json = express.json({ limit: '1mb' });
+  api.use((req, res, next) => (ORIGIN_EXEMPT.some((p) => req.path.startsWith(p)) ? next() : json(req, res, next)));
   api.use(originCheck(allowedOrigins(ctx.env), ORIGIN_EXEMPT));
   api.use(healthRouter(ctx));
   api.use(loadSession(ctx));

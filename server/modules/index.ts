@@ -2,6 +2,9 @@
 import type { Router } from 'express';
 import type { AppContext } from '../context';
 import { authRouter } from './auth/auth.router';
+import { feesRouter } from './fees/fees.router';
+import { paymentsRouter } from './payments/payments.router';
+import { webhooksRouter } from './webhooks/webhooks.router';
 import { athletesRouter } from './athletes/athletes.router';
 import { meetsRouter } from './meets/meets.router';
 import { rulesRouter } from './rules/rules.router';
@@ -37,4 +40,7 @@ export const apiModules: ((ctx: AppContext) => Router)[] = [
   bodyweightsRouter,
   tissueRouter,
   reviewRouter,
+  feesRouter,
+  paymentsRouter,
+  webhooksRouter,
 ];

@@ -8,6 +8,7 @@ export * from './my-week';
 export * from './videos';
 export * from './invitations';
 export * from './mail';
+export * from './fees';
 export * from './library';
 export * from './roster';
 export * from './meets';

@@ -2,6 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import type { Db } from '../../server/db/client';
+import { athleteBilling, feePlans } from '../../server/db/schema';
 import { athletes, memberships, planEntries, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
 import { bodyweights, meetEntries, meets, restrictions } from '../../server/db/schema';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
@@ -193,4 +194,26 @@ export async function createMeetEntry(
 
 export async function createBodyweight(db: Db, teamId: number, athleteId: number, measuredOn: string, weightKg: number) {
   await db.insert(bodyweights).values({ teamId, athleteId, measuredOn, weightKg });
+}
+
+/** A fee plan of the team (EUR by default), optionally already tied to a provider price. */
+export async function createFeePlan(db: Db, teamId: number, overrides: Partial<typeof feePlans.$inferInsert> = {}) {
+  const [p] = await db
+    .insert(feePlans)
+    .values({ teamId, name: `Plan ${uniq()}`, priceMinor: 4500, currency: 'EUR', ...overrides })
+    .$returningId();
+  return p!.id;
+}
+
+/** An athlete's fee state, as the provider's events would have left it. */
+export async function setAthleteBilling(
+  db: Db,
+  teamId: number,
+  athleteId: number,
+  values: Partial<typeof athleteBilling.$inferInsert> = {},
+) {
+  await db
+    .insert(athleteBilling)
+    .values({ athleteId, teamId, status: 'active', ...values })
+    .onDuplicateKeyUpdate({ set: { status: values.status ?? 'active', ...values } });
 }

@@ -4,7 +4,7 @@ import { and, asc, eq, inArray, isNull, lte, sql } from 'drizzle-orm';
 import type { Db, Queryable } from '../../db/client';
 import { outbox } from '../../db/schema';
 
-export type MailKind = 'invitation' | 'password_reset' | 'password_changed' | 'weekly_plan';
+export type MailKind = 'invitation' | 'password_reset' | 'password_changed' | 'weekly_plan' | 'fee_receipt';
 
 /** Kinds whose body holds a single-use sign-in link: the body is cleared once delivered. */
 export const SECRET_KINDS: ReadonlySet<MailKind> = new Set(['invitation', 'password_reset']);
