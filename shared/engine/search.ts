@@ -7,8 +7,13 @@ import { EPS, NJ, type Ath, type Board, type Ctx, lastBefore, taperAt } from './
 const GAP_CAP = 26;
 /** Effort bounds, in candidate evaluations, per athlete (not per request, so athletes stay independent). */
 export const EFFORT = {
+  /** Complete (40 per domain entry) and partial (2 per entry) searches, in candidate evaluations. */
+  completeMin: 20_000,
   complete: 300_000,
-  partial: 150_000,
+  partialMin: 5_000,
+  partial: 50_000,
+  /** Giving up cells one by one may spend this many complete searches' effort in all. */
+  dropRounds: 3,
   /** Each tightening run: this many dives' worth of effort, within [tightenMin, tighten]. */
   tightenPerDive: 4,
   tightenMin: 3_000,
@@ -66,7 +71,10 @@ export class Search {
   private useMin = true;
   private partial = false;
   private limit = 0;
-  private aborted = false;
+  aborted = false;
+  private order: number[] = [];
+  /** Per cell, how often the search found it left with nothing: the first to give up when stuck. */
+  readonly wipe: number[];
   work = 0;
   private empties = 0;
   private bestEmpties = Infinity;
@@ -81,6 +89,8 @@ export class Search {
   private varGap = 0;
 
   readonly cells: Cell[];
+  /** Cells with few candidates first, then week order (see the constructor). */
+  readonly searchOrder: number[];
 
   /** Open cells that nothing fits, even before any pick, are left out of `cells` (they stay unfilled). */
   constructor(
@@ -109,6 +119,12 @@ export class Search {
     this.assign = zeros(this.n).fill(-1);
     this.picks = new Array<Pick | undefined>(this.n);
     this.mBuf = this.cells.map(() => zeros(NJ));
+    this.wipe = zeros(this.n);
+    // Cells with few candidates first (tightest first), so that a corner is found before effort goes
+    // into the weeks around it; the rest in week order, which suits the recency and variety goals.
+    const tight = 2 * Math.max(ctx.R, ctx.F, 1);
+    const rank = (c: Cell) => (c.dom.length <= tight ? c.dom.length : Infinity);
+    this.searchOrder = this.cells.map((_, i) => i).sort((a, b) => rank(this.cells[a]!) - rank(this.cells[b]!) || a - b);
   }
 
   private domains(open: OpenCell[], rng: () => number): Cell[] {
@@ -251,13 +267,14 @@ export class Search {
 
   /** Number of open cells near cell k left without a candidate (complete mode stops at the first). */
   private forward(k: number): number {
-    const w = this.cells[k]!.w;
+    const w = this.cells[this.order[k]!]!.w;
     const H = Math.max(this.ctx.R, this.ctx.F, this.ctx.J);
     let dead = 0;
-    for (let q = k + 1; q < this.n; q++) {
-      const c = this.cells[q]!;
-      if (c.w - w >= H) break;
+    for (let q = k + 1; q < this.order.length; q++) {
+      const c = this.cells[this.order[q]!]!;
+      if (c.w - w >= H || w - c.w >= H) continue;
       if (!this.alive(c)) {
+        this.wipe[this.order[q]!]!++;
         dead++;
         if (!this.partial) return dead;
       }
@@ -266,7 +283,7 @@ export class Search {
   }
 
   private rec(k: number): boolean {
-    if (k === this.n) {
+    if (k === this.order.length) {
       this.record();
       return !this.partial || this.empties === 0;
     }
@@ -274,7 +291,8 @@ export class Search {
       this.aborted = true;
       return false;
     }
-    const c = this.cells[k]!;
+    const ci = this.order[k]!;
+    const c = this.cells[ci]!;
     const m = this.mBuf[k]!;
     this.spanMaxes(this.lb, c.w, m);
     const mn = this.useMin ? c.minS : ZERO;
@@ -297,17 +315,28 @@ export class Search {
     }
     this.work += dom.length;
     const sc = nb.score;
+    // Without a complete plan, picks that leave a nearby cell with nothing are tried last: first every
+    // candidate that costs no other cell (best score first), then the deferred ones in score order.
+    const deadBefore = this.partial ? this.forward(k) : 0;
+    const deferred: number[] = [];
+    let late = -1;
     for (;;) {
       let bi = -1;
-      let bs = -Infinity;
-      for (let j = 0; j < cnt; j++) {
-        if (sc[j]! > bs) {
-          bs = sc[j]!;
-          bi = j;
+      if (late < 0) {
+        let bs = -Infinity;
+        for (let j = 0; j < cnt; j++) {
+          if (sc[j]! > bs) {
+            bs = sc[j]!;
+            bi = j;
+          }
         }
+        if (bi >= 0) sc[bi] = -Infinity;
+        else late = 0;
       }
-      if (bi < 0) break;
-      sc[bi] = -Infinity;
+      if (late >= 0) {
+        if (late >= deferred.length) break;
+        bi = deferred[late++]!;
+      }
       const v = nb.cand[bi]!;
       const p: Pick = {
         famGap: nb.fam[bi]!,
@@ -316,15 +345,16 @@ export class Search {
         leastVar: nb.vari[bi]! >= maxVar,
       };
       this.apply(c, v, 1, mn);
-      this.assign[k] = v;
-      this.picks[k] = p;
+      this.assign[ci] = v;
+      this.picks[ci] = p;
       const dead = this.forward(k);
-      if (this.partial ? this.empties + dead < this.bestEmpties : dead === 0) {
+      if (this.partial && late < 0 && dead > deadBefore) deferred.push(bi);
+      else if (this.partial ? this.empties + dead < this.bestEmpties : dead === 0) {
         if (this.rec(k + 1)) return true;
       }
       this.apply(c, v, -1, mn);
-      this.assign[k] = -1;
-      this.picks[k] = undefined;
+      this.assign[ci] = -1;
+      this.picks[ci] = undefined;
       if (this.aborted) return false;
     }
     if (this.partial && this.empties + 1 < this.bestEmpties) {
@@ -367,7 +397,7 @@ export class Search {
       assign: this.assign.slice(),
       picks: this.picks.slice(),
       peak: this.peakNow(),
-      empties: this.empties,
+      empties: this.empties + this.n - this.order.length,
     };
   }
 
@@ -377,7 +407,8 @@ export class Search {
   }
 
   /** The best peak any complete plan could reach: fixed load plus each open cell's least stress. */
-  lowerBound(): number {
+  lowerBound(order: number[]): number {
+    this.order = order;
     this.resetLb(true);
     let peak = 0;
     for (const k of this.ctx.budgeted) {
@@ -402,12 +433,16 @@ export class Search {
       const from = this.board.load[k]!;
       for (let i = 0; i < from.length; i++) to[i] = from[i]!;
       if (!withMin) continue;
-      for (const c of this.cells) this.lb[k]![c.w - this.board.lo]! += c.minS[k]!;
+      for (const i of this.order) this.lb[k]![this.cells[i]!.w - this.board.lo]! += this.cells[i]!.minS[k]!;
     }
   }
 
-  /** One bounded search; the board is left as it was (fixed entries only). */
-  run(cap: number[], partial: boolean, limit: number): boolean {
+  /**
+   * One bounded search over the cells in `order` (the others stay empty). The board is left as it
+   * was (fixed entries only); `aborted` tells whether the effort ran out.
+   */
+  run(cap: number[], partial: boolean, limit: number, order = this.searchOrder): boolean {
+    this.order = order;
     this.cap = cap;
     this.partial = partial;
     this.useMin = !partial;
@@ -419,7 +454,9 @@ export class Search {
     const before = this.best;
     if (!partial) this.best = null;
     // Forward checking keeps every open cell alive from here on; start from a state where they all are.
-    const found = (partial || this.cells.every((c) => this.alive(c))) && this.rec(0);
+    const dead = partial ? undefined : this.order.find((i) => !this.alive(this.cells[i]!));
+    if (dead !== undefined) this.wipe[dead]! += this.n;
+    const found = dead === undefined && this.rec(0);
     const mn = (c: Cell) => (this.useMin ? c.minS : ZERO);
     for (let k = 0; k < this.n; k++) {
       const v = this.assign[k]!;
@@ -496,14 +533,34 @@ export function peakOf(ctx: Ctx, board: Board, first: number, last: number): num
  */
 export function solve(search: Search): Solution | null {
   const full = search.budgetCaps(1, false);
-  if (!search.run(full, false, EFFORT.complete)) {
-    search.run(full, true, EFFORT.partial);
-    return search.best;
+  const size = search.cells.reduce((n, c) => n + c.dom.length, 0);
+  const complete = Math.min(EFFORT.complete, Math.max(EFFORT.completeMin, 40 * size));
+  // Without a complete plan, give up the cell the search most often found stuck and try again, so
+  // the cells that can be filled together still get a complete, tightened plan.
+  let order = search.searchOrder;
+  const stopDropping = search.work + EFFORT.dropRounds * complete;
+  while (!search.run(full, false, Math.min(complete, Math.max(1, stopDropping - search.work)), order)) {
+    if (order.length <= 1 || search.work >= stopDropping) {
+      search.run(full, true, Math.min(EFFORT.partial, Math.max(EFFORT.partialMin, 2 * size)));
+      return search.best;
+    }
+    const worst = order.reduce((a, b) => (search.wipe[b]! > search.wipe[a]! ? b : a));
+    order = order.filter((i) => i !== worst);
+  }
+  // A cell given up early may fit after all once others went: try each back in, keeping what works.
+  const inOrder = new Set(order);
+  for (const i of search.searchOrder) {
+    if (inOrder.has(i) || search.work >= stopDropping + complete) continue;
+    const wider = search.searchOrder.filter((q) => inOrder.has(q) || q === i);
+    if (search.run(full, false, Math.max(EFFORT.completeMin, complete >> 2), wider)) {
+      inOrder.add(i);
+      order = wider;
+    }
   }
   // Feasibility only gets easier as the caps rise, so bisect on the cap between the lower bound and
   // the best peak found; a run that gives up counts as infeasible. Failed runs get a small effort
   // bound scaled to the size of one dive, as most of the effort would be spent proving infeasibility.
-  let lo = search.lowerBound();
+  let lo = search.lowerBound(order);
   const dive = search.work;
   const each = Math.min(EFFORT.tighten, Math.max(EFFORT.tightenMin, EFFORT.tightenPerDive * dive));
   const stop = dive + Math.max(EFFORT.tightenFloor, EFFORT.tightenTotalPerDive * dive);
@@ -511,7 +568,7 @@ export function solve(search: Search): Solution | null {
     const hi = search.best!.peak;
     if (!Number.isFinite(hi) || hi <= lo + 1e-9 || hi - lo <= EFFORT.resolution * hi) break;
     const mid = t === 0 ? lo : (lo + hi) / 2;
-    if (!search.run(search.budgetCaps(mid, false), false, Math.min(each, stop - search.work))) lo = mid;
+    if (!search.run(search.budgetCaps(mid, false), false, Math.min(each, stop - search.work), order)) lo = mid;
   }
   return search.best;
 }

@@ -35,8 +35,9 @@ function median(xs: number[]): number {
   return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }
 
-function timeIt(runs: number, f: () => void): number {
-  f();
+/** Median of `runs` timed calls after `warmup` untimed ones (the first calls also pay for compiling). */
+function timeIt(runs: number, f: () => void, warmup = 3): number {
+  for (let i = 0; i < warmup; i++) f();
   const t: number[] = [];
   for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
@@ -93,7 +94,7 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
     rules: RULES,
     weeks: [FIRST],
   };
-  const a = timeIt(9, () => generatePlan(reqA));
+  const a = timeIt(15, () => generatePlan(reqA), 8);
   const resA = generatePlan(reqA);
 
   // (b) 16 weeks up to a meet for 50 athletes.
@@ -105,7 +106,7 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
     rules: RULES,
     weeks: weekRange(FIRST, addWeeks(FIRST, 15)),
   };
-  const b = timeIt(5, () => generatePlan(reqB));
+  const b = timeIt(7, () => generatePlan(reqB), 3);
   const resB = generatePlan(reqB);
 
   // (c) drag checks on a board of 40 athletes × 9 weeks with the current plan on it.

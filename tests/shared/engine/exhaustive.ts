@@ -17,6 +17,15 @@ interface Placed {
 }
 
 export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000): ExhaustiveResult {
+  return search(req, nodeLimit, false);
+}
+
+/** The most cells any rule-clean plan fills (cells may stay empty). */
+export function mostFilled(req: PlanRequest, nodeLimit = 5_000_000): number {
+  return search(req, nodeLimit, true).filled;
+}
+
+function search(req: PlanRequest, nodeLimit: number, allowEmpty: boolean): ExhaustiveResult & { filled: number } {
   const athlete = req.athletes[0]!;
   const rules = req.rules;
   const first = req.weeks[0]!;
@@ -84,8 +93,28 @@ export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000): ExhaustiveR
   let bestPeak = Infinity;
   let feasible = false;
   let nodes = 0;
+  let filled = 0;
+  let most = -1;
   const go = (k: number): void => {
     if (++nodes > nodeLimit) throw new Error('exhaustive search too large');
+    if (allowEmpty) {
+      if (filled + cells.length - k <= most) return;
+      if (k === cells.length) {
+        most = filled;
+        return;
+      }
+      const cell = cells[k]!;
+      for (const v of cell.options) {
+        if (!fits(v, cell.at)) continue;
+        placed.push({ at: cell.at, v, id: v.id });
+        filled++;
+        go(k + 1);
+        filled--;
+        placed.pop();
+      }
+      go(k + 1);
+      return;
+    }
     const now = peak();
     if (feasible && now >= bestPeak - 1e-12) return;
     if (k === cells.length) {
@@ -102,5 +131,5 @@ export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000): ExhaustiveR
     }
   };
   go(0);
-  return { feasible, bestPeak, nodes };
+  return { feasible, bestPeak, nodes, filled: most };
 }
