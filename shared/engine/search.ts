@@ -75,6 +75,7 @@ export class Search {
   private order: number[] = [];
   /** Per cell, how often the search found it left with nothing: the first to give up when stuck. */
   readonly wipe: number[];
+  private readonly famLast: number[];
   work = 0;
   private empties = 0;
   private bestEmpties = Infinity;
@@ -120,6 +121,7 @@ export class Search {
     this.picks = new Array<Pick | undefined>(this.n);
     this.mBuf = this.cells.map(() => zeros(NJ));
     this.wipe = zeros(this.n);
+    this.famLast = zeros(ctx.famNames.length);
     // Cells with few candidates first (tightest first), so that a corner is found before effort goes
     // into the weeks around it; the rest in week order, which suits the recency and variety goals.
     const tight = 2 * Math.max(ctx.R, ctx.F, 1);
@@ -219,13 +221,19 @@ export class Search {
     return true;
   }
 
+  /** For every family, the last week before w that used it (−Infinity: never), for score(). */
+  private lastUses(w: number): void {
+    const fu = this.board.fUses;
+    for (let f = 0; f < this.famLast.length; f++) this.famLast[f] = lastBefore(fu[f], w) ?? -Infinity;
+  }
+
   /** Soft-goal score of a valid candidate (higher is better); leaves its recency in famGap/varGap. */
   private score(c: Cell, i: number, m: number[], mn: number[], prev: number, next: number): number {
     const ctx = this.ctx;
     const v = c.dom[i]!;
-    const lf = lastBefore(this.board.fUses[ctx.fam[v]!], c.w);
+    const lf = this.famLast[ctx.fam[v]!]!;
     const lv = lastBefore(this.board.vUses[v], c.w);
-    this.famGap = lf === undefined ? Infinity : c.w - lf;
+    this.famGap = c.w - lf;
     this.varGap = lv === undefined ? Infinity : c.w - lv;
     let s = 2 * Math.min(this.famGap, GAP_CAP + 1) + Math.min(this.varGap, GAP_CAP + 1);
     if (c.taper) s += 8 * ctx.spec[v]!;
@@ -296,6 +304,7 @@ export class Search {
     const m = this.mBuf[k]!;
     this.spanMaxes(this.lb, c.w, m);
     const mn = this.useMin ? c.minS : ZERO;
+    this.lastUses(c.w);
     const prev = this.board.at(c.w - 1, c.slot) ?? -1;
     const next = this.board.at(c.w + 1, c.slot) ?? -1;
     const dom = c.dom;
@@ -377,6 +386,7 @@ export class Search {
     this.cap = this.full;
     const m = zeros(NJ);
     this.spanMaxes(this.board.load, c.w, m);
+    this.lastUses(c.w);
     const prev = this.board.at(c.w - 1, c.slot) ?? -1;
     const next = this.board.at(c.w + 1, c.slot) ?? -1;
     let best: { v: number; pick: Pick; s: number } | null = null;

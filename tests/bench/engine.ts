@@ -109,6 +109,21 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
   const b = timeIt(7, () => generatePlan(reqB), 3);
   const resB = generatePlan(reqB);
 
+  // (e) the same 16 weeks when every athlete nurses an elbow and a shoulder: few bench variants fit,
+  // so no complete plan exists and the planner must decide which cells to give up.
+  const reqE: PlanRequest = {
+    ...reqB,
+    athletes: athletesB.map((x) => ({
+      ...x,
+      restrictions: [
+        { joint: 'elbow', maxStress: 0 },
+        { joint: 'shoulder', maxStress: 1 },
+      ],
+    })),
+  };
+  const e = timeIt(5, () => generatePlan(reqE), 2);
+  const resE = generatePlan(reqE);
+
   // (c) drag checks on a board of 40 athletes × 9 weeks with the current plan on it.
   const athletesC = team(40, variants, 12, 3, 2, 20);
   const weeksC = weekRange(FIRST, addWeeks(FIRST, 8));
@@ -163,6 +178,8 @@ export async function runEngineBench(): Promise<Record<string, unknown>> {
     a_unfilled: resA.unfilled.length,
     b_sixteenWeeks_50athletes_ms: b,
     b_unfilled: resB.unfilled.length,
+    e_overConstrained_16weeks_50athletes_ms: e,
+    e_unfilled: resE.unfilled.length,
     c_explain_300variants_oneCell_ms: cWarm,
     c_explain_300variants_oneCell_coldRequest_ms: cCold,
     c_prepare_ms: prepare,
