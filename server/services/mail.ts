@@ -132,6 +132,7 @@ export function createMailService(env: Env, logger: Logger, opts: { database?: D
       return runPass();
     },
     async stop() {
+      if (stopped) return;
       stopped = true;
       if (timer) clearTimeout(timer);
       timer = null;

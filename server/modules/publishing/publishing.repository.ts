@@ -2,6 +2,7 @@
 // far the e-mails of a publication have got.
 import { and, asc, eq, inArray, isNull, like, sql } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
+import { isDuplicateKey } from '../../services/mail/outbox';
 import {
   athletes,
   memberships,
@@ -29,11 +30,13 @@ export async function findPublication(db: Queryable, teamId: number, week: strin
 
 /** Records the publication; false when the week was already published (by anyone, at any time). */
 export async function insertPublication(db: Queryable, teamId: number, week: string, userId: number) {
-  const [res] = await db
-    .insert(weekPublications)
-    .values({ teamId, week, publishedBy: userId })
-    .onDuplicateKeyUpdate({ set: { week: sql`${weekPublications.week}` } });
-  return res.affectedRows === 1;
+  try {
+    await db.insert(weekPublications).values({ teamId, week, publishedBy: userId });
+    return true;
+  } catch (err) {
+    if (isDuplicateKey(err)) return false;
+    throw err;
+  }
 }
 
 /** Athletes of the team with an account in it and the weekly e-mail switched on. */
