@@ -259,12 +259,6 @@ export function taperAt(ctx: Ctx, ath: Ath, w: number): Taper | null {
   return any ? { d, maxRisk, minSpec } : null;
 }
 
-/** Cheap test of the rules that do not depend on other entries. */
-export function staticOk(ctx: Ctx, ath: Ath, mask: number, v: number, taper: Taper | null): boolean {
-  if ((ctx.liftBit[v]! & mask) === 0 || ath.block[v] !== 0) return false;
-  return !taper || (ctx.risk[v]! <= taper.maxRisk && ctx.spec[v]! >= taper.minSpec - EPS);
-}
-
 const CELL_KEY = 1024;
 
 /**

@@ -39,8 +39,9 @@ export function pickReasons(
   const x = ctx.variants[v]!;
   const out: string[] = [];
   const famGap = gapOf(lastBefore(board.fUses[ctx.fam[v]!], w), w);
+  // "Least recently used" was true among the candidates at pick time; a later pick may have changed it.
   out.push(
-    pick?.leastFam
+    pick?.leastFam && (famGap ?? Infinity) === pick.famGap
       ? `least recently used ${x.family} family (${ago(famGap)})`
       : `${x.family} family last used ${ago(famGap)}`,
   );

@@ -1,5 +1,6 @@
-// The per-athlete planner: depth-first search over the open cells in week order, with forward checking
-// and a joint-load lower bound, first for a complete rule-clean plan, then for lower peak load ratios.
+// The per-athlete planner: depth-first search over the open cells (tightest first, then week order)
+// with forward checking and a joint-load lower bound, first for a complete rule-clean plan, then for
+// lower peak load ratios.
 
 import { EPS, NJ, type Ath, type Board, type Ctx, lastBefore, taperAt } from './core';
 
@@ -537,9 +538,9 @@ export function peakOf(ctx: Ctx, board: Board, first: number, last: number): num
 }
 
 /**
- * Plans the open cells: a complete plan within the budgets if the search finds one, then tighter
- * peaks (first straight at the lower bound, then by bisection) while effort lasts;
- * without a complete plan, the plan with the fewest empty cells found.
+ * Plans the open cells: a complete plan within the budgets if the search finds one (else one for as
+ * many cells as it can manage), then tighter peaks (first straight at the lower bound, then by
+ * bisection) while effort lasts.
  */
 export function solve(search: Search): Solution | null {
   const full = search.budgetCaps(1, false);
@@ -549,7 +550,9 @@ export function solve(search: Search): Solution | null {
   // the cells that can be filled together still get a complete, tightened plan.
   let order = search.searchOrder;
   const stopDropping = search.work + EFFORT.dropRounds * complete;
+  let before = search.work;
   while (!search.run(full, false, Math.min(complete, Math.max(1, stopDropping - search.work)), order)) {
+    before = search.work;
     if (order.length <= 1 || search.work >= stopDropping) {
       search.run(full, true, Math.min(EFFORT.partial, Math.max(EFFORT.partialMin, 2 * size)));
       return search.best;
@@ -557,6 +560,7 @@ export function solve(search: Search): Solution | null {
     const worst = order.reduce((a, b) => (search.wipe[b]! > search.wipe[a]! ? b : a));
     order = order.filter((i) => i !== worst);
   }
+  const dive = search.work - before;
   // A cell given up early may fit after all once others went: try each back in, keeping what works.
   const inOrder = new Set(order);
   for (const i of search.searchOrder) {
@@ -571,9 +575,8 @@ export function solve(search: Search): Solution | null {
   // the best peak found; a run that gives up counts as infeasible. Failed runs get a small effort
   // bound scaled to the size of one dive, as most of the effort would be spent proving infeasibility.
   let lo = search.lowerBound(order);
-  const dive = search.work;
   const each = Math.min(EFFORT.tighten, Math.max(EFFORT.tightenMin, EFFORT.tightenPerDive * dive));
-  const stop = dive + Math.max(EFFORT.tightenFloor, EFFORT.tightenTotalPerDive * dive);
+  const stop = search.work + Math.max(EFFORT.tightenFloor, EFFORT.tightenTotalPerDive * dive);
   for (let t = 0; t < EFFORT.tightenTries && search.work < stop; t++) {
     const hi = search.best!.peak;
     if (!Number.isFinite(hi) || hi <= lo + 1e-9 || hi - lo <= EFFORT.resolution * hi) break;

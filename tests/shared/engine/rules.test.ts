@@ -1,6 +1,6 @@
 // Worked examples, computed by hand, for every rule the engine enforces and the words it reports.
 import { describe, expect, it } from 'vitest';
-import { checkPlan, explainCandidate, generatePlan, type PlanRequest, type RuleId } from '../../../shared/engine/index';
+import { checkPlan, explainCandidate, generatePlan, type PlanRequest } from '../../../shared/engine/index';
 import { athlete, entry, handRequest, quietRules } from './fixtures';
 
 const rulesOf = (req: PlanRequest, entries = req.planned ?? []) => checkPlan(req, entries).map((v) => v.rule);
