@@ -91,14 +91,13 @@ try {
   await stopAll(1);
 }
 
-/** Builds the client unless dist/ was built from exactly these sources (keeps a second start fast). */
+/** Builds the client unless the last build came from exactly these sources (keeps a second start fast). */
 function buildClientIfChanged() {
   const hash = createHash('sha256');
   const walk = (p) => {
     if (!existsSync(p)) return;
-    const st = statSync(p);
-    if (st.isDirectory()) for (const f of readdirSync(p).sort()) walk(join(p, f));
-    else hash.update(`${p}:${st.size}:${st.mtimeMs}\n`);
+    if (statSync(p).isDirectory()) for (const f of readdirSync(p).sort()) walk(join(p, f));
+    else hash.update(`${p}\n`).update(readFileSync(p));
   };
   for (const p of [
     'src',
