@@ -10,10 +10,17 @@ import { jointSchema, liftSchema } from './rules';
 export const MAX_LOGGED_WEIGHT = { kg: 600, lb: 1320 } as const;
 export const MAX_TOP_SET_REPS = E1RM_MAX_REPS.epley;
 
-const weightInput = z.coerce
-  .number({ message: 'Enter the weight' })
-  .refine(Number.isFinite, 'Enter the weight')
-  .positive('The weight must be more than 0');
+/** Form text reads as a number too: an empty field is missing, and a decimal comma is a point. */
+const blankToUndefined = (v: unknown) =>
+  typeof v === 'string' ? (v.trim() === '' ? undefined : v.trim().replace(',', '.')) : v;
+
+const weightInput = z.preprocess(
+  blankToUndefined,
+  z.coerce
+    .number({ message: 'Enter the weight' })
+    .refine(Number.isFinite, 'Enter the weight')
+    .positive('The weight must be more than 0'),
+);
 
 export const rpeField = z.coerce
   .number({ message: 'Pick an RPE' })
@@ -28,12 +35,15 @@ export const logTopSetBody = z
     planEntryId: idParam,
     unit: unitSchema,
     weight: weightInput,
-    reps: z.coerce
-      .number({ message: 'Enter the reps' })
-      .int('Whole reps only')
-      .min(1, 'At least 1 rep')
-      .max(MAX_TOP_SET_REPS, `At most ${MAX_TOP_SET_REPS} reps: beyond that an e1RM would only mislead`),
-    rpe: rpeField.nullable().optional(),
+    reps: z.preprocess(
+      blankToUndefined,
+      z.coerce
+        .number({ message: 'Enter the reps' })
+        .int('Whole reps only')
+        .min(1, 'At least 1 rep')
+        .max(MAX_TOP_SET_REPS, `At most ${MAX_TOP_SET_REPS} reps: beyond that an e1RM would only mislead`),
+    ),
+    rpe: z.preprocess((v) => (v === '' || v === undefined ? null : v), rpeField.nullable()),
     note: z.string().trim().max(500, 'At most 500 characters').optional(),
   })
   .superRefine((b, ctx) => {
@@ -101,19 +111,21 @@ export const MAX_BODYWEIGHT = { kg: 300, lb: 660 } as const;
 
 export const bodyweightDateParams = z.object({ measuredOn: isoDate });
 
-export const logBodyweightBody = z
-  .object({
-    unit: unitSchema,
-    weight: weightInput,
-  })
-  .superRefine((b, ctx) => {
-    if (b.weight > MAX_BODYWEIGHT[b.unit]) {
-      ctx.addIssue({ code: 'custom', path: ['weight'], message: `At most ${MAX_BODYWEIGHT[b.unit]} ${b.unit}` });
-    }
-    if (b.weight < (b.unit === 'kg' ? 20 : 44)) {
-      ctx.addIssue({ code: 'custom', path: ['weight'], message: 'That is too light for a bodyweight' });
-    }
-  });
+const bodyweightFields = z.object({ unit: unitSchema, weight: weightInput });
+
+function checkBodyweight(b: { unit: 'kg' | 'lb'; weight: number }, ctx: z.RefinementCtx) {
+  if (b.weight > MAX_BODYWEIGHT[b.unit]) {
+    ctx.addIssue({ code: 'custom', path: ['weight'], message: `At most ${MAX_BODYWEIGHT[b.unit]} ${b.unit}` });
+  }
+  if (b.weight < (b.unit === 'kg' ? 20 : 44)) {
+    ctx.addIssue({ code: 'custom', path: ['weight'], message: 'That is too light for a bodyweight' });
+  }
+}
+
+export const logBodyweightBody = bodyweightFields.superRefine(checkBodyweight);
+/** The same with the day, as the form holds it (the day travels in the path). */
+export const bodyweightForm = bodyweightFields.extend({ measuredOn: isoDate }).superRefine(checkBodyweight);
+export type BodyweightFormValues = z.input<typeof bodyweightForm>;
 export type LogBodyweightBody = z.input<typeof logBodyweightBody>;
 
 export interface Bodyweight {
@@ -137,11 +149,14 @@ export const tissueKindSchema = z.enum(['highRep', 'isometric', 'loadedStretch']
 
 export const tissueCheckinBody = z.object({
   week: isoWeek,
-  soreness: z.coerce
-    .number({ message: 'Pick how sore it is' })
-    .int('Whole numbers only')
-    .min(0, 'From 0 (none)')
-    .max(10, 'To 10 (worst)'),
+  soreness: z.preprocess(
+    blankToUndefined,
+    z.coerce
+      .number({ message: 'Pick how sore it is' })
+      .int('Whole numbers only')
+      .min(0, 'From 0 (none)')
+      .max(10, 'To 10 (worst)'),
+  ),
   painJoints: z
     .array(jointSchema)
     .max(6)

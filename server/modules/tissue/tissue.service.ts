@@ -54,7 +54,12 @@ function toEngineCheckins(rows: Awaited<ReturnType<typeof listCheckins>>): Tissu
 }
 
 /** Everything prescribeTissueWork needs for one athlete and week, read from the database. */
-async function tissueInput(db: Queryable, teamId: number, athleteId: number, week: string): Promise<TissueInput> {
+export async function tissueInput(
+  db: Queryable,
+  teamId: number,
+  athleteId: number,
+  week: string,
+): Promise<TissueInput> {
   const [team, history, checkins, meet, picks] = await Promise.all([
     readRulesOfTeam(db, teamId),
     listPrescriptionsBefore(db, teamId, athleteId, week),

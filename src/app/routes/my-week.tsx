@@ -1,5 +1,72 @@
-import { Placeholder } from '../../components/ui/page';
+// My week (athlete, phone first): the week's max-effort picks with warm-ups and logging, connective-
+// tissue work and its check-in, bodyweight, and the training caution.
+import type { QueryClient } from '@tanstack/react-query';
+import { Link, useSearchParams } from 'react-router-dom';
+import { addWeeks, isIsoWeek, mondayOf } from '../../../shared/engine/weeks';
+import { Loading, Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
+import { myWeekQueryOptions, useMyWeek } from '../../features/my-week/api/queries';
+import { BodyweightCard } from '../../features/my-week/components/bodyweight-card';
+import { CheckinForm } from '../../features/my-week/components/checkin-form';
+import { PickCard } from '../../features/my-week/components/pick-card';
+import { TissueWork } from '../../features/my-week/components/tissue-work';
+
+function weekParam(search: URLSearchParams): string | null {
+  const w = search.get('week');
+  return w && isIsoWeek(w) ? w : null;
+}
+
+export function makeLoader(queryClient: QueryClient) {
+  return async ({ request }: { request: Request }) => {
+    await queryClient.ensureQueryData(myWeekQueryOptions(weekParam(new URL(request.url).searchParams)));
+    return null;
+  };
+}
+
+const dateFmt = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
+
+function weekSpan(week: string): string {
+  const monday = mondayOf(week);
+  return `${dateFmt.format(monday)} – ${dateFmt.format(new Date(monday.getTime() + 6 * 86_400_000))}`;
+}
+
+const navClass =
+  'inline-flex min-h-11 items-center rounded-md border border-ink-300 bg-chalk-50 px-3 font-semibold text-ink-800 hover:bg-chalk-200';
 
 export function Component() {
-  return <Placeholder title="My week" />;
+  const [search] = useSearchParams();
+  const requested = weekParam(search);
+  const { data, error } = useMyWeek(requested);
+  if (error) return <Notice tone="error">{error.message}</Notice>;
+  if (!data) return <Loading />;
+  const isCurrent = !requested;
+  return (
+    <div className="mx-auto flex max-w-3xl flex-col gap-4">
+      <PageHeader
+        title="My week"
+        subtitle={`${data.week} · ${weekSpan(data.week)}${data.meet && data.meet.daysOut >= 0 ? ` · ${data.meet.name} in ${data.meet.daysOut} days` : ''}`}
+      />
+      <nav aria-label="Weeks" className="flex flex-wrap gap-2">
+        <Link className={navClass} to={`/my-week?week=${addWeeks(data.week, -1)}`}>
+          ← Previous week
+        </Link>
+        {!isCurrent ? (
+          <Link className={navClass} to="/my-week">
+            This week
+          </Link>
+        ) : null}
+        <Link className={navClass} to={`/my-week?week=${addWeeks(data.week, 1)}`}>
+          Next week →
+        </Link>
+      </nav>
+      <TrainingCaution />
+      {data.picks.length === 0 ? (
+        <Notice>No max-effort work is planned for this week yet. Your coach fills it on the board.</Notice>
+      ) : (
+        data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)
+      )}
+      <TissueWork tissue={data.tissue} />
+      <CheckinForm weeks={data.checkins} thisWeek={data.week} />
+      <BodyweightCard bodyweight={data.bodyweight} unit={data.unit} today={data.today} meet={data.meet} />
+    </div>
+  );
 }

@@ -1,0 +1,46 @@
+// The athlete's history: records per variant, e1RM and bodyweight series, and the sets of one variant.
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { ListResponse, Series, TopSet, Unit, VariantHistory } from '../../../../shared/schemas';
+import { api } from '../../../lib/api-client';
+
+export interface MyHistory {
+  unit: Unit;
+  variants: VariantHistory[];
+  series: Series;
+}
+
+export interface TopSetFilter {
+  athleteId?: number;
+  variantId: number;
+}
+
+export const historyKeys = {
+  all: ['history'] as const,
+  mine: () => [...historyKeys.all, 'mine'] as const,
+  topSetLists: () => [...historyKeys.all, 'top-sets'] as const,
+  topSets: (filter: TopSetFilter) => [...historyKeys.topSetLists(), filter] as const,
+};
+
+export const myHistoryQueryOptions = () =>
+  queryOptions({
+    queryKey: historyKeys.mine(),
+    queryFn: ({ signal }) => api<MyHistory>('/my-history', { signal }),
+  });
+
+export function useMyHistory() {
+  return useQuery(myHistoryQueryOptions());
+}
+
+export const topSetsQueryOptions = (filter: TopSetFilter) =>
+  queryOptions({
+    queryKey: historyKeys.topSets(filter),
+    queryFn: ({ signal }) => {
+      const q = new URLSearchParams({ variantId: String(filter.variantId), sort: 'newest', limit: '50' });
+      if (filter.athleteId) q.set('athleteId', String(filter.athleteId));
+      return api<ListResponse<TopSet>>(`/top-sets?${q.toString()}`, { signal });
+    },
+  });
+
+export function useTopSets(filter: TopSetFilter, enabled = true) {
+  return useQuery({ ...topSetsQueryOptions(filter), enabled });
+}

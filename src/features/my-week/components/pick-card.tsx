@@ -1,0 +1,103 @@
+// One max-effort pick of the week: the variant and scheme, last time and record, the warm-up with
+// plates, and the log form.
+import { useState } from 'react';
+import { formatWeight, type WeightUnit } from '../../../../shared/calc';
+import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
+import { Button } from '../../../components/ui/button';
+import { SCHEME_LABEL, suggestedTopSet } from '../lib/top-set-math';
+import { TopSetForm } from './top-set-form';
+import { VideoUpload } from './video-upload';
+import { WarmupRamp } from './warmup-ramp';
+
+const LIFT_LABEL = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' } as const;
+
+function setText(s: TopSet, unit: WeightUnit): string {
+  return `${s.reps} × ${formatWeight(s.weightKg, unit, { decimals: 1 })}${s.rpe ? ` @ RPE ${s.rpe}` : ''}`;
+}
+
+export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit }) {
+  const [warmup, setWarmup] = useState(false);
+  const best = pick.record.bestE1rm;
+  const suggested = best ? suggestedTopSet(best.e1rmKg, pick.schemeReps, unit) : null;
+  const headingId = `pick-${pick.planEntryId}`;
+  return (
+    <section
+      aria-labelledby={headingId}
+      className="flex flex-col gap-4 rounded-lg border border-ink-200 bg-chalk-50 p-4 shadow-sm"
+    >
+      <header className="flex flex-col gap-1">
+        <p className="text-sm font-semibold uppercase tracking-wide text-rust-600">
+          {pick.slotLabel} · {LIFT_LABEL[pick.variant.lift]}
+        </p>
+        <h2 id={headingId} className="text-2xl font-bold leading-tight text-ink-900">
+          {pick.variant.name}
+        </h2>
+        <p className="text-lg font-semibold text-ink-800">{SCHEME_LABEL[pick.scheme]}</p>
+        {pick.variant.notes ? <p className="text-ink-600">{pick.variant.notes}</p> : null}
+      </header>
+
+      <dl className="grid grid-cols-1 gap-2 sm:grid-cols-3">
+        <div className="rounded-md bg-chalk-100 px-3 py-2">
+          <dt className="text-sm text-ink-600">Last time</dt>
+          <dd className="font-semibold text-ink-900" data-testid="last-time">
+            {pick.lastTime
+              ? `${setText(pick.lastTime, unit)} · ${pick.lastTime.performedOn}`
+              : 'First time on this variant'}
+          </dd>
+        </div>
+        <div className="rounded-md bg-chalk-100 px-3 py-2">
+          <dt className="text-sm text-ink-600">Record e1RM</dt>
+          <dd className="font-semibold text-ink-900" data-testid="record-e1rm">
+            {best ? `${formatWeight(best.e1rmKg, unit, { decimals: 1 })} (${setText(best, unit)})` : 'None yet'}
+          </dd>
+        </div>
+        <div className="rounded-md bg-chalk-100 px-3 py-2">
+          <dt className="text-sm text-ink-600">Heaviest</dt>
+          <dd className="font-semibold text-ink-900" data-testid="record-heaviest">
+            {pick.record.heaviest ? setText(pick.record.heaviest, unit) : 'None yet'}
+          </dd>
+        </div>
+      </dl>
+
+      {pick.logged.length > 0 ? (
+        <div className="flex flex-col gap-2">
+          <h3 className="font-semibold text-ink-800">Logged this week</h3>
+          <ul className="flex flex-col gap-2">
+            {pick.logged.map((s) => (
+              <li key={s.id} className="flex flex-col gap-2 rounded-md border border-ink-200 px-3 py-2">
+                <p className="text-ink-900">
+                  <span className="font-semibold">{setText(s, unit)}</span> · e1RM{' '}
+                  {formatWeight(s.e1rmKg, unit, { decimals: 1 })}
+                  {s.note ? <span className="block text-sm text-ink-600">{s.note}</span> : null}
+                </p>
+                {s.videoId ? <p className="text-sm text-ink-600">Video attached.</p> : <VideoUpload topSetId={s.id} />}
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+
+      <div className="flex flex-col gap-3">
+        <Button
+          variant="secondary"
+          aria-expanded={warmup}
+          aria-controls={`${headingId}-warmup`}
+          onClick={() => setWarmup((w) => !w)}
+          className="self-stretch sm:self-start"
+        >
+          {warmup ? 'Hide warm-up and plates' : 'Warm-up and plates'}
+        </Button>
+        {warmup ? (
+          <div id={`${headingId}-warmup`}>
+            <WarmupRamp initialTop={suggested} unit={unit} reps={pick.schemeReps} />
+          </div>
+        ) : null}
+      </div>
+
+      <div className="flex flex-col gap-2 border-t border-ink-200 pt-4">
+        <h3 className="text-lg font-semibold text-ink-900">Log the top set</h3>
+        <TopSetForm pick={pick} unit={unit} />
+      </div>
+    </section>
+  );
+}
