@@ -19,6 +19,7 @@ export const ORIGIN_EXEMPT = ['/webhooks/'];
 export function createApp(ctx: AppContext): Express {
   const app = express();
   app.disable('x-powered-by');
+  if (ctx.env.TRUST_PROXY > 0) app.set('trust proxy', ctx.env.TRUST_PROXY);
   const https = new URL(ctx.env.APP_ORIGIN).protocol === 'https:';
 
   app.use(

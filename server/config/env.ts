@@ -14,6 +14,8 @@ const schema = z.object({
   SESSION_SECRET: z.string().min(32, 'must be at least 32 characters'),
   APP_ORIGIN: z.url().default('http://127.0.0.1:3000'),
   EXTRA_ORIGINS: z.string().default(''),
+  /** Behind a load balancer or TLS proxy: how many proxy hops to trust for protocol and address. */
+  TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
   CLIENT_DIST: z.string().default(''),
   DB_MIGRATE: bool,
   SEED_DEMO: bool,
@@ -39,7 +41,11 @@ const schema = z.object({
   S3_ACCESS_KEY_ID: z.string().default(''),
   S3_SECRET_ACCESS_KEY: z.string().default(''),
   /** Largest video upload accepted, in bytes (200 MB). */
-  VIDEO_MAX_BYTES: z.coerce.number().int().positive().default(200 * 1024 * 1024),
+  VIDEO_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .positive()
+    .default(200 * 1024 * 1024),
   PAYMENTS_HOST: z.string().default(''),
   PAYMENTS_PORT: z.coerce.number().int().default(4403),
   PAYMENTS_PROTOCOL: z.enum(['http', 'https']).default('https'),

@@ -195,3 +195,36 @@ describe('sign-in rate limit per address', () => {
     expect(statuses).toEqual([401, 401, 401, 429]);
   });
 });
+
+describe('session refresh', () => {
+  it('re-issues the cookie for a token older than ten minutes, and not for a fresh one', async () => {
+    const { SignJWT } = await import('jose');
+    const key = new TextEncoder().encode(t.ctx.env.SESSION_SECRET);
+    const iat = Math.floor(Date.now() / 1000) - 20 * 60;
+    const old = await new SignJWT({ tid: team.teamId })
+      .setProtectedHeader({ alg: 'HS256' })
+      .setSubject(String(team.coach.id))
+      .setIssuedAt(iat)
+      .setExpirationTime(iat + 12 * 3600)
+      .sign(key);
+    const res = await request(t.app).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${old}`);
+    expect(res.status).toBe(200);
+    expect(sessionCookie(res)).toMatch(/Max-Age=43200/);
+    const fresh = await t.ctx.sessions.sign(team.coach.id, team.teamId);
+    const again = await request(t.app).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${fresh}`);
+    expect(sessionCookie(again)).toBe('');
+  });
+
+  it('refuses an expired token', async () => {
+    const { SignJWT } = await import('jose');
+    const key = new TextEncoder().encode(t.ctx.env.SESSION_SECRET);
+    const iat = Math.floor(Date.now() / 1000) - 13 * 3600;
+    const expired = await new SignJWT({ tid: team.teamId })
+      .setProtectedHeader({ alg: 'HS256' })
+      .setSubject(String(team.coach.id))
+      .setIssuedAt(iat)
+      .setExpirationTime(iat + 12 * 3600)
+      .sign(key);
+    expect((await request(t.app).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${expired}`)).status).toBe(401);
+  });
+});
