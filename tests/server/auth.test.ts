@@ -228,3 +228,17 @@ describe('session refresh', () => {
     expect((await request(t.app).get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${expired}`)).status).toBe(401);
   });
 });
+
+describe('behind a TLS proxy', () => {
+  const proxied = useTestApp({ TRUST_PROXY: '1', APP_ORIGIN: 'https://rackturn.example' });
+
+  it('marks the session cookie Secure when the request came over https', async () => {
+    const res = await request(proxied.app)
+      .post('/api/auth/login')
+      .set('X-Forwarded-Proto', 'https')
+      .send({ email: team.coach.email, password: TEST_PASSWORD });
+    expect(res.status).toBe(200);
+    expect(sessionCookie(res)).toMatch(/; Secure/i);
+    expect(res.headers['strict-transport-security']).toBeDefined();
+  });
+});
