@@ -392,6 +392,18 @@ export function specText(x: number): string {
   return String(Math.round(x * 100) / 100);
 }
 
+interface Cell {
+  athleteId: string;
+  week: string;
+  slotId: string;
+  variantId: string;
+  out: Violation[];
+}
+
+function note(c: Cell, rule: RuleId, message: string): void {
+  c.out.push({ rule, athleteId: c.athleteId, week: c.week, slotId: c.slotId, variantId: c.variantId, message });
+}
+
 /**
  * Every rule that putting variantId in (week, slotId) would break, against what is on the board.
  * The caller takes the cell's own entry off the board first.
@@ -405,43 +417,44 @@ export function cellViolations(
   variantId: string,
 ): Violation[] {
   const out: Violation[] = [];
-  const athleteId = ath.input.id;
-  const push = (rule: RuleId, message: string) => out.push({ rule, athleteId, week, slotId, variantId, message });
+  const cell: Cell = { athleteId: ath.input.id, week, slotId, variantId, out };
   const v = ctx.byId.get(variantId);
   if (v === undefined) {
-    push('unknownVariant', `no variant "${variantId}" in the library`);
+    note(cell, 'unknownVariant', `no variant "${variantId}" in the library`);
     return out;
   }
   const x = ctx.variants[v]!;
   const w = wn(week);
   const slot = ctx.slots.get(slotId);
-  if (!slot) push('liftMismatch', `there is no "${slotId}" slot`);
+  if (!slot) note(cell, 'liftMismatch', `there is no "${slotId}" slot`);
   else if ((ctx.liftBit[v]! & slot.mask) === 0) {
     const lifts = slot.def.lifts.length ? slot.def.lifts.join(' or ') : 'no lift';
-    push('liftMismatch', `${x.name} is a ${x.lift} variant; the ${slotId} slot takes ${lifts}`);
+    note(cell, 'liftMismatch', `${x.name} is a ${x.lift} variant; the ${slotId} slot takes ${lifts}`);
   }
   if (ath.block[v]! & 1) {
     const missing = x.equipment.filter((e) => !ath.equipment.has(e));
-    push('equipment', `${x.name} needs ${missing.join(', ')}, which this athlete does not have`);
+    note(cell, 'equipment', `${x.name} needs ${missing.join(', ')}, which this athlete does not have`);
   }
   if (ath.block[v]! & 2) {
-    JOINTS.forEach((j, k) => {
+    for (let k = 0; k < NJ; k++) {
       const s = ctx.stress[v * NJ + k]!;
       if (s > ath.limit[k]! + EPS) {
-        push(
+        note(
+          cell,
           'restriction',
           `${x.name} puts ${jointName(k)} stress ${W.num(s)} over this athlete's limit of ${W.num(ath.limit[k]!)}`,
         );
       }
-    });
+    }
   }
   const taper = taperAt(ctx, ath, w);
   if (taper) {
     const when = W.meetWhen(taper.d);
     if (x.risk > taper.maxRisk)
-      push('taperRisk', `${x.name} has risk ${x.risk}, above the limit of ${taper.maxRisk} ${when}`);
+      note(cell, 'taperRisk', `${x.name} has risk ${x.risk}, above the limit of ${taper.maxRisk} ${when}`);
     if (x.specificity < taper.minSpec - EPS) {
-      push(
+      note(
+        cell,
         'taperSpecificity',
         `${x.name} has specificity ${specText(x.specificity)}, below the minimum of ${specText(taper.minSpec)} ${when}`,
       );
@@ -449,7 +462,8 @@ export function cellViolations(
   }
   const rep = nearest(board.vUses[v], w, ctx.R);
   if (rep !== undefined) {
-    push(
+    note(
+      cell,
       'repeat',
       rep === w
         ? `${x.name} is already in ${week}; a variant may appear only once a week`
@@ -459,14 +473,19 @@ export function cellViolations(
   const famUse = nearest(board.fUses[ctx.fam[v]!], w, ctx.F);
   if (famUse !== undefined) {
     const away = famUse === w ? '' : `, ${W.weeks(Math.abs(famUse - w))} away`;
-    push('family', `the ${x.family} family is already in ${ws(famUse)}${away}; the family window is ${W.weeks(ctx.F)}`);
+    note(
+      cell,
+      'family',
+      `the ${x.family} family is already in ${ws(famUse)}${away}; the family window is ${W.weeks(ctx.F)}`,
+    );
   }
   for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
     const k = ctx.sJ[t]!;
     const b = board.busiest(k, w);
     const total = b.load + ctx.sV[t]!;
     if (total > ctx.budget[k]! + EPS) {
-      push(
+      note(
+        cell,
         'jointBudget',
         `${W.jointLoad(JOINTS[k]!)} ${W.num(total)} over budget ${W.num(ctx.budget[k]!)} in ${W.span(ws(b.start), ws(b.start + ctx.J - 1))}`,
       );
@@ -479,18 +498,33 @@ function jointName(k: number): string {
   return W.jointName(JOINTS[k]!);
 }
 
-/** Request-level indexes, rebuilt when the request object or one of its lists is replaced. */
-const ctxCache = new WeakMap<PlanRequest, { key: unknown[]; ctx: Ctx }>();
-function keyOf(req: PlanRequest): unknown[] {
-  return [req.variants, req.variants.length, req.slots, req.slots.length, req.athletes, req.athletes.length, req.rules];
+/** A memo per request object, rebuilt when the request or one of the parts named in `key` is replaced. */
+export function memo<T>(
+  cache: WeakMap<PlanRequest, { key: unknown[]; value: T }>,
+  req: PlanRequest,
+  key: unknown[],
+  build: () => T,
+): T {
+  const hit = cache.get(req);
+  if (hit && hit.key.length === key.length && hit.key.every((k, i) => k === key[i])) return hit.value;
+  const value = build();
+  cache.set(req, { key, value });
+  return value;
 }
+
+const ctxCache = new WeakMap<PlanRequest, { key: unknown[]; value: Ctx }>();
+/** Request-level indexes; mutate nothing in place: replace the list or rules object that changed. */
 export function ctxFor(req: PlanRequest): Ctx {
-  const hit = ctxCache.get(req);
-  const key = keyOf(req);
-  if (hit && hit.key.every((k, i) => k === key[i])) return hit.ctx;
-  const ctx = buildCtx(req);
-  ctxCache.set(req, { key, ctx });
-  return ctx;
+  const key = [
+    req.variants,
+    req.variants.length,
+    req.slots,
+    req.slots.length,
+    req.athletes,
+    req.athletes.length,
+    req.rules,
+  ];
+  return memo(ctxCache, req, key, () => buildCtx(req));
 }
 
 /** Entries of one athlete, in their given order. */

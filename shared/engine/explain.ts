@@ -8,6 +8,7 @@ import {
   cellViolations,
   ctxFor,
   entriesOf,
+  memo,
   nearest,
   rangeOf,
   wn,
@@ -72,42 +73,49 @@ export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
     return hit;
   };
 
-  /** Runs f with the cell's own board entries taken off (they would be replaced by the drop). */
-  const withCellCleared = <T>(x: AthleteIndex, week: string, slotId: string, f: () => T): T => {
-    const own = x.cells.get(`${week}|${slotId}`);
-    const slot = ctx.slots.get(slotId)?.idx ?? -1;
-    const lifted: number[] = [];
-    if (own) {
-      for (const e of own) {
-        const v = ctx.byId.get(e.variantId);
-        if (v === undefined) continue;
-        x.board.add(wn(week), v, slot, -1);
-        lifted.push(v);
-      }
+  /** Takes the cell's own board entries off (a drop would replace them); restore() puts them back. */
+  const lifted: number[] = [];
+  const clear = (x: AthleteIndex, w: number, slot: number, key: string): void => {
+    lifted.length = 0;
+    for (const e of x.cells.get(key) ?? []) {
+      const v = ctx.byId.get(e.variantId);
+      if (v === undefined) continue;
+      x.board.add(w, v, slot, -1);
+      lifted.push(v);
     }
-    try {
-      return f();
-    } finally {
-      for (const v of lifted) x.board.add(wn(week), v, slot, 1);
-    }
+  };
+  const restore = (x: AthleteIndex, w: number, slot: number): void => {
+    for (const v of lifted) x.board.add(w, v, slot, 1);
   };
 
   const explain = (athleteId: string, week: string, slotId: string, variantId: string): Violation[] => {
     const x = get(athleteId);
     if (!x) return [];
-    return withCellCleared(x, week, slotId, () => cellViolations(ctx, x.ath, x.board, week, slotId, variantId));
+    const w = wn(week);
+    const slot = ctx.slots.get(slotId)?.idx ?? -1;
+    clear(x, w, slot, `${week}|${slotId}`);
+    try {
+      return cellViolations(ctx, x.ath, x.board, week, slotId, variantId);
+    } finally {
+      restore(x, w, slot);
+    }
   };
 
   const rate = (athleteId: string, week: string, slotId: string, variantId: string): CandidateRating => {
     const x = get(athleteId);
     if (!x) return { status: 'clean', violations: [], warnings: [] };
-    return withCellCleared(x, week, slotId, () => {
+    const w = wn(week);
+    const slot = ctx.slots.get(slotId)?.idx ?? -1;
+    clear(x, w, slot, `${week}|${slotId}`);
+    try {
       const violations = cellViolations(ctx, x.ath, x.board, week, slotId, variantId);
       const v = ctx.byId.get(variantId);
-      const warnings = v === undefined ? [] : softWarnings(ctx, x.board, wn(week), slotId, v);
+      const warnings = v === undefined ? [] : softWarnings(ctx, x.board, w, slotId, v);
       const status = violations.length ? 'break' : warnings.length ? 'warning' : 'clean';
       return { status, violations, warnings };
-    });
+    } finally {
+      restore(x, w, slot);
+    }
   };
 
   return { explain, rate };
@@ -149,7 +157,7 @@ function softWarnings(ctx: Ctx, board: Board, w: number, slotId: string, v: numb
   return out;
 }
 
-const prepared = new WeakMap<PlanRequest, { key: unknown[]; checks: CandidateChecks }>();
+const prepared = new WeakMap<PlanRequest, { key: unknown[]; value: CandidateChecks }>();
 
 /** What would break if variantId were put in the cell; reuses the prepared checks of the request. */
 export function explainCandidate(
@@ -169,10 +177,5 @@ export function explainCandidate(
     req.rules,
     req.slots,
   ];
-  let hit = prepared.get(req);
-  if (!hit || hit.key.some((k, i) => k !== key[i])) {
-    hit = { key, checks: prepareCandidateChecks(req) };
-    prepared.set(req, hit);
-  }
-  return hit.checks.explain(athleteId, week, slotId, variantId);
+  return memo(prepared, req, key, () => prepareCandidateChecks(req)).explain(athleteId, week, slotId, variantId);
 }
