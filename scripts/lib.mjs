@@ -262,5 +262,7 @@ export function standinEnv(ports, dir) {
     PAYMENTS_PORT: String(ports.payments),
     PAYMENTS_PROTOCOL: 'http',
     STANDIN_DATA_DIR: join(dir, 'standins'),
+    // The S3 SDK is pinned to a release that runs on Node 20; its notice about later releases is known.
+    AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
   };
 }
