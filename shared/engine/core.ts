@@ -10,6 +10,7 @@ import {
   type PlanRequest,
   type RuleId,
   type SlotDef,
+  type TaperRule,
   type Variant,
   type Violation,
 } from './types';
@@ -80,6 +81,7 @@ export interface Ctx {
   R: number;
   F: number;
   J: number;
+  taper: TaperRule[];
   taperMax: number; // largest weeksOut, −1 without taper rules
   athletes: Map<string, AthleteInput>;
   req: PlanRequest;
@@ -109,7 +111,7 @@ export function buildCtx(req: PlanRequest): Ctx {
   const budget = new Float64Array(NJ).fill(NaN);
   const budgeted: number[] = [];
   JOINTS.forEach((j, k) => {
-    const b = req.rules.jointBudget[j];
+    const b = req.rules.jointBudget?.[j];
     if (typeof b === 'number' && Number.isFinite(b)) {
       budget[k] = Math.max(0, b);
       budgeted.push(k);
@@ -190,7 +192,8 @@ export function buildCtx(req: PlanRequest): Ctx {
     R: Math.max(1, win(r.repeatWindowWeeks)),
     F: win(r.familyWindowWeeks),
     J: Math.max(1, win(r.jointWindowWeeks)),
-    taperMax: r.taper.reduce((m, t) => Math.max(m, t.weeksOut), -1),
+    taper: r.taper ?? [],
+    taperMax: (r.taper ?? []).reduce((m, t) => Math.max(m, t.weeksOut), -1),
     athletes,
     req,
   };
@@ -250,7 +253,7 @@ export function taperAt(ctx: Ctx, ath: Ath, w: number): Taper | null {
   let maxRisk = Infinity;
   let minSpec = -Infinity;
   let any = false;
-  for (const t of ctx.req.rules.taper) {
+  for (const t of ctx.taper) {
     if (d > t.weeksOut) continue;
     any = true;
     maxRisk = Math.min(maxRisk, t.maxRisk);
