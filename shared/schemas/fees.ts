@@ -60,7 +60,7 @@ export const feePlanDescriptionField = z
   .string()
   .trim()
   .max(1000, 'Use at most 1000 characters')
-  .optional()
+  .nullish()
   .transform((s) => (s ? s : null));
 
 export const feePlanBody = z.object({
@@ -115,6 +115,13 @@ export interface FeePlan {
   inUse: boolean;
   version: number;
   createdAt: string;
+}
+
+/** The plan list also names the team's currency, which new plans are priced in. */
+export interface FeePlanList {
+  items: FeePlan[];
+  total: number;
+  currency: string;
 }
 
 export interface AthleteFee {

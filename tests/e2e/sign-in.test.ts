@@ -35,7 +35,7 @@ describe('signing in', () => {
     await b.page.waitForURL(/\/board$/);
     const nav = b.page.getByRole('navigation', { name: 'Main' });
     const links = await nav.getByRole('link').allTextContents();
-    expect(links).toEqual(['Board', 'Library', 'Roster', 'Meets', 'Rules']);
+    expect(links).toEqual(['Board', 'Library', 'Roster', 'Meets', 'Rules', 'Fees']);
     await b.page.getByRole('button', { name: 'Sign out' }).click();
     await b.page.waitForURL(/\/sign-in/);
   });
@@ -44,7 +44,7 @@ describe('signing in', () => {
     await signInAs(b, 'athlete@rackturn.test');
     await b.page.waitForURL(/\/my-week$/);
     const links = await b.page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents();
-    expect(links).toEqual(['My week', 'My history']);
+    expect(links).toEqual(['My week', 'My history', 'Coaching fee']);
     await b.page.goto(`${b.baseUrl}/board`);
     await b.page.waitForURL(/\/my-week$/);
     await b.page.getByRole('button', { name: 'Sign out' }).click();

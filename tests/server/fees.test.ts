@@ -102,6 +102,8 @@ describe('GET /api/fees/plans', () => {
     const res = await agent.get('/api/fees/plans');
     expect(res.status).toBe(200);
     expect(res.body.total).toBe(2);
+    // New plans are priced in the team's currency, so the list names it even when empty.
+    expect(res.body.currency).toBe('EUR');
     expect(res.body.items.map((p: { name: string }) => p.name)).toEqual(['Basic', 'Competition']);
     const down = await agent.get('/api/fees/plans?sort=-price&limit=1&offset=0');
     expect(down.body).toMatchObject({ total: 2, items: [{ name: 'Competition' }] });

@@ -5,6 +5,7 @@ import {
   toMinorUnits,
   type AthleteFee,
   type FeePlan,
+  type FeePlanList,
   type FeePlanValues,
   type ListResponse,
 } from '../../../shared/schemas';
@@ -47,9 +48,9 @@ export function toAthleteFee(r: repo.AthleteFeeRow): AthleteFee {
   };
 }
 
-export async function listPlans(db: Queryable, teamId: number, f: repo.PlanFilters): Promise<ListResponse<FeePlan>> {
-  const { rows, total } = await repo.listPlans(db, teamId, f);
-  return { items: rows.map(toFeePlan), total };
+export async function listPlans(db: Queryable, teamId: number, f: repo.PlanFilters): Promise<FeePlanList> {
+  const [{ rows, total }, team] = await Promise.all([repo.listPlans(db, teamId, f), repo.teamCurrency(db, teamId)]);
+  return { items: rows.map(toFeePlan), total, currency: team.currency };
 }
 
 export async function listAthleteFees(

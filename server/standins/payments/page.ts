@@ -17,10 +17,11 @@ const STYLE = `
 body{margin:0;font:16px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,sans-serif;background:#eef1f4;color:#1b2430}
 .band{background:repeating-linear-gradient(135deg,#2b3a4a 0 14px,#33465a 14px 28px);color:#fff;padding:10px 16px;text-align:center;font-weight:600;letter-spacing:.02em}
 .band small{display:block;font-weight:400;opacity:.85}
-main{max-width:880px;margin:24px auto;padding:0 16px;display:grid;gap:20px;grid-template-columns:1fr}
-@media(min-width:760px){main{grid-template-columns:1fr 1.2fr}}
+main{max-width:880px;margin:24px auto;padding:0 16px;display:grid;gap:20px;grid-template-columns:1fr;grid-template-areas:"sum" "pay" "cards"}
+@media(min-width:760px){main{grid-template-columns:1fr 1.2fr;grid-template-areas:"sum pay" "cards pay";align-items:start}}
+.sum{grid-area:sum}.pay{grid-area:pay}.cards{grid-area:cards}
 .panel{background:#fff;border:2px dashed #8aa0b6;border-radius:10px;padding:20px}
-h1{font-size:1.15rem;margin:0 0 4px}
+h1,h2{font-size:1.15rem;margin:0 0 4px}
 .amount{font-size:2rem;font-weight:700;margin:8px 0 0}
 .per{color:#52606e}
 label{display:block;font-weight:600;font-size:.92rem;margin:14px 0 4px}
@@ -35,7 +36,7 @@ button:hover{background:#175960}
 a{color:#1f5f8b}
 table{width:100%;border-collapse:collapse;font-size:.9rem;margin-top:8px}
 td,th{text-align:left;padding:6px 4px;border-top:1px solid #dde3e9;vertical-align:top}
-code{font-size:.95rem;white-space:nowrap}
+code{font:600 .95rem/1.4 ui-monospace,Menlo,Consolas,monospace;white-space:nowrap;letter-spacing:.02em}
 .muted{color:#52606e;font-size:.88rem}
 `;
 
@@ -68,15 +69,18 @@ export function checkoutPage(v: CheckoutView): string {
   return frame(
     'Test checkout',
     `<main>
-<section class="panel" aria-labelledby="summary">
+<section class="panel sum" aria-labelledby="summary">
   <h1 id="summary">Monthly fee</h1>
   <p>${esc(v.productName)}</p>
   <p class="amount">${esc(money(v.unitAmount, v.currency))}</p>
   <p class="per">every month until cancelled</p>
-  <p class="muted">Test cards (any future expiry, any 3 digits):</p>
-  <table aria-label="Test cards"><tbody>${cards}</tbody></table>
 </section>
-<section class="panel" aria-labelledby="pay">
+<section class="panel cards" aria-labelledby="cards">
+  <h2 id="cards">Test cards</h2>
+  <p class="muted">Any future expiry and any three digits as the security code.</p>
+  <table aria-labelledby="cards"><tbody>${cards}</tbody></table>
+</section>
+<section class="panel pay" aria-labelledby="pay">
   <h1 id="pay">Card details</h1>
   ${v.declined ? `<p class="alert" role="alert">The card was declined. Nothing was charged — try another card.</p>` : ''}
   <form method="post" action="/test-checkout/${esc(v.sessionId)}" novalidate>

@@ -10,8 +10,10 @@ const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/roster', label: 'Roster', roles: ['head_coach', 'coach'] },
   { to: '/meets', label: 'Meets', roles: ['head_coach', 'coach'] },
   { to: '/rules', label: 'Rules', roles: ['head_coach'] },
+  { to: '/fees', label: 'Fees', roles: ['head_coach'] },
   { to: '/my-week', label: 'My week', roles: ['athlete'] },
   { to: '/my-history', label: 'My history', roles: ['athlete'] },
+  { to: '/my-fee', label: 'Coaching fee', roles: ['athlete'] },
 ];
 
 const ROLE_LABEL: Record<Role, string> = { head_coach: 'Head coach', coach: 'Coach', athlete: 'Athlete' };
