@@ -128,6 +128,12 @@ describe('POST /api/weeks/:week/publish', () => {
     expect(off.type).toBe('text/html');
     expect(off.text).toContain('Weekly e-mails are off');
     expect(off.headers['content-security-policy']).toMatch(/default-src 'none'/);
+    // The page's own font comes from the app, never from elsewhere.
+    expect(off.text).toContain('url(/api/email/font/400.woff2)');
+    const font = await request(t.app).get('/api/email/font/400.woff2');
+    expect(font.status).toBe(200);
+    expect(font.headers['content-type']).toBe('font/woff2');
+    expect((await request(t.app).get('/api/email/font/900.woff2')).status).toBe(400);
     const weekly = async (email: string) =>
       (await t.ctx.database.db.select().from(users).where(eq(users.email, email)))[0]!.weeklyEmail;
     expect(await weekly(recipients[1]!.email)).toBe(false);

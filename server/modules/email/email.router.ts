@@ -1,6 +1,8 @@
 // /api/email: the one-click way out of the weekly plan e-mail (and back in), reached from a signed link
 // in the e-mail itself, without signing in. Answers are small HTML pages, since a person opens them.
 import { randomBytes } from 'node:crypto';
+import { createRequire } from 'node:module';
+import { z } from 'zod';
 import { Router, type Response } from 'express';
 import { unsubscribeQuery } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
@@ -9,18 +11,23 @@ import { MAIL_COLOURS, escapeHtml } from '../../services/mail/layout';
 import { setWeeklyEmail } from './email.repository';
 import { verifyUnsubscribeToken } from './link-tokens';
 
+const require = createRequire(import.meta.url);
+const fontParams = z.object({ weight: z.enum(['400', '700']) });
+
 function page(res: Response, status: number, title: string, lines: string[], action?: { label: string; url: string }) {
   const nonce = randomBytes(16).toString('base64');
   const C = MAIL_COLOURS;
   res.status(status);
   res.setHeader(
     'Content-Security-Policy',
-    `default-src 'none'; style-src 'nonce-${nonce}'; form-action 'self'; frame-ancestors 'none'; base-uri 'none'`,
+    `default-src 'none'; style-src 'nonce-${nonce}'; font-src 'self'; form-action 'self'; frame-ancestors 'none'; base-uri 'none'`,
   );
   res.setHeader('Cache-Control', 'no-store');
   res.type('html').send(`<!doctype html><html lang="en"><head><meta charset="utf-8">
 <meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)} · Rackturn</title>
 <style nonce="${nonce}">
+@font-face{font-family:Barlow;font-weight:400;font-display:swap;src:url(/api/email/font/400.woff2) format('woff2')}
+@font-face{font-family:Barlow;font-weight:700;font-display:swap;src:url(/api/email/font/700.woff2) format('woff2')}
 body{margin:0;min-height:100vh;display:flex;flex-direction:column;align-items:center;justify-content:center;background:${C.ink900};font-family:Barlow,'Helvetica Neue',Helvetica,Arial,sans-serif;padding:24px;box-sizing:border-box}
 .mark{color:${C.chalk50};font-size:28px;font-weight:700;letter-spacing:.5px;margin-bottom:20px}
 .mark span{display:inline-block;width:22px;height:13px;margin-right:8px;background:${C.chalk100};border-left:6px solid ${C.rust500};border-right:6px solid ${C.rust500};border-radius:2px;vertical-align:middle}
@@ -38,6 +45,17 @@ const INVALID = ['This link is not valid or has run out. The link in your most r
 
 export function emailRouter(ctx: AppContext): Router {
   const router = Router();
+
+  // The pages above are served outside the client bundle, so they get the shipped Barlow files here.
+  router.get(
+    '/email/font/:weight.woff2',
+    validate({ params: fontParams }, ({ params }, _req, res) => {
+      res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      res
+        .type('font/woff2')
+        .sendFile(require.resolve(`@fontsource/barlow/files/barlow-latin-${params.weight}-normal.woff2`));
+    }),
+  );
 
   const unsubscribe = validate({ query: unsubscribeQuery }, async ({ query }, _req, res) => {
     const userId = await verifyUnsubscribeToken(ctx.env.SESSION_SECRET, query.token);

@@ -171,11 +171,16 @@ export function weeklyPlanMail(m: {
     { type: 'heading', text: 'Connective-tissue work' },
     {
       type: 'list',
-      items: m.tissue.map((t) => ({ title: t.exercise, lines: [tissueDose(t), ...t.instructions] })),
+      // The dose only: the step-by-step instructions are in My week, where the athlete does the work.
+      items: m.tissue.map((t) => ({ title: t.exercise, lines: [tissueDose(t)] })),
       empty: 'None this week.',
     },
+    ...(m.tissue.length > 0
+      ? [{ type: 'paragraph' as const, text: 'How to do each one, step by step, is in My week.' }]
+      : []),
     { type: 'button', label: 'Open My week', url: m.myWeekUrl },
-    { type: 'caution', lines: [...TRAINING_CAUTION, ...TISSUE_CAUTION.slice(1)] },
+    // The tissue caution's other lines repeat the training caution's.
+    { type: 'caution', lines: [...TRAINING_CAUTION, ...TISSUE_CAUTION.filter((l) => l.includes('swollen'))] },
   ];
   return renderMail({
     subject: `Your week of ${dayMonth.format(monday)}: ${m.teamName}`,

@@ -60,5 +60,6 @@ export const matrix: MatrixModule = {
     'GET /api/email/unsubscribe': { path: () => '/api/email/unsubscribe', expect: all(400) },
     'POST /api/email/unsubscribe': { path: () => '/api/email/unsubscribe', expect: all(400) },
     'POST /api/email/resubscribe': { path: () => '/api/email/resubscribe', expect: all(400) },
+    'GET /api/email/font/:weight.woff2': { path: () => '/api/email/font/400.woff2', expect: all(200) },
   },
 };
