@@ -36,6 +36,19 @@ export const TWO_SLOTS: SlotDef[] = [
   { id: 'upper', lifts: ['bench'] },
 ];
 
+/** Slot layouts for random requests: the usual two days, one day, an open slot, one slot per lift. */
+const SLOT_SETS: SlotDef[][] = [
+  TWO_SLOTS,
+  TWO_SLOTS,
+  [TWO_SLOTS[0]!],
+  [{ id: 'any', lifts: ['squat', 'bench', 'deadlift'] }],
+  [
+    { id: 'squat-day', lifts: ['squat'] },
+    { id: 'bench-day', lifts: ['bench'] },
+    { id: 'pull-day', lifts: ['deadlift'] },
+  ],
+];
+
 const FAMILIES: Record<Lift, string[]> = {
   squat: [
     'box-squat',
@@ -169,7 +182,7 @@ export function randomAthlete(
 
 export function randomRequest(seed: number, opts: RequestOptions = {}): PlanRequest {
   const r = mulberry32(seed);
-  const slots = opts.slots ?? (chance(r, 0.5) ? TWO_SLOTS : [TWO_SLOTS[0]!]);
+  const slots = opts.slots ?? pick(r, SLOT_SETS);
   const variants = randomLibrary(r, opts.variants ?? int(r, 4, 30), opts.lifts ? { lifts: opts.lifts } : {});
   const start = pick(r, STARTS);
   const weeks = weekRange(start, addWeeks(start, (opts.weeks ?? int(r, 1, 8)) - 1));

@@ -202,13 +202,18 @@ describe('engine properties', () => {
         };
         let r: PlanRequest = { ...req, variants: [...req.variants, plant], planned: [] };
         let variantId = 'planted';
+        let slotId = slot.id;
         switch (rule) {
           case 'unknownVariant':
             variantId = 'no-such-id';
             break;
-          case 'liftMismatch':
-            plant.lift = (['squat', 'bench', 'deadlift'] as const).find((l) => !slot.lifts.includes(l))!;
+          case 'liftMismatch': {
+            // A lift the slot does not take, or (for a slot that takes every lift) a slot that does not exist.
+            const other = (['squat', 'bench', 'deadlift'] as const).find((l) => !slot.lifts.includes(l));
+            if (other) plant.lift = other;
+            else slotId = 'no-such-slot';
             break;
+          }
           case 'equipment':
             plant.equipment = ['planted gear'];
             break;
@@ -243,7 +248,7 @@ describe('engine properties', () => {
             break;
         }
         const at = board.findIndex((e) => e.week === week && e.slotId === slot.id);
-        const planted = { athleteId: a.id, week, slotId: slot.id, variantId };
+        const planted = { athleteId: a.id, week, slotId, variantId };
         if (at >= 0) board[at] = planted;
         else board.push(planted);
         const found = checkPlan(r, board).filter((v) => cellKey(v) === cellKey(planted));
