@@ -44,7 +44,7 @@ export async function seedDemoTissue(tx: Tx, ctx: TissueSeedContext): Promise<vo
         kind,
         soreness,
         painJoints: pain ? ['elbow'] : [],
-        note: pain ? 'Left elbow ached on the pushdowns and again this morning.' : null,
+        note: pain ? 'Left elbow ached during the work and again this morning.' : null,
       });
       // The check-in is filled in the day after the work, mid-week.
       const filled = new Date(mondayOf(week).getTime() + 3 * 86_400_000 + 8 * 3_600_000);

@@ -5,6 +5,7 @@ import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import { bodyweightForm, type BodyweightFormValues, type BodyweightState } from '../../../../shared/schemas';
+import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { WarningIcon } from '../../../components/ui/icons';
@@ -63,9 +64,14 @@ export function BodyweightCard({
         <div className="rounded-md bg-chalk-100 px-3 py-2">
           <dt className="text-sm text-ink-600">Latest</dt>
           <dd className="font-semibold text-ink-900">
-            {bw.latest
-              ? `${formatWeight(bw.latest.weightKg, unit, { decimals: 1 })} · ${bw.latest.measuredOn}`
-              : 'No reading yet'}
+            {bw.latest ? (
+              <>
+                {formatWeight(bw.latest.weightKg, unit, { decimals: 1 })}
+                <span className="block text-sm font-normal text-ink-600">{bw.latest.measuredOn}</span>
+              </>
+            ) : (
+              'No reading yet'
+            )}
           </dd>
         </div>
         <div className="rounded-md bg-chalk-100 px-3 py-2">
@@ -109,6 +115,7 @@ export function BodyweightCard({
         {save.isSuccess ? <Notice tone="success">Bodyweight saved.</Notice> : null}
         <div className="grid grid-cols-2 gap-3">
           <TextField
+            style={TOUCH}
             label="Day"
             type="date"
             max={today}
@@ -116,6 +123,7 @@ export function BodyweightCard({
             {...form.register('measuredOn')}
           />
           <TextField
+            style={TOUCH}
             label={`Weight (${unit})`}
             inputMode="decimal"
             autoComplete="off"

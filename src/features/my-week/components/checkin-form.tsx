@@ -5,6 +5,7 @@ import type { z } from 'zod';
 import { JOINTS } from '../../../../shared/engine/types';
 import { jointName } from '../../../../shared/engine/words';
 import { tissueCheckinBody, type MyWeekCheckin, type TissueCheckinBody } from '../../../../shared/schemas';
+import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField } from '../../../components/ui/field';
 import { CleanIcon } from '../../../components/ui/icons';
@@ -72,10 +73,10 @@ export function CheckinForm({ weeks, thisWeek }: { weeks: MyWeekCheckin[]; thisW
           {save.error && !(isApiError(save.error) && Object.keys(save.error.fields).length) ? (
             <Notice tone="error">{save.error.message}</Notice>
           ) : null}
-          <SelectField label="Which week's work" error={errors.week?.message} {...form.register('week')}>
+          <SelectField style={TOUCH} label="Which week's work" error={errors.week?.message} {...form.register('week')}>
             {open.map((w) => (
               <option key={w.week} value={w.week}>
-                {w.week === thisWeek ? 'This week' : 'Last week'} ({w.week}) — {TISSUE_KIND_LABEL[w.kind!]}
+                {w.week === thisWeek ? 'This week' : 'Last week'}: {TISSUE_KIND_LABEL[w.kind!].toLowerCase()}
               </option>
             ))}
           </SelectField>
@@ -111,7 +112,7 @@ export function CheckinForm({ weeks, thisWeek }: { weeks: MyWeekCheckin[]; thisW
             </div>
           </fieldset>
           <TextAreaField label="Note (optional)" rows={2} error={errors.note?.message} {...form.register('note')} />
-          <Button type="submit" disabled={form.formState.isSubmitting}>
+          <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
             {form.formState.isSubmitting ? 'Saving…' : 'Save check-in'}
           </Button>
         </form>

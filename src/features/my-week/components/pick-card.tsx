@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
+import { CleanIcon } from '../../../components/ui/icons';
 import { SCHEME_LABEL, suggestedTopSet } from '../lib/top-set-math';
 import { TopSetForm } from './top-set-form';
 import { VideoUpload } from './video-upload';
@@ -70,7 +71,13 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
                   {formatWeight(s.e1rmKg, unit, { decimals: 1 })}
                   {s.note ? <span className="block text-sm text-ink-600">{s.note}</span> : null}
                 </p>
-                {s.videoId ? <p className="text-sm text-ink-600">Video attached.</p> : <VideoUpload topSetId={s.id} />}
+                {s.videoId ? (
+                  <p className="flex items-center gap-2 text-sm font-semibold text-clean-700">
+                    <CleanIcon /> Video attached: your coach can watch it.
+                  </p>
+                ) : (
+                  <VideoUpload topSetId={s.id} />
+                )}
               </li>
             ))}
           </ul>

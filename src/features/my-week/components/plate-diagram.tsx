@@ -39,7 +39,7 @@ export function layoutSleeve(perSide: readonly number[], unit: WeightUnit) {
   const placed = [];
   for (const w of perSide) {
     const mm = DISC_MM[unit][String(w)] ?? { d: 200, t: 15 };
-    const width = Math.max(5, mm.t * SCALE * 1.6);
+    const width = Math.max(7, mm.t * 0.5);
     placed.push({ w, x, width, h: mm.d * SCALE, colour: plateColour(w, unit) });
     x += width + 1;
   }
@@ -65,7 +65,8 @@ export function PlateDiagram({ weight, unit }: { weight: number; unit: WeightUni
     <figure className="flex flex-col gap-1">
       <svg
         viewBox={`0 0 ${Math.max(total, 120)} ${HEIGHT + 4}`}
-        className="h-16 w-full max-w-[16rem]"
+        className="h-20 w-full max-w-[16rem]"
+        preserveAspectRatio="xMinYMid meet"
         role="img"
         aria-label={`${label}. Total ${load.achieved} ${unit}.`}
       >

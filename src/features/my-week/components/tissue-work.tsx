@@ -43,16 +43,21 @@ export function TissueWork({ tissue }: { tissue: TissueWorkWeek }) {
       ) : null}
       {tissue.items.length > 0 ? (
         <ol className="flex flex-col gap-3">
-          {tissue.items.map((item) => (
+          {tissue.items.map((item, i) => (
             <li key={`${item.joint}-${item.kind}`} className="rounded-md border border-ink-200 bg-chalk-100 p-3">
               <p className="text-sm font-semibold uppercase tracking-wide text-ink-600">{jointName(item.joint)}</p>
               <p className="font-semibold text-ink-900">{item.exercise}</p>
               <p className="text-ink-800">{doseText(item)}</p>
-              <ul className="mt-2 list-disc pl-5 text-sm text-ink-700">
-                {item.instructions.map((line) => (
-                  <li key={line}>{line}</li>
-                ))}
-              </ul>
+              <details className="mt-1" open={i === 0}>
+                <summary className="flex min-h-11 cursor-pointer items-center font-semibold text-ink-800">
+                  How to do it
+                </summary>
+                <ul className="list-disc pl-5 text-sm text-ink-700">
+                  {item.instructions.map((line) => (
+                    <li key={line}>{line}</li>
+                  ))}
+                </ul>
+              </details>
             </li>
           ))}
         </ol>

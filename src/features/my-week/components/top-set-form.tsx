@@ -11,6 +11,7 @@ import {
   type LoggedTopSet,
   type MyWeekPick,
 } from '../../../../shared/schemas';
+import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { CleanIcon } from '../../../components/ui/icons';
@@ -74,15 +75,23 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
         {serverError ? <Notice tone="error">{serverError}</Notice> : null}
         <div className="grid grid-cols-2 gap-3">
           <TextField
+            style={TOUCH}
             label={`Weight (${unit})`}
             inputMode="decimal"
             autoComplete="off"
             error={errors.weight?.message}
             {...form.register('weight')}
           />
-          <TextField label="Reps" inputMode="numeric" error={errors.reps?.message} {...form.register('reps')} />
+          <TextField
+            style={TOUCH}
+            label="Reps"
+            inputMode="numeric"
+            error={errors.reps?.message}
+            {...form.register('reps')}
+          />
         </div>
         <SelectField
+          style={TOUCH}
           label="RPE (optional)"
           error={errors.rpe?.message}
           hint="10 = nothing left, 9 = one more rep was there"
@@ -163,7 +172,7 @@ function LoggedResult({ result, unit }: { result: { logged: LoggedTopSet; video:
           : ''}
         {logged.newHeaviest && !logged.firstOnVariant ? ' · heaviest weight on this variant' : ''}
       </p>
-      <VideoUpload topSetId={s.id} file={result.video} />
+      {result.video ? <VideoUpload topSetId={s.id} file={result.video} /> : null}
     </div>
   );
 }

@@ -9,7 +9,7 @@ import { videoCommentBody, type Video, type VideoCommentBody } from '../../../..
 import { Button } from '../../../components/ui/button';
 import { TextAreaField } from '../../../components/ui/field';
 import { CleanIcon, WarningIcon } from '../../../components/ui/icons';
-import { Loading, Notice, TrainingCaution } from '../../../components/ui/page';
+import { Loading, Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { useMe } from '../../auth/api/queries';
 import { LiftCharts } from '../../history/components/lift-charts';
@@ -100,7 +100,6 @@ export function AthleteReview({ athleteId }: { athleteId: number }) {
       <h2 id="review-heading" className="text-2xl font-bold text-ink-900">
         Review: {data.athlete.name}
       </h2>
-      <TrainingCaution />
 
       <section aria-labelledby="suggestions-heading" className="flex flex-col gap-2">
         <h3 id="suggestions-heading" className="text-xl font-bold text-ink-900">

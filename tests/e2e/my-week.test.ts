@@ -1,0 +1,171 @@
+// The athlete's week on a phone (375 × 812): the pick planned on the board, the warm-up with plate
+// diagrams, logging a top set over the variant's record, the updated chart, a video upload that can be
+// cancelled, and the coach watching and commenting on it from the athlete's page.
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import mysql from 'mysql2/promise';
+import { weekOfDate } from '../../shared/engine/weeks';
+import { openBrowser, signInAs, type Browser } from './support/browser';
+
+const thisWeek = weekOfDate(new Date());
+let b: Browser;
+let db: mysql.Connection;
+let noorId: number;
+let picks: { id: number; slotId: string; variantId: number; name: string; lift: string }[];
+
+const u32 = (n: number) => {
+  const x = Buffer.alloc(4);
+  x.writeUInt32BE(n);
+  return x;
+};
+const box = (type: string, body: Buffer) => Buffer.concat([u32(8 + body.length), Buffer.from(type, 'latin1'), body]);
+/** A tiny ISO BMFF file that reads as MP4 by its content: an ftyp box (isom brand) and a media box. */
+function tinyMp4(payload: number): Buffer {
+  const ftyp = box('ftyp', Buffer.concat([Buffer.from('isom'), u32(512), Buffer.from('isomiso2mp41')]));
+  return Buffer.concat([ftyp, box('mdat', Buffer.alloc(payload, 7))]);
+}
+
+beforeAll(async () => {
+  db = await mysql.createConnection({ uri: inject('e2eDatabaseUrl') });
+  const [[noor]] = (await db.query("SELECT id FROM athletes WHERE name = 'Noor Halvorsen'")) as unknown as [
+    { id: number }[],
+  ];
+  noorId = noor!.id;
+  const [rows] = await db.query(
+    `SELECT p.id, p.slot_id AS slotId, v.id AS variantId, v.name, v.lift
+       FROM plan_entries p JOIN variants v ON v.id = p.variant_id
+      WHERE p.athlete_id = ? AND p.week = ? ORDER BY p.slot_id`,
+    [noorId, thisWeek],
+  );
+  picks = rows as typeof picks;
+  b = await openBrowser({ width: 375, height: 812 });
+});
+afterAll(async () => {
+  await b?.close();
+  await db?.end();
+});
+
+async function bestE1rm(variantId: number): Promise<number> {
+  const [[row]] = (await db.query('SELECT MAX(e1rm_kg) AS best FROM top_sets WHERE athlete_id = ? AND variant_id = ?', [
+    noorId,
+    variantId,
+  ])) as unknown as [{ best: string | null }[]];
+  return Number(row?.best ?? 0);
+}
+
+describe('My week on a phone', () => {
+  it('shows the picks the board holds for this week, with their scheme', async () => {
+    expect(picks.length).toBeGreaterThan(0);
+    await signInAs(b, 'athlete@rackturn.test');
+    await b.page.waitForURL(/\/my-week$/);
+    await b.page.getByRole('heading', { name: picks[0]!.name }).waitFor();
+    const headings = await b.page.locator('section h2').allTextContents();
+    for (const p of picks) expect(headings).toContain(p.name);
+    await expect(
+      b.page
+        .getByText(/Work up to a top (single|triple|five)/)
+        .first()
+        .isVisible(),
+    ).resolves.toBe(true);
+    await expect(b.page.getByRole('complementary', { name: 'Training caution' }).isVisible()).resolves.toBe(true);
+  });
+
+  it('opens the warm-up with a plate diagram for every step', async () => {
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: picks[0]!.name }) });
+    await card.getByRole('button', { name: 'Warm-up and plates' }).click();
+    const steps = card.getByRole('list', { name: 'Warm-up sets' }).getByRole('listitem');
+    expect(await steps.count()).toBeGreaterThanOrEqual(3);
+    const diagrams = card.getByRole('img', { name: /Each side|Empty bar/ });
+    expect(await diagrams.count()).toBe(await steps.count());
+    await expect(
+      card
+        .getByText(/^Each side: 25/)
+        .first()
+        .isVisible(),
+    ).resolves.toBe(true);
+  });
+
+  it('logs a top set over the record, sees the new record, then the updated chart', async () => {
+    const pick = picks[0]!;
+    const before = await bestE1rm(pick.variantId);
+    // A single 2.5–5 kg over the best e1RM: its e1RM (the weight itself) beats the record.
+    const weight = Math.ceil((before + 0.01) / 2.5) * 2.5 + 2.5;
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pick.name }) });
+    const form = card.getByRole('form', { name: `Log top set: ${pick.name}` });
+    await form.getByLabel('Weight (kg)').fill(String(weight));
+    await form.getByLabel('Reps').fill('1');
+    await form.getByLabel('RPE (optional)').selectOption('9.5');
+    await expect(form.getByText('Beats your record').isVisible()).resolves.toBe(true);
+    await form.getByRole('button', { name: 'Log top set' }).click();
+    await card.getByText('New record on this variant').waitFor();
+    await expect(card.getByTestId('record-e1rm').textContent()).resolves.toMatch(
+      new RegExp(`^${String(weight).replace('.', '\\.')}\\skg`),
+    );
+    expect(await bestE1rm(pick.variantId)).toBe(weight);
+
+    await b.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'My history' }).click();
+    await b.page.waitForURL(/\/my-history$/);
+    const title = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' }[pick.lift]!;
+    const summary = b.page.getByTestId(`e1rm-${title.toLowerCase().replace(/\W+/g, '-')}-summary`);
+    await expect(summary.textContent()).resolves.toMatch(
+      new RegExp(`latest week's best ${String(weight).replace('.', '\\.')} kg`),
+    );
+    await expect(b.page.getByRole('img', { name: new RegExp(`${title} e1RM over time`) }).isVisible()).resolves.toBe(
+      true,
+    );
+    await b.page.screenshot({ path: '.tmp/e2e-my-history-375.png', fullPage: true });
+    await b.page.goBack();
+    await b.page.waitForURL(/\/my-week$/);
+  });
+
+  it('shows upload progress and can cancel, then uploads a small video', async () => {
+    const pick = picks[0]!;
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pick.name }) });
+    // Hold the upload open (no answer) so the progress bar can be seen and the cancel pressed.
+    await b.page.route('**/api/top-sets/*/video', () => undefined);
+    const chooser = card.getByLabel('Add a video of this set').first();
+    await chooser.setInputFiles({ name: 'top-set.mp4', mimeType: 'video/mp4', buffer: tinyMp4(200_000) });
+    await card.getByRole('progressbar').first().waitFor();
+    await card.getByRole('button', { name: 'Cancel upload' }).click();
+    await card.getByText('Upload cancelled. You can choose the video again.').waitFor();
+    await b.page.unroute('**/api/top-sets/*/video');
+
+    await card
+      .getByLabel('Choose the video again')
+      .first()
+      .setInputFiles({
+        name: 'top-set.mp4',
+        mimeType: 'video/mp4',
+        buffer: tinyMp4(4000),
+      });
+    await card.getByText('Video attached: your coach can watch it.').waitFor();
+    await b.page.screenshot({ path: '.tmp/e2e-my-week-375.png', fullPage: true });
+  });
+
+  it('the coach sees the video on the athlete page, plays it back and comments', async () => {
+    await b.page.getByRole('button', { name: 'Sign out' }).click();
+    await b.page.waitForURL(/\/sign-in/);
+    await signInAs(b, 'coach@rackturn.test');
+    await b.page.goto(`${b.baseUrl}/athletes/${noorId}`);
+    const videos = b.page.locator('section', { has: b.page.getByRole('heading', { name: 'Top-set videos' }) });
+    const player = videos.locator('video').first();
+    await player.waitFor({ state: 'attached' });
+    const src = await player.getAttribute('src');
+    expect(src).toMatch(/^\/api\/videos\/\d+\/content$/);
+    await expect(videos.getByText(new RegExp(picks[0]!.name)).first().isVisible()).resolves.toBe(true);
+    // The stream answers byte ranges, which is what lets the player seek.
+    const part = await b.page.request.get(`${b.baseUrl}${src}`, { headers: { Range: 'bytes=4-7' } });
+    expect(part.status()).toBe(206);
+    expect((await part.body()).toString('latin1')).toBe('ftyp');
+    await videos
+      .getByRole('textbox', { name: 'Comment' })
+      .first()
+      .fill('Strong lockout. Keep the bar closer off the floor.');
+    await videos.getByRole('button', { name: 'Add comment' }).first().click();
+    await videos.getByText('Strong lockout. Keep the bar closer off the floor.').waitFor();
+  });
+
+  it('raised no console errors', () => {
+    // The cancelled upload may log the aborted request; nothing else may show up.
+    expect(b.problems.filter((p) => !/abort|ERR_ABORTED|cancel/i.test(p))).toEqual([]);
+  });
+});
