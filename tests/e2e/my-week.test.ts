@@ -3,8 +3,9 @@
 // cancelled, and the coach watching and commenting on it from the athlete's page.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
+import { request } from 'playwright-core';
 import { weekOfDate } from '../../shared/engine/weeks';
-import { openBrowser, signInAs, type Browser } from './support/browser';
+import { DEMO_PASSWORD, openBrowser, signInAs, type Browser } from './support/browser';
 
 const thisWeek = weekOfDate(new Date());
 let b: Browser;
@@ -55,6 +56,18 @@ async function bestE1rm(variantId: number): Promise<number> {
 describe('My week on a phone', () => {
   it('shows the picks the board holds for this week, with their scheme', async () => {
     expect(picks.length).toBeGreaterThan(0);
+    // What the coach's board reads for this athlete and week, through the plans API.
+    const coachApi = await request.newContext({ baseURL: b.baseUrl });
+    expect(
+      (
+        await coachApi.post('/api/auth/login', { data: { email: 'coach@rackturn.test', password: DEMO_PASSWORD } })
+      ).ok(),
+    ).toBe(true);
+    const board = (await (
+      await coachApi.get(`/api/plans?from=${thisWeek}&to=${thisWeek}&athleteId=${noorId}`)
+    ).json()) as { items: { variantId: number | null; slotId: string }[] };
+    await coachApi.dispose();
+    expect(board.items.map((e) => e.variantId).sort()).toEqual(picks.map((p) => p.variantId).sort());
     await signInAs(b, 'athlete@rackturn.test');
     await b.page.waitForURL(/\/my-week$/);
     await b.page.getByRole('heading', { name: picks[0]!.name }).waitFor();
