@@ -395,7 +395,8 @@ export function specText(x: number): string {
   return String(Math.round(x * 100) / 100);
 }
 
-interface Cell {
+/** The cell being judged, and where its violations go. */
+interface Target {
   athleteId: string;
   week: string;
   slotId: string;
@@ -403,7 +404,7 @@ interface Cell {
   out: Violation[];
 }
 
-function note(c: Cell, rule: RuleId, message: string): void {
+function note(c: Target, rule: RuleId, message: string): void {
   c.out.push({ rule, athleteId: c.athleteId, week: c.week, slotId: c.slotId, variantId: c.variantId, message });
 }
 
@@ -420,7 +421,7 @@ export function cellViolations(
   variantId: string,
 ): Violation[] {
   const out: Violation[] = [];
-  const cell: Cell = { athleteId: ath.input.id, week, slotId, variantId, out };
+  const cell: Target = { athleteId: ath.input.id, week, slotId, variantId, out };
   const v = ctx.byId.get(variantId);
   if (v === undefined) {
     note(cell, 'unknownVariant', `no variant "${variantId}" in the library`);
