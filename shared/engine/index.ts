@@ -1,4 +1,6 @@
 // Public entry of the rotation engine: pure TypeScript shared by the browser and the server.
+// The connective-tissue module is imported from ./tissue directly, so pages that only plan rotations
+// do not carry it.
 
 export * from './types';
 export * from './weeks';
@@ -13,4 +15,3 @@ export {
 } from './explain';
 export { jointLoadSeries, peakLoadRatio, type JointLoadPoint } from './load';
 export { jointName, jointLoad as jointLoadLabel, emphasisName } from './words';
-export * from './tissue';
