@@ -4,7 +4,17 @@ import { eq } from 'drizzle-orm';
 import { addWeeks, checkPlan, weekOfDate, type PlanEntry, type Variant } from '../../shared/engine';
 import { readTeamRules, toEngineRules, toEngineSlots } from '../../shared/schemas/rules';
 import { createDatabase, type Database } from '../../server/db/client';
-import { athletes, bodyweights, planEntries, restrictions, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
+import {
+  athletes,
+  bodyweights,
+  planEntries,
+  restrictions,
+  teamRules,
+  teams,
+  topSets,
+  users,
+  variants,
+} from '../../server/db/schema';
 import { seedDemoIfEmpty } from '../../server/db/seed/demo';
 import { verifyPassword } from '../../server/lib/passwords';
 import { recreateDatabase } from '../support/integration-setup';
@@ -27,7 +37,12 @@ describe('demo seed', () => {
   }, 60_000);
 
   it('has the demo accounts with the documented password', async () => {
-    for (const email of ['coach@rackturn.test', 'coach2@rackturn.test', 'athlete@rackturn.test', 'other@rackturn.test']) {
+    for (const email of [
+      'coach@rackturn.test',
+      'coach2@rackturn.test',
+      'athlete@rackturn.test',
+      'other@rackturn.test',
+    ]) {
       const [u] = await database.db.select().from(users).where(eq(users.email, email));
       expect(u, email).toBeDefined();
       expect(await verifyPassword('rackturn-demo', u!.passwordHash)).toBe(true);
@@ -40,7 +55,9 @@ describe('demo seed', () => {
     expect(roster.length).toBeGreaterThanOrEqual(10);
     const library = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
     expect(library.length).toBeGreaterThanOrEqual(60);
-    const joints = (await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id))).map((r) => r.joint);
+    const joints = (await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id))).map(
+      (r) => r.joint,
+    );
     expect(joints.sort()).toEqual(['elbow', 'lowerBack']);
   });
 
@@ -57,8 +74,22 @@ describe('demo seed', () => {
     expect([...new Set(rows.map((r) => r.week))].sort()).toEqual(weeks);
     expect(rows.length).toBe(roster.length * weeks.length * rules.slots.length);
 
-    const entries: PlanEntry[] = rows.map((r) => ({ athleteId: String(r.athleteId), week: r.week, slotId: r.slotId, variantId: String(r.variantId) }));
-    const engineVariants: Variant[] = lib.map((v) => ({ id: String(v.id), name: v.name, lift: v.lift, family: v.family, risk: v.risk as 1 | 2 | 3, specificity: v.specificity, stress: v.stress, equipment: v.equipment }));
+    const entries: PlanEntry[] = rows.map((r) => ({
+      athleteId: String(r.athleteId),
+      week: r.week,
+      slotId: r.slotId,
+      variantId: String(r.variantId),
+    }));
+    const engineVariants: Variant[] = lib.map((v) => ({
+      id: String(v.id),
+      name: v.name,
+      lift: v.lift,
+      family: v.family,
+      risk: v.risk as 1 | 2 | 3,
+      specificity: v.specificity,
+      stress: v.stress,
+      equipment: v.equipment,
+    }));
     const violations = checkPlan(
       {
         variants: engineVariants,
@@ -68,7 +99,9 @@ describe('demo seed', () => {
         athletes: roster.map((a) => ({
           id: String(a.id),
           equipment: a.equipment,
-          restrictions: limits.filter((l) => l.athleteId === a.id).map((l) => ({ joint: l.joint, maxStress: l.maxStress })),
+          restrictions: limits
+            .filter((l) => l.athleteId === a.id)
+            .map((l) => ({ joint: l.joint, maxStress: l.maxStress })),
           history: [],
         })),
       },
@@ -86,7 +119,10 @@ describe('demo seed', () => {
     for (const s of sets) expect(s.e1rmKg).toBeGreaterThanOrEqual(s.weightKg);
     const weights = await database.db.select().from(bodyweights).where(eq(bodyweights.teamId, club!.id));
     expect(weights.length).toBeGreaterThan(12 * 2 * 10);
-    const latest = weights.map((w) => w.measuredOn).sort().at(-1)!;
+    const latest = weights
+      .map((w) => w.measuredOn)
+      .sort()
+      .at(-1)!;
     expect(latest < today.toISOString().slice(0, 10)).toBe(true);
   });
 });
