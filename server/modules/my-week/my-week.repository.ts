@@ -1,4 +1,5 @@
-// SQL for the athlete's week: the max-effort picks on the board for that week, with their variants.
+// SQL for the athlete's week: the max-effort picks on the board for that week, with their variants
+// (the connective-tissue work reads their joint stress from here too).
 import { and, asc, eq, isNotNull } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
 import { planEntries, variants } from '../../db/schema';
@@ -17,6 +18,7 @@ export async function weekPicks(db: Queryable, teamId: number, athleteId: number
         specificity: variants.specificity,
         scheme: variants.scheme,
         notes: variants.notes,
+        stress: variants.stress,
       },
     })
     .from(planEntries)

@@ -1,18 +1,10 @@
 // SQL for connective-tissue prescriptions and check-ins, and the few facts their generation reads
-// (team rules, the next meet, the week's max-effort picks). Every query is scoped to the team.
-import { and, asc, desc, eq, gt, gte, isNotNull, lt, sql } from 'drizzle-orm';
-import type { Joint, Variant } from '../../../shared/engine/types';
+// (team rules, the next meet). Every query is scoped to the team.
+import { and, asc, desc, eq, gt, gte, lt, sql } from 'drizzle-orm';
+import type { Joint } from '../../../shared/engine/types';
 import type { TissueKind, TissuePrescription } from '../../../shared/engine/tissue';
 import type { Queryable } from '../../db/client';
-import {
-  meetEntries,
-  meets,
-  planEntries,
-  teamRules,
-  tissueCheckins,
-  tissuePrescriptions,
-  variants,
-} from '../../db/schema';
+import { meetEntries, meets, teamRules, tissueCheckins, tissuePrescriptions } from '../../db/schema';
 
 export async function findTeamRulesRow(db: Queryable, teamId: number) {
   const [row] = await db.select().from(teamRules).where(eq(teamRules.teamId, teamId)).limit(1);
@@ -120,26 +112,4 @@ export async function findNextMeet(db: Queryable, teamId: number, athleteId: num
     .orderBy(asc(meets.date), asc(meets.id))
     .limit(1);
   return row ?? null;
-}
-
-/** Joint stress of the variants picked for the athlete's max-effort slots that week. */
-export async function weekPickStress(
-  db: Queryable,
-  teamId: number,
-  athleteId: number,
-  week: string,
-): Promise<Pick<Variant, 'stress'>[]> {
-  const rows = await db
-    .select({ stress: variants.stress })
-    .from(planEntries)
-    .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
-    .where(
-      and(
-        eq(planEntries.teamId, teamId),
-        eq(planEntries.athleteId, athleteId),
-        eq(planEntries.week, week),
-        isNotNull(planEntries.variantId),
-      ),
-    );
-  return rows.map((r) => ({ stress: r.stress }));
 }

@@ -23,8 +23,8 @@ import {
   insertPrescriptionIfAbsent,
   listCheckins,
   listPrescriptionsBefore,
-  weekPickStress,
 } from './tissue.repository';
+import { weekPicks } from '../my-week/my-week.repository';
 
 type DbOrCtx = Queryable | Pick<AppContext, 'database'>;
 
@@ -65,7 +65,7 @@ export async function tissueInput(
     listPrescriptionsBefore(db, teamId, athleteId, week),
     listCheckins(db, teamId, athleteId),
     findNextMeet(db, teamId, athleteId, isoDay(mondayOf(week))),
-    weekPickStress(db, teamId, athleteId, week),
+    weekPicks(db, teamId, athleteId, week),
   ]);
   const { rules, focusJoints } = tissueRulesOf(team);
   return {
@@ -75,7 +75,7 @@ export async function tissueInput(
     history: history.flatMap((h) => h.items),
     checkins: toEngineCheckins(checkins),
     focusJoints,
-    jointLoad: jointLoadOf(picks),
+    jointLoad: jointLoadOf(picks.map((p) => p.variant)),
   };
 }
 
