@@ -61,7 +61,7 @@ describe('tissueWorkFor', () => {
     expect(rows).toHaveLength(1);
   });
 
-  it('does not store weeks that are already over, and refuses another team’s athlete', async () => {
+  it('stores only this week and next, and refuses another team’s athlete', async () => {
     const other = await createTeam(t.ctx.database.db);
     const past = await tissueWorkFor(t.ctx, team.teamId, team.athleteId, addWeeks(thisWeek, -5));
     expect(past.items.length).toBeGreaterThan(0);
@@ -70,6 +70,14 @@ describe('tissueWorkFor', () => {
       .from(tissuePrescriptions)
       .where(eq(tissuePrescriptions.week, addWeeks(thisWeek, -5)));
     expect(rows.filter((r) => r.athleteId === team.athleteId)).toHaveLength(0);
+    await tissueWorkFor(t.ctx, team.teamId, team.athleteId, addWeeks(thisWeek, 3));
+    const ahead = await t.ctx.database.db
+      .select()
+      .from(tissuePrescriptions)
+      .where(
+        and(eq(tissuePrescriptions.athleteId, team.athleteId), eq(tissuePrescriptions.week, addWeeks(thisWeek, 3))),
+      );
+    expect(ahead).toHaveLength(0);
     await expect(tissueWorkFor(t.ctx, team.teamId, other.athleteId, thisWeek)).rejects.toMatchObject({ status: 404 });
   });
 });

@@ -28,6 +28,9 @@ import { weekPicks } from '../my-week/my-week.repository';
 
 type DbOrCtx = Queryable | Pick<AppContext, 'database'>;
 
+/** How far ahead a prescription is stored (next week's goes out in the weekly e-mail). */
+export const STORE_AHEAD_WEEKS = 1;
+
 function dbOf(source: DbOrCtx): Queryable {
   return 'database' in source ? source.database.db : source;
 }
@@ -81,7 +84,8 @@ export async function tissueInput(
 
 /**
  * The athlete's connective-tissue work for `week`: the stored prescription, or a new one generated and
- * stored (one per athlete and week; weeks already over are generated but not stored). Notes and coach suggestions are worked out from what is known now.
+ * stored (one per athlete and week; only this week and next are stored, other weeks are worked out).
+ * Notes and coach suggestions are worked out from what is known now.
  * Throws NotFoundError when the athlete is not on that team.
  */
 export async function tissueWorkFor(
@@ -96,8 +100,10 @@ export async function tissueWorkFor(
   const input = await tissueInput(db, teamId, athleteId, week);
   const fresh = prescribeTissueWork(input);
   let stored = await findPrescription(db, teamId, athleteId, week);
-  // A week already over is shown as it would have been, but not written into the athlete's history.
-  if (!stored && week >= weekOfDate(today)) {
+  // Only this week and next are written: a week already over is shown as it would have been, and one
+  // further ahead as it looks now, without fixing either in the athlete's history.
+  const current = weekOfDate(today);
+  if (!stored && week >= current && week <= addWeeks(current, STORE_AHEAD_WEEKS)) {
     await insertPrescriptionIfAbsent(db, { teamId, athleteId, week, items: fresh.items });
     stored = await findPrescription(db, teamId, athleteId, week);
   }
