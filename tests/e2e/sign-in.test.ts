@@ -34,6 +34,7 @@ describe('signing in', () => {
     await signInAs(b, 'coach@rackturn.test');
     await b.page.waitForURL(/\/board$/);
     const nav = b.page.getByRole('navigation', { name: 'Main' });
+    await nav.getByRole('link', { name: 'Board' }).waitFor();
     const links = await nav.getByRole('link').allTextContents();
     expect(links).toEqual(['Board', 'Library', 'Roster', 'Meets', 'Rules', 'Fees']);
     await b.page.getByRole('button', { name: 'Sign out' }).click();
@@ -43,6 +44,7 @@ describe('signing in', () => {
   it('the athlete sees only their own pages, and coach pages send them home', async () => {
     await signInAs(b, 'athlete@rackturn.test');
     await b.page.waitForURL(/\/my-week$/);
+    await b.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'My week' }).waitFor();
     const links = await b.page.getByRole('navigation', { name: 'Main' }).getByRole('link').allTextContents();
     expect(links).toEqual(['My week', 'My history', 'Coaching fee']);
     await b.page.goto(`${b.baseUrl}/board`);

@@ -8,11 +8,12 @@ import { createLogger } from '../../server/lib/logger';
 import { SessionKeys } from '../../server/lib/session';
 import { startMariaDb, type MariaDbInstance } from '../../scripts/lib.mjs';
 import { testEnv } from '../support/app';
-import { createServices } from '../../server/services';
+import { createServices, stopServices, type Services } from '../../server/services';
 
 let instance: MariaDbInstance;
 let database: Database;
 let app: ReturnType<typeof createApp>;
+let services: Services | undefined;
 const PORT = Number(process.env.TEST_DB_PORT ?? 3308) + 10;
 const NAME = `${process.env.TEST_INSTANCE ?? 'test'}-outage`;
 
@@ -22,16 +23,18 @@ beforeAll(async () => {
   database = createDatabase(env.DATABASE_URL, { connectionLimit: 3 });
   await runMigrations(database.db);
   const logger = createLogger('silent');
+  services = createServices(env, logger);
   app = createApp({
     env,
     database,
     logger,
     sessions: new SessionKeys(env.SESSION_SECRET),
-    services: createServices(env, logger),
+    services,
   });
 }, 60_000);
 
 afterAll(async () => {
+  if (services) await stopServices(services);
   await database?.close().catch(() => undefined);
   await instance?.stop();
 });
