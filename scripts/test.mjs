@@ -24,7 +24,9 @@ mkdirSync(tmp, { recursive: true });
 // TEST_INSTANCE and the port variables let several checkouts or developers test side by side.
 const instance = process.env.TEST_INSTANCE ?? 'test';
 const dbPort = Number(process.env.TEST_DB_PORT ?? 3308);
-const db = await startMariaDb({ name: instance, port: dbPort, databases: ['rackturn_test', 'rackturn_e2e'] });
+// Its own folder, apart from any `npm start` instance of the same name.
+const folder = instance === 'test' ? 'test' : `test-${instance}`;
+const db = await startMariaDb({ name: folder, port: dbPort, databases: ['rackturn_test', 'rackturn_e2e'] });
 log(`test MariaDB "${instance}" on 127.0.0.1:${dbPort}`);
 
 const ports = standinPorts(Number(process.env.TEST_STANDIN_PORT_BASE ?? 4500));
