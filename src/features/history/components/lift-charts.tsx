@@ -23,9 +23,9 @@ export function LiftCharts({ series, unit }: { series: Series; unit: WeightUnit 
       </h2>
       <p className="text-ink-700">
         Each point is a top set on a <em>variant</em> of the lift, shown under the lift it trains. A variant is not the
-        competition lift, so its e1RM is a guide to the trend, not your meet max. Filled points are variants close to
-        the competition lift (specificity {CLOSE_SPECIFICITY} or more); hollow ones are further from it. The line is
-        each week's best.
+        competition lift, so its e1RM is a guide to the trend, not a meet max. Filled points are variants close to the
+        competition lift (specificity {CLOSE_SPECIFICITY} or more); hollow ones are further from it. The line is each
+        week's best.
       </p>
       <label htmlFor={id} className="flex min-h-11 items-center gap-3 self-start font-semibold text-ink-800">
         <input

@@ -127,7 +127,7 @@ export function AthleteReview({ athleteId }: { athleteId: number }) {
         )}
         {data.checkins.length > 0 ? (
           <div className="overflow-x-auto">
-            <table className="w-full min-w-[28rem] text-left text-sm">
+            <table className="w-full text-left text-sm">
               <caption className="mb-1 text-left font-semibold text-ink-800">Recent next-day check-ins</caption>
               <thead className="text-ink-600">
                 <tr>
