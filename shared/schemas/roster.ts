@@ -2,7 +2,7 @@
 // restrictions, and the read-only history of picks, top sets and bodyweights on the Athlete page.
 import { z } from 'zod';
 import { idParam, isoDate, isoWeek, listQuery, versionField } from './common';
-import { booleanQuery, optionalQueryText, optionalText, sortParam } from './library';
+import { booleanQuery, optionalQueryText, sortParam } from './library';
 import { athleteRuleOverridesSchema, equipmentListSchema, jointSchema, liftSchema } from './rules';
 
 export const sexSchema = z.enum(['M', 'F']);
@@ -25,7 +25,12 @@ export const athleteFields = {
   level: levelSchema,
   equipment: equipmentListSchema,
   ruleOverrides: athleteRuleOverridesSchema,
-  notes: optionalText(2000),
+  notes: z
+    .string()
+    .trim()
+    .max(2000, 'Use at most 2000 characters')
+    .nullish()
+    .transform((v) => (v ? v : null)),
   /** The team member's account this roster entry belongs to, or null for none. */
   userId: idParam.nullish().transform((v) => v ?? null),
 };
@@ -69,7 +74,12 @@ const restrictionFields = {
     .max(3, 'Use 0 to 3'),
   fromDate: isoDate,
   toDate: isoDate.nullish().transform((v) => v ?? null),
-  note: optionalText(500),
+  note: z
+    .string()
+    .trim()
+    .max(500, 'Use at most 500 characters')
+    .nullish()
+    .transform((v) => (v ? v : null)),
 };
 
 const datesInOrder = (r: { fromDate?: string; toDate?: string | null }) =>

@@ -15,7 +15,7 @@ export function BodyweightChart({ readings, unit }: { readings: readonly Bodywei
       className="flex flex-col gap-2 rounded-lg border border-ink-200 bg-chalk-50 p-3"
     >
       <figcaption id="bw-chart-title" className="flex flex-wrap items-baseline justify-between gap-2">
-        <span className="text-lg font-semibold text-ink-900">Bodyweight</span>
+        <span className="text-lg font-semibold text-ink-900">Bodyweight ({unit})</span>
         <span className="text-sm text-ink-600">
           {latest
             ? `latest ${formatWeight(latest.weightKg, unit, { decimals: 1 })} · ${latest.measuredOn}`
@@ -34,7 +34,12 @@ export function BodyweightChart({ readings, unit }: { readings: readonly Bodywei
                 tickFormatter={dayLabel}
                 tick={{ fontSize: 12, fill: '#364a70' }}
               />
-              <YAxis domain={['auto', 'auto']} tick={{ fontSize: 12, fill: '#364a70' }} width={48} unit={` ${unit}`} />
+              <YAxis
+                domain={['auto', 'auto']}
+                tick={{ fontSize: 12, fill: '#364a70' }}
+                width={44}
+                tickFormatter={(v: number) => String(Math.round(v * 10) / 10)}
+              />
               <Tooltip
                 labelFormatter={(d) => dayLabel(Number(d))}
                 formatter={(v) => [`${String(v)} ${unit}`, 'Bodyweight']}

@@ -59,7 +59,9 @@ export function E1rmChart({
       className="flex flex-col gap-2 rounded-lg border border-ink-200 bg-chalk-50 p-3"
     >
       <figcaption id={headingId} className="flex flex-wrap items-baseline justify-between gap-2">
-        <span className="text-lg font-semibold text-ink-900">{title}</span>
+        <span className="text-lg font-semibold text-ink-900">
+          {title} <span className="font-normal text-ink-600">e1RM ({unit})</span>
+        </span>
         <span className="text-sm text-ink-600" data-testid={`${headingId}-summary`}>
           {rows.length === 0
             ? 'No top sets yet'
@@ -83,8 +85,8 @@ export function E1rmChart({
                 type="number"
                 domain={['auto', 'auto']}
                 tick={{ fontSize: 12, fill: '#364a70' }}
-                width={48}
-                unit={` ${unit}`}
+                width={44}
+                tickFormatter={(v: number) => String(Math.round(v * 10) / 10)}
               />
               <Tooltip content={<PointTip unit={unit} />} />
               <Line
