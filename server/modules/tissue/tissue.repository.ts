@@ -11,17 +11,15 @@ export async function findTeamRulesRow(db: Queryable, teamId: number) {
   return row ?? null;
 }
 
+/** One athlete's prescriptions, inside the team. */
+const prescriptionsOf = (teamId: number, athleteId: number) =>
+  and(eq(tissuePrescriptions.teamId, teamId), eq(tissuePrescriptions.athleteId, athleteId));
+
 export async function findPrescription(db: Queryable, teamId: number, athleteId: number, week: string) {
   const [row] = await db
     .select()
     .from(tissuePrescriptions)
-    .where(
-      and(
-        eq(tissuePrescriptions.teamId, teamId),
-        eq(tissuePrescriptions.athleteId, athleteId),
-        eq(tissuePrescriptions.week, week),
-      ),
-    )
+    .where(and(prescriptionsOf(teamId, athleteId), eq(tissuePrescriptions.week, week)))
     .limit(1);
   return row ? { ...row, items: row.items as TissuePrescription[] } : null;
 }
@@ -31,13 +29,7 @@ export async function listPrescriptionsBefore(db: Queryable, teamId: number, ath
   const rows = await db
     .select({ week: tissuePrescriptions.week, items: tissuePrescriptions.items })
     .from(tissuePrescriptions)
-    .where(
-      and(
-        eq(tissuePrescriptions.teamId, teamId),
-        eq(tissuePrescriptions.athleteId, athleteId),
-        lt(tissuePrescriptions.week, week),
-      ),
-    )
+    .where(and(prescriptionsOf(teamId, athleteId), lt(tissuePrescriptions.week, week)))
     .orderBy(asc(tissuePrescriptions.week));
   return rows.map((r) => ({ week: r.week, items: r.items as TissuePrescription[] }));
 }
@@ -60,13 +52,7 @@ export async function insertPrescriptionIfAbsent(
 export async function deletePrescriptionsAfter(db: Queryable, teamId: number, athleteId: number, week: string) {
   await db
     .delete(tissuePrescriptions)
-    .where(
-      and(
-        eq(tissuePrescriptions.teamId, teamId),
-        eq(tissuePrescriptions.athleteId, athleteId),
-        gt(tissuePrescriptions.week, week),
-      ),
-    );
+    .where(and(prescriptionsOf(teamId, athleteId), gt(tissuePrescriptions.week, week)));
 }
 
 export async function listCheckins(db: Queryable, teamId: number, athleteId: number, opts: { limit?: number } = {}) {

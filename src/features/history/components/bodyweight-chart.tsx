@@ -2,7 +2,7 @@
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import type { Bodyweight } from '../../../../shared/schemas';
-import { bodyweightRows, dayLabel } from './chart-data';
+import { bodyweightRows, dayLabel, TIME_AXIS, WEIGHT_AXIS } from './chart-data';
 
 export function BodyweightChart({ readings, unit }: { readings: readonly Bodyweight[]; unit: WeightUnit }) {
   const rows = bodyweightRows(readings, unit);
@@ -27,19 +27,8 @@ export function BodyweightChart({ readings, unit }: { readings: readonly Bodywei
           <ResponsiveContainer width="100%" height="100%">
             <LineChart data={rows} margin={{ top: 8, right: 8, bottom: 0, left: -8 }}>
               <CartesianGrid stroke="#cfd5e2" strokeDasharray="3 3" />
-              <XAxis
-                dataKey="day"
-                type="number"
-                domain={['dataMin', 'dataMax']}
-                tickFormatter={dayLabel}
-                tick={{ fontSize: 12, fill: '#364a70' }}
-              />
-              <YAxis
-                domain={['auto', 'auto']}
-                tick={{ fontSize: 12, fill: '#364a70' }}
-                width={44}
-                tickFormatter={(v: number) => String(Math.round(v * 10) / 10)}
-              />
+              <XAxis {...TIME_AXIS} />
+              <YAxis {...WEIGHT_AXIS} />
               <Tooltip
                 labelFormatter={(d) => dayLabel(Number(d))}
                 formatter={(v) => [`${String(v)} ${unit}`, 'Bodyweight']}

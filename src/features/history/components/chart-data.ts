@@ -51,3 +51,20 @@ export function bodyweightRows(readings: readonly Bodyweight[], unit: WeightUnit
     .sort((a, b) => a.measuredOn.localeCompare(b.measuredOn))
     .map((r) => ({ day: dayOf(r.measuredOn), weight: round1(fromKg(r.weightKg, unit)) }));
 }
+
+const TICK = { fontSize: 12, fill: '#364a70' };
+/** Axis settings both charts share: days along the bottom, plain weights up the side. */
+export const TIME_AXIS = {
+  dataKey: 'day',
+  type: 'number',
+  domain: ['dataMin', 'dataMax'],
+  tickFormatter: dayLabel,
+  tick: TICK,
+} as const;
+export const WEIGHT_AXIS = {
+  type: 'number',
+  domain: ['auto', 'auto'],
+  tick: TICK,
+  width: 44,
+  tickFormatter: (v: number) => String(Math.round(v * 10) / 10),
+} as const;

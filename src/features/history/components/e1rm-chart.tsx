@@ -3,7 +3,7 @@
 import { CartesianGrid, ComposedChart, Line, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from 'recharts';
 import type { WeightUnit } from '../../../../shared/calc';
 import type { E1rmPoint } from '../../../../shared/schemas';
-import { dayLabel, e1rmRows, weeklyBest, type E1rmRow } from './chart-data';
+import { dayLabel, e1rmRows, weeklyBest, type E1rmRow, TIME_AXIS, WEIGHT_AXIS } from './chart-data';
 
 const INK = '#253553';
 const RUST = '#c4582f';
@@ -73,21 +73,8 @@ export function E1rmChart({
           <ResponsiveContainer width="100%" height="100%">
             <ComposedChart margin={{ top: 8, right: 8, bottom: 0, left: -8 }}>
               <CartesianGrid stroke="#cfd5e2" strokeDasharray="3 3" />
-              <XAxis
-                dataKey="day"
-                type="number"
-                domain={['dataMin', 'dataMax']}
-                tickFormatter={dayLabel}
-                tick={{ fontSize: 12, fill: '#364a70' }}
-                allowDuplicatedCategory={false}
-              />
-              <YAxis
-                type="number"
-                domain={['auto', 'auto']}
-                tick={{ fontSize: 12, fill: '#364a70' }}
-                width={44}
-                tickFormatter={(v: number) => String(Math.round(v * 10) / 10)}
-              />
+              <XAxis {...TIME_AXIS} allowDuplicatedCategory={false} />
+              <YAxis {...WEIGHT_AXIS} />
               <Tooltip content={<PointTip unit={unit} />} />
               <Line
                 data={best}
