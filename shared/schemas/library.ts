@@ -18,6 +18,15 @@ export const booleanQuery = z
   .preprocess(blankToUndefined, z.enum(['true', 'false', '1', '0']).optional())
   .transform((v) => v === 'true' || v === '1');
 
+/** Free text that may be left empty: trimmed, and stored as null when nothing is left. */
+export const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `Use at most ${max} characters`)
+    .nullish()
+    .transform((v) => (v ? v : null));
+
 /** `sort=name` ascending, `sort=-name` descending, over the keys a list allows. */
 export function sortParam<const K extends string>(keys: readonly K[], fallback: K | `-${K}`) {
   const allowed = [...keys, ...keys.map((k) => `-${k}` as const)] as [K | `-${K}`, ...(K | `-${K}`)[]];
@@ -71,12 +80,7 @@ export const variantFields = {
     .refine(twoDecimals, 'Use at most two decimals')
     .transform((n) => Math.round(n * 100) / 100),
   scheme: schemeSchema,
-  notes: z
-    .string()
-    .trim()
-    .max(2000, 'Use at most 2000 characters')
-    .nullish()
-    .transform((v) => (v ? v : null)),
+  notes: optionalText(2000),
 };
 
 export const variantBody = z.object(variantFields);

@@ -2,16 +2,8 @@
 // plan per lift, with the common-practice attempt suggestion from a current estimated max.
 import { z } from 'zod';
 import { idParam, isoDate, listQuery, versionField } from './common';
-import { optionalQueryText, sortParam } from './library';
+import { optionalQueryText, optionalText, sortParam } from './library';
 import { divisionSchema, sexSchema } from './roster';
-
-const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, `Use at most ${max} characters`)
-    .nullish()
-    .transform((v) => (v ? v : null));
 
 export const meetFields = {
   name: z.string().trim().min(1, 'Give the meet a name').max(160, 'Use at most 160 characters'),

@@ -2,7 +2,7 @@
 // restrictions, and the read-only history of picks, top sets and bodyweights on the Athlete page.
 import { z } from 'zod';
 import { idParam, isoDate, isoWeek, listQuery, versionField } from './common';
-import { booleanQuery, optionalQueryText, sortParam } from './library';
+import { booleanQuery, optionalQueryText, optionalText, sortParam } from './library';
 import { athleteRuleOverridesSchema, equipmentListSchema, jointSchema, liftSchema } from './rules';
 
 export const sexSchema = z.enum(['M', 'F']);
@@ -25,12 +25,7 @@ export const athleteFields = {
   level: levelSchema,
   equipment: equipmentListSchema,
   ruleOverrides: athleteRuleOverridesSchema,
-  notes: z
-    .string()
-    .trim()
-    .max(2000, 'Use at most 2000 characters')
-    .nullish()
-    .transform((v) => (v ? v : null)),
+  notes: optionalText(2000),
   /** The team member's account this roster entry belongs to, or null for none. */
   userId: idParam.nullish().transform((v) => v ?? null),
 };
@@ -74,12 +69,7 @@ const restrictionFields = {
     .max(3, 'Use 0 to 3'),
   fromDate: isoDate,
   toDate: isoDate.nullish().transform((v) => v ?? null),
-  note: z
-    .string()
-    .trim()
-    .max(500, 'Use at most 500 characters')
-    .nullish()
-    .transform((v) => (v ? v : null)),
+  note: optionalText(500),
 };
 
 const datesInOrder = (r: { fromDate?: string; toDate?: string | null }) =>

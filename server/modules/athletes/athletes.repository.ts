@@ -245,18 +245,17 @@ export async function athleteHistory(
   athleteId: number,
   range: { from?: string | undefined; to?: string | undefined },
 ) {
+  // ISO week strings sort in calendar order, so a text range is a week range.
+  const within = (week: typeof planEntries.week | typeof topSets.week) => [
+    range.from ? gte(week, range.from) : undefined,
+    range.to ? lte(week, range.to) : undefined,
+  ];
   const pickWhere = and(
     eq(planEntries.teamId, teamId),
     eq(planEntries.athleteId, athleteId),
-    range.from ? gte(planEntries.week, range.from) : undefined,
-    range.to ? lte(planEntries.week, range.to) : undefined,
+    ...within(planEntries.week),
   );
-  const setWhere = and(
-    eq(topSets.teamId, teamId),
-    eq(topSets.athleteId, athleteId),
-    range.from ? gte(topSets.week, range.from) : undefined,
-    range.to ? lte(topSets.week, range.to) : undefined,
-  );
+  const setWhere = and(eq(topSets.teamId, teamId), eq(topSets.athleteId, athleteId), ...within(topSets.week));
   const [picks, sets, weights] = await Promise.all([
     db
       .select({

@@ -1,0 +1,267 @@
+// Add or edit one variant: the same zod schema as the server checks each field, and the server's own
+// field errors land on the same fields. A save that meets someone else's newer edit loads theirs.
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useController, useForm, type Control } from 'react-hook-form';
+import { JOINTS, LIFTS } from '../../../../shared/engine/types';
+import { variantBody, type LibraryVariant, type VariantBody, type VariantFacets } from '../../../../shared/schemas';
+import { Button } from '../../../components/ui/button';
+import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
+import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/page';
+import { isApiError } from '../../../lib/api-client';
+import { applyFieldErrors } from '../../../lib/form-errors';
+import { useCreateVariant, useUpdateVariant } from '../api/use-save-variant';
+import { EMPHASIS_LABEL, LIFT_LABEL, RISK_LABEL, SCHEME_LABEL, STRESS_LABEL, jointLabel } from './labels';
+
+const blank: VariantBody = {
+  name: '',
+  lift: 'squat',
+  family: '',
+  bar: 'straight',
+  equipment: [],
+  emphasis: 'bottom',
+  stress: Object.fromEntries(JOINTS.map((j) => [j, 0])),
+  risk: 1,
+  specificity: 0.5,
+  scheme: 'single',
+  notes: '',
+};
+
+function valuesOf(v: LibraryVariant): VariantBody {
+  return {
+    name: v.name,
+    lift: v.lift,
+    family: v.family,
+    bar: v.bar,
+    equipment: v.equipment,
+    emphasis: v.emphasis,
+    stress: Object.fromEntries(JOINTS.map((j) => [j, v.stress[j] ?? 0])),
+    risk: v.risk,
+    specificity: v.specificity,
+    scheme: v.scheme,
+    notes: v.notes ?? '',
+  };
+}
+
+const toNumber = (v: unknown) => (v === '' || v === null || v === undefined ? Number.NaN : Number(v));
+
+export function VariantForm({
+  variant,
+  facets,
+  onDone,
+}: {
+  variant: LibraryVariant | null;
+  facets: VariantFacets;
+  onDone: (saved: LibraryVariant) => void;
+}) {
+  const [current, setCurrent] = useState(variant);
+  const [conflict, setConflict] = useState<string | null>(null);
+  const create = useCreateVariant();
+  const update = useUpdateVariant();
+  const form = useForm({
+    resolver: zodResolver(variantBody),
+    defaultValues: current ? valuesOf(current) : blank,
+  });
+  const { errors, isSubmitting } = form.formState;
+  const failure = create.error ?? update.error;
+  const showFailure = failure && !(isApiError(failure) && Object.keys(failure.fields).length > 0) && !conflict;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setConflict(null);
+    try {
+      const saved = current
+        ? await update.mutateAsync({ id: current.id, body: { ...values, version: current.version } })
+        : await create.mutateAsync(values);
+      onDone(saved);
+    } catch (err) {
+      if (isApiError(err, 409) && err.body?.current) {
+        // Their edit is loaded so nothing of it is lost; the fields this user had changed are named.
+        const theirs = err.body.current as LibraryVariant;
+        const mine = form.getValues();
+        const changed = (Object.keys(mine) as (keyof VariantBody)[]).filter(
+          (k) => JSON.stringify(mine[k]) !== JSON.stringify(valuesOf(theirs)[k]),
+        );
+        setCurrent(theirs);
+        form.reset(valuesOf(theirs));
+        setConflict(`${err.message}${changed.length ? ` Your changes to ${changed.join(', ')} were not saved.` : ''}`);
+        return;
+      }
+      applyFieldErrors(err, form.setError, (f) => (f.startsWith('equipment.') ? 'equipment' : f));
+    }
+  });
+
+  const joints = JOINTS;
+  return (
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      className="flex flex-col gap-4"
+      aria-label={current ? 'Edit variant' : 'Add variant'}
+    >
+      {conflict ? <Notice tone="error">{conflict}</Notice> : null}
+      {showFailure ? <Notice tone="error">{failure.message}</Notice> : null}
+      <TextField label="Name" autoComplete="off" error={errors.name?.message} {...form.register('name')} />
+      <div className="grid gap-4 sm:grid-cols-3">
+        <SelectField label="Lift" error={errors.lift?.message} {...form.register('lift')}>
+          {LIFTS.map((l) => (
+            <option key={l} value={l}>
+              {LIFT_LABEL[l]}
+            </option>
+          ))}
+        </SelectField>
+        <TextField
+          label="Family"
+          list="variant-families"
+          autoComplete="off"
+          hint="Variants that train nearly the same thing"
+          error={errors.family?.message}
+          {...form.register('family')}
+        />
+        <TextField
+          label="Bar"
+          list="variant-bars"
+          autoComplete="off"
+          error={errors.bar?.message}
+          {...form.register('bar')}
+        />
+        <datalist id="variant-families">
+          {facets.families.map((f) => (
+            <option key={f} value={f} />
+          ))}
+        </datalist>
+        <datalist id="variant-bars">
+          {facets.bars.map((b) => (
+            <option key={b} value={b} />
+          ))}
+        </datalist>
+      </div>
+
+      <EquipmentPicker
+        control={form.control}
+        known={facets.equipment}
+        error={errors.equipment?.message ?? errors.equipment?.[0]?.message}
+      />
+
+      <div className="grid gap-4 sm:grid-cols-3">
+        <SelectField
+          label="Emphasis"
+          hint="Where in the range it overloads"
+          error={errors.emphasis?.message}
+          {...form.register('emphasis')}
+        >
+          {(Object.keys(EMPHASIS_LABEL) as (keyof typeof EMPHASIS_LABEL)[]).map((e) => (
+            <option key={e} value={e}>
+              {EMPHASIS_LABEL[e]}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField
+          label="Risk"
+          hint="How hard it is to recover from"
+          error={errors.risk?.message}
+          {...form.register('risk', { setValueAs: toNumber })}
+        >
+          {([1, 2, 3] as const).map((r) => (
+            <option key={r} value={r}>
+              {RISK_LABEL[r]}
+            </option>
+          ))}
+        </SelectField>
+        <TextField
+          label="Specificity"
+          type="number"
+          inputMode="decimal"
+          step="0.05"
+          min={0}
+          max={1}
+          hint="0 far from the competition lift, 1 the lift itself"
+          error={errors.specificity?.message}
+          {...form.register('specificity', { setValueAs: toNumber })}
+        />
+      </div>
+
+      <fieldset className="rounded-md border border-chalk-300 p-3">
+        <legend className="px-1 text-sm font-semibold text-ink-800">Joint stress (0 none to 3 heavy)</legend>
+        <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+          {joints.map((j) => (
+            <SelectField
+              key={j}
+              label={jointLabel(j)}
+              error={errors.stress?.[j]?.message}
+              {...form.register(`stress.${j}`, { setValueAs: toNumber })}
+            >
+              {STRESS_LABEL.map((label, n) => (
+                <option key={n} value={n}>
+                  {label}
+                </option>
+              ))}
+            </SelectField>
+          ))}
+        </div>
+      </fieldset>
+
+      <fieldset>
+        <legend className="text-sm font-semibold text-ink-800">Default top set</legend>
+        <div className="mt-1 flex flex-wrap gap-2">
+          {(Object.keys(SCHEME_LABEL) as (keyof typeof SCHEME_LABEL)[]).map((s) => (
+            <label
+              key={s}
+              className="inline-flex min-h-11 cursor-pointer items-center gap-2 rounded-md border border-ink-300 px-3 has-[:checked]:border-ink-800 has-[:checked]:bg-ink-800 has-[:checked]:text-chalk-50"
+            >
+              <input type="radio" value={s} className="accent-rust-500" {...form.register('scheme')} />
+              {SCHEME_LABEL[s]}
+            </label>
+          ))}
+        </div>
+        {errors.scheme ? (
+          <p role="alert" className="mt-1 text-sm font-medium text-breach-700">
+            {errors.scheme.message}
+          </p>
+        ) : null}
+      </fieldset>
+
+      <TextAreaField label="Notes" rows={3} error={errors.notes?.message} {...form.register('notes')} />
+
+      <div className="flex justify-end gap-2">
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : current ? 'Save changes' : 'Add variant'}
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+/** Checkboxes for the equipment known in the library, and a field to add another item. */
+function EquipmentPicker({
+  control,
+  known,
+  error,
+}: {
+  control: Control<VariantBody>;
+  known: string[];
+  error?: string | undefined;
+}) {
+  const { field } = useController({ control, name: 'equipment' });
+  const value = field.value ?? [];
+  const options = [...new Set([...known, ...value])];
+  return (
+    <fieldset className="rounded-md border border-chalk-300 p-3">
+      <legend className="px-1 text-sm font-semibold text-ink-800">Equipment needed</legend>
+      {options.length === 0 ? <p className="text-sm text-ink-500">None yet: add an item below.</p> : null}
+      <CheckboxGroup options={options} value={value} onChange={field.onChange} />
+      <div className="mt-2">
+        <AddItemField
+          label="Other equipment"
+          button="Add item"
+          onAdd={(item) => field.onChange(value.includes(item) ? value : [...value, item])}
+        />
+      </div>
+      {error ? (
+        <p role="alert" className="mt-1 text-sm font-medium text-breach-700">
+          {error}
+        </p>
+      ) : null}
+    </fieldset>
+  );
+}

@@ -1,0 +1,65 @@
+// The roster's key factory and queries: the athlete list, one athlete, their history, the linkable
+// accounts, and the team rules the overrides are shown against.
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import type { Athlete, AthleteHistory, LinkableAccount, ListResponse } from '../../../../shared/schemas';
+import { api } from '../../../lib/api-client';
+
+export interface RosterFilters {
+  q: string;
+  level: '' | 'novice' | 'intermediate' | 'advanced' | 'elite';
+  includeArchived: boolean;
+  sort: string;
+}
+
+export const athleteKeys = {
+  all: ['athletes'] as const,
+  lists: () => [...athleteKeys.all, 'list'] as const,
+  list: (f: RosterFilters) => [...athleteKeys.lists(), f] as const,
+  details: () => [...athleteKeys.all, 'detail'] as const,
+  detail: (id: number) => [...athleteKeys.details(), id] as const,
+  histories: () => [...athleteKeys.all, 'history'] as const,
+  history: (id: number) => [...athleteKeys.histories(), id] as const,
+  accounts: () => [...athleteKeys.all, 'accounts'] as const,
+};
+
+const LEVELS = new Set(['novice', 'intermediate', 'advanced', 'elite']);
+
+export function rosterFiltersFromSearch(params: URLSearchParams): RosterFilters {
+  const level = params.get('level') ?? '';
+  return {
+    q: params.get('q') ?? '',
+    level: LEVELS.has(level) ? (level as RosterFilters['level']) : '',
+    includeArchived: params.get('archived') === 'shown',
+    sort: params.get('sort') ?? 'name',
+  };
+}
+
+export const athleteListOptions = (f: RosterFilters) => {
+  const p = new URLSearchParams({ sort: f.sort, limit: '500' });
+  if (f.q.trim()) p.set('q', f.q.trim());
+  if (f.level) p.set('level', f.level);
+  if (f.includeArchived) p.set('includeArchived', 'true');
+  return queryOptions({
+    queryKey: athleteKeys.list(f),
+    queryFn: ({ signal }) => api<ListResponse<Athlete>>(`/athletes?${p}`, { signal }),
+    placeholderData: keepPreviousData,
+  });
+};
+
+export const athleteOptions = (id: number) =>
+  queryOptions({
+    queryKey: athleteKeys.detail(id),
+    queryFn: ({ signal }) => api<Athlete>(`/athletes/${id}`, { signal }),
+  });
+
+export const athleteHistoryOptions = (id: number) =>
+  queryOptions({
+    queryKey: athleteKeys.history(id),
+    queryFn: ({ signal }) => api<AthleteHistory>(`/athletes/${id}/history`, { signal }),
+  });
+
+export const accountsOptions = () =>
+  queryOptions({
+    queryKey: athleteKeys.accounts(),
+    queryFn: ({ signal }) => api<ListResponse<LinkableAccount>>('/athletes/accounts', { signal }),
+  });

@@ -1,0 +1,44 @@
+// How roster values read on screen.
+import type { Restriction } from '../../../../shared/schemas';
+import { weekOfDate, weeksBetween } from '../../../../shared/engine/weeks';
+import { jointName } from '../../../../shared/engine/words';
+
+export const LEVEL_LABEL = {
+  novice: 'Novice',
+  intermediate: 'Intermediate',
+  advanced: 'Advanced',
+  elite: 'Elite',
+} as const;
+export const DIVISION_LABEL = { open: 'Open', junior: 'Junior', subjunior: 'Sub-junior' } as const;
+export const SEX_LABEL = { M: 'Men', F: 'Women' } as const;
+export const STRESS_CAP = ['0 · no load at all', '1 · light load only', '2 · up to moderate', '3 · any load'] as const;
+
+export const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/** "Elbow: light load only (≤ 1)". */
+export function restrictionText(r: Pick<Restriction, 'joint' | 'maxStress'>): string {
+  const what =
+    ['no load', 'light load only', 'up to moderate load', 'any load'][r.maxStress] ?? `at most ${r.maxStress}`;
+  return `${capital(jointName(r.joint))}: ${what} (≤ ${r.maxStress})`;
+}
+
+/** Weeks from this ISO week to the date's, as the board counts "weeks out". */
+export function weeksUntil(date: string, today = new Date()): number {
+  return weeksBetween(weekOfDate(today), weekOfDate(new Date(`${date}T12:00:00Z`)));
+}
+
+export function whenText(date: string, today = new Date()): string {
+  if (date < today.toISOString().slice(0, 10)) return 'done';
+  const w = weeksUntil(date, today);
+  if (w <= 0) return 'this week';
+  return w === 1 ? 'next week' : `${w} weeks out`;
+}
+
+export function formatDate(date: string): string {
+  return new Date(`${date}T12:00:00Z`).toLocaleDateString(undefined, {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    timeZone: 'UTC',
+  });
+}
