@@ -150,6 +150,11 @@ describe('POST /api/top-sets/:id/video', () => {
     const seen = await athlete.get(`/api/videos/${videoId}`);
     expect(seen.body.comments[0].authorName).toMatch(/Test coach/);
     expect((await athlete.post(`/api/videos/${videoId}/comments`).send({ body: 'x' })).status).toBe(403);
+    const history = await athlete.get('/api/my-history');
+    expect(history.body.videos[0]).toMatchObject({
+      id: videoId,
+      comments: [expect.objectContaining({ body: 'Hips rose first; brace harder.' })],
+    });
     const review = await coach.get(`/api/athletes/${team.athleteId}/review`);
     expect(review.body.videos[0]).toMatchObject({
       id: videoId,

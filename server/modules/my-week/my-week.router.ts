@@ -1,10 +1,12 @@
-// /api/my-week and /api/my-history: the athlete's own week and history pages.
+// /api/my-week and /api/my-history: the athlete's own week and history pages (with their videos and
+// the coaches' comments on them).
 import { Router } from 'express';
 import { myWeekQuery } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ATHLETE, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { historyOf } from '../top-sets/history.service';
+import { athleteVideos } from '../videos/videos.service';
 import { myWeek } from './my-week.service';
 import { ownAthleteId } from './whose';
 
@@ -25,7 +27,12 @@ export function myWeekRouter(ctx: AppContext): Router {
     requireRole(ATHLETE),
     validate({}, async (_input, req) => {
       const auth = authOf(req);
-      return { unit: auth.unit, ...(await historyOf(ctx.database.db, auth.teamId, ownAthleteId(req))) };
+      const athleteId = ownAthleteId(req);
+      const [history, videos] = await Promise.all([
+        historyOf(ctx.database.db, auth.teamId, athleteId),
+        athleteVideos(ctx.database.db, auth.teamId, athleteId),
+      ]);
+      return { unit: auth.unit, ...history, videos };
     }),
   );
 

@@ -1,8 +1,10 @@
-// My history (athlete): e1RM per competition lift and bodyweight charts, and records per variant.
+// My history (athlete): e1RM per competition lift and bodyweight charts, records per variant, and the
+// athlete's videos with the coaches' comments.
 import type { QueryClient } from '@tanstack/react-query';
 import { Loading, Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
 import { myHistoryQueryOptions, useMyHistory } from '../../features/history/api/queries';
 import { LiftCharts } from '../../features/history/components/lift-charts';
+import { MyVideos } from '../../features/history/components/my-videos';
 import { VariantHistory } from '../../features/history/components/variant-history';
 
 export function makeLoader(queryClient: QueryClient) {
@@ -22,6 +24,7 @@ export function Component() {
       <TrainingCaution />
       <LiftCharts series={data.series} unit={data.unit} />
       <VariantHistory variants={data.variants} unit={data.unit} />
+      <MyVideos videos={data.videos} unit={data.unit} />
     </div>
   );
 }

@@ -1,12 +1,13 @@
 // The athlete's history: records per variant, e1RM and bodyweight series, and the sets of one variant.
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ListResponse, Series, TopSet, Unit, VariantHistory } from '../../../../shared/schemas';
+import type { ListResponse, Series, TopSet, Unit, VariantHistory, Video } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 
 export interface MyHistory {
   unit: Unit;
   variants: VariantHistory[];
   series: Series;
+  videos: Video[];
 }
 
 export interface TopSetFilter {
