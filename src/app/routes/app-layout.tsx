@@ -40,7 +40,7 @@ export function AppLayout() {
                   <NavLink
                     to={l.to}
                     className={({ isActive }) =>
-                      `block whitespace-nowrap rounded-md px-3 py-2 font-semibold ${
+                      `flex min-h-11 items-center whitespace-nowrap rounded-md px-3 font-semibold ${
                         isActive
                           ? 'bg-ink-700 text-chalk-50 shadow-[inset_0_-3px_0_#c4582f]'
                           : 'text-ink-200 hover:bg-ink-800 hover:text-chalk-50'
