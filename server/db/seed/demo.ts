@@ -4,6 +4,7 @@ import { sql } from 'drizzle-orm';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import { weightClass } from '../../../shared/calc';
 import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
+import { suggestAttempts } from '../../../shared/schemas/meets';
 import type { Db, Tx } from '../client';
 import { hashPassword } from '../../lib/passwords';
 import { athletes, meetEntries, meets, memberships, restrictions, teamRules, teams, users, variants } from '../schema';
@@ -139,7 +140,12 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
           athleteId: athleteIds.get(a.key)!,
           weightClass: weightClass(a.bodyweight, a.sex, { division: a.division }),
           division: a.division,
-          attempts: {},
+          // Planned from the athlete's invented maxes, the way the Meets page plans them.
+          attempts: {
+            squat: suggestAttempts(a.maxes.squat),
+            bench: suggestAttempts(a.maxes.bench),
+            deadlift: suggestAttempts(a.maxes.deadlift),
+          },
         });
       }
     }
