@@ -73,7 +73,7 @@ describe('paying a coaching fee', () => {
     await b.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Fees' }).click();
     await b.page.waitForURL(/\/fees$/);
     const table = b.page.getByRole('table', { name: /Athletes’ fees/ });
-    const noor = table.locator('tr[data-athlete="Noor Halvorsen"]');
+    const noor = table.getByRole('row').filter({ hasText: 'Noor Halvorsen' });
     await noor.waitFor();
     await expect(noor.locator('[data-status]').textContent()).resolves.toBe('Active');
     await expect(noor.textContent()).resolves.toContain('Coached block');
@@ -81,7 +81,7 @@ describe('paying a coaching fee', () => {
 
     await b.page.getByRole('group', { name: 'Show' }).getByRole('button', { name: 'Past due' }).click();
     await b.page.waitForURL(/status=past_due/);
-    await table.locator('tr[data-athlete="Noor Halvorsen"]').waitFor({ state: 'detached' });
+    await table.getByRole('row').filter({ hasText: 'Noor Halvorsen' }).waitFor({ state: 'detached' });
     const statuses = await table.locator('[data-status]').allTextContents();
     expect(statuses.length).toBeGreaterThan(0);
     expect(new Set(statuses)).toEqual(new Set(['Past due']));

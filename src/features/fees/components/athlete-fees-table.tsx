@@ -1,16 +1,11 @@
 // The head coach's table of every athlete's fee: status, plan, next renewal and last payment, sorted
 // and filtered on the server (the choice lives in the page's URL), with actions per athlete.
 import { useQuery } from '@tanstack/react-query';
-import {
-  createColumnHelper,
-  flexRender,
-  getCoreRowModel,
-  useReactTable,
-  type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { formatMoney, type AthleteFee, type FeePlan, type PaymentStatus } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
+import { DataTable } from '../../../components/ui/data-table';
 import { Notice } from '../../../components/ui/page';
 import { athleteFeeListOptions, planListOptions, type AthleteFeeFilters } from '../api/queries';
 import { useCancelFee } from '../api/use-cancel-fee';
@@ -198,69 +193,11 @@ export function AthleteFeesTable({
         </div>
       </div>
       {list.isError ? <Notice tone="error">{list.error.message}</Notice> : null}
-      <div className="overflow-x-auto rounded-lg border border-chalk-300 bg-chalk-50">
-        <table className="w-full border-collapse text-left text-sm">
-          <caption className="sr-only">
-            Athletes’ fees{filters.status ? `: ${STATUS_LABEL[filters.status]} only` : ''}
-          </caption>
-          <thead className="bg-chalk-200 text-ink-800">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  const label = flexRender(h.column.columnDef.header, h.getContext());
-                  return (
-                    <th
-                      key={h.id}
-                      scope="col"
-                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                      className="whitespace-nowrap px-3 py-2 font-semibold"
-                    >
-                      {h.column.getCanSort() ? (
-                        <button
-                          type="button"
-                          onClick={h.column.getToggleSortingHandler()}
-                          className="-mx-1 inline-flex min-h-9 items-center gap-1 rounded px-1 hover:bg-chalk-300"
-                        >
-                          {label}
-                          <span aria-hidden className="w-3 text-ink-500">
-                            {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-                          </span>
-                        </button>
-                      ) : (
-                        label
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-ink-600">
-                  {list.isPending ? 'Loading…' : 'No athlete has this status.'}
-                </td>
-              </tr>
-            ) : (
-              table.getRowModel().rows.map((row) => (
-                <tr
-                  key={row.id}
-                  data-athlete={row.original.name}
-                  className="border-t border-chalk-300 align-top hover:bg-chalk-100"
-                >
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-2">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              ))
-            )}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        caption={`Athletes’ fees${filters.status ? `: ${STATUS_LABEL[filters.status]} only` : ''}`}
+        empty={list.isPending ? 'Loading…' : 'No athlete has this status.'}
+      />
       <p className="text-sm text-ink-600">
         {list.data ? `${list.data.total} athlete${list.data.total === 1 ? '' : 's'}` : ''}
       </p>
