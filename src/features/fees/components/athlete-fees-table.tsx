@@ -153,6 +153,8 @@ export function AthleteFeesTable({
   );
 
   const sorting: SortingState = [{ id: filters.sort.replace(/^-/, ''), desc: filters.sort.startsWith('-') }];
+  // The table instance is rebuilt each render on purpose; nothing memoised holds on to it.
+  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data: list.data?.items ?? [],
     columns,
