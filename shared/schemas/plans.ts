@@ -16,6 +16,8 @@ export const slotIdField = z
 
 /** The furthest a board or a list may reach in one request. */
 export const MAX_RANGE_WEEKS = 160;
+/** Changes one batch may carry: enough to undo a whole plan run. */
+export const MAX_BATCH = 2000;
 /** Weeks one generation may fill at once. */
 export const MAX_GENERATE_WEEKS = 26;
 
@@ -65,7 +67,7 @@ export const planChangeSchema = planCellParams.extend({
 export type PlanChange = z.input<typeof planChangeSchema>;
 
 export const planBatchBody = z
-  .object({ changes: z.array(planChangeSchema).min(1, 'Send at least one change').max(200) })
+  .object({ changes: z.array(planChangeSchema).min(1, 'Send at least one change').max(MAX_BATCH) })
   .superRefine((b, ctx) => {
     const seen = new Set<string>();
     b.changes.forEach((c, i) => {
@@ -118,8 +120,6 @@ export const generateBody = z.object({
   reshuffle: z.boolean().default(false),
 });
 export type GenerateBody = z.input<typeof generateBody>;
-
-export const myPlanQuery = z.object({ week: isoWeek.optional() });
 
 // ---- responses ----
 
@@ -245,20 +245,6 @@ export interface GenerateResult {
   }[];
   /** Athletes left out, and why (no meet ahead for "Plan to meet"). */
   skipped: { athleteId: number; reason: string }[];
-}
-
-export interface MyPlanPick {
-  slotId: string;
-  slotLabel: string;
-  variant: Pick<BoardVariant, 'id' | 'name' | 'lift' | 'family' | 'bar' | 'scheme'>;
-  source: PlanSource;
-  pinned: boolean;
-  reason: string | null;
-}
-
-export interface MyPlan {
-  week: string;
-  picks: MyPlanPick[];
 }
 
 // ---- stored rows → engine ----

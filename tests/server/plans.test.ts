@@ -1,5 +1,5 @@
 // Plan entries: saving a cell (create, update, stale versions, rule breaks with a reason), clearing,
-// batches in one transaction, the change history, the list, and the athlete's own picks.
+// batches in one transaction, the change history and the list.
 import { beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { and, eq, sql } from 'drizzle-orm';
@@ -421,31 +421,5 @@ describe('GET /api/plans', () => {
     const range = await coach.get('/api/plans?from=2025-W12&to=2025-W10');
     expect(range.status).toBe(400);
     expect(range.body.error.fields['query.to']).toEqual(['Must not be before "from"']);
-  });
-});
-
-describe('GET /api/plans/mine', () => {
-  it('shows the signed-in athlete their own picks for a week, slots in order', async () => {
-    const week = wk(1);
-    await createPlanEntry(db(), team.teamId, team.athleteId, lib.bench[0]!, { week, slotId: 'upper' });
-    await createPlanEntry(db(), team.teamId, team.athleteId, lib.squat[0]!, { week, slotId: 'lower', source: 'coach' });
-    const agent = await t.signIn(team.athleteUser.email);
-    const res = await agent.get(`/api/plans/mine?week=${week}`);
-    expect(res.status).toBe(200);
-    expect(res.body.week).toBe(week);
-    expect(
-      res.body.picks.map((p: { slotId: string; slotLabel: string; source: string }) => [
-        p.slotId,
-        p.slotLabel,
-        p.source,
-      ]),
-    ).toEqual([
-      ['lower', 'Lower max effort', 'coach'],
-      ['upper', 'Upper max effort', 'engine'],
-    ]);
-    expect(res.body.picks[0].variant.id).toBe(lib.squat[0]);
-    const bad = await agent.get('/api/plans/mine?week=soon');
-    expect(bad.status).toBe(400);
-    expect(bad.body.error.fields).toHaveProperty(['query.week']);
   });
 });

@@ -236,13 +236,3 @@ export async function cellHistory(db: Queryable, teamId: number, cell: PlanCell,
   ]);
   return { rows, total: Number(total?.n ?? 0) };
 }
-
-/** One athlete's entries with a variant in one week, with the variant. */
-export async function weekPicks(db: Queryable, teamId: number, athleteId: number, week: string) {
-  return db
-    .select({ entry: planEntries, variant: variants })
-    .from(planEntries)
-    .innerJoin(variants, eq(variants.id, planEntries.variantId))
-    .where(and(eq(planEntries.teamId, teamId), eq(planEntries.athleteId, athleteId), eq(planEntries.week, week)))
-    .orderBy(asc(planEntries.slotId));
-}

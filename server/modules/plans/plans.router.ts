@@ -1,10 +1,8 @@
-// /api/plans: the plan entries of the board — list, save, clear, batch, history, generation, and the
-// signed-in athlete's own picks.
+// /api/plans: the plan entries of the board — list, save, clear, batch, history and generation.
 import { Router } from 'express';
 import {
   clearPlanQuery,
   generateBody,
-  myPlanQuery,
   planBatchBody,
   planCellParams,
   planHistoryQuery,
@@ -12,10 +10,10 @@ import {
   savePlanBody,
 } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
-import { ATHLETE, STAFF, authOf, requireRole } from '../../middleware/auth';
+import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { generate } from './generate.service';
-import { batchField, clearCell, listPlans, myPlan, planHistory, saveChanges } from './plans.service';
+import { batchField, clearCell, listPlans, planHistory, saveChanges } from './plans.service';
 
 export function plansRouter(ctx: AppContext): Router {
   const router = Router();
@@ -25,12 +23,6 @@ export function plansRouter(ctx: AppContext): Router {
     '/plans',
     requireRole(STAFF),
     validate({ query: planListQuery }, ({ query }, req) => listPlans(db, authOf(req).teamId, query)),
-  );
-
-  router.get(
-    '/plans/mine',
-    requireRole(ATHLETE),
-    validate({ query: myPlanQuery }, ({ query }, req) => myPlan(db, authOf(req), query.week)),
   );
 
   router.post(

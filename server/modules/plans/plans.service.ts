@@ -9,8 +9,6 @@ import {
 } from '../../../shared/engine';
 import {
   plainViolationMessage,
-  readTeamRules,
-  type MyPlan,
   type PlanCell,
   type PlanEntryDto,
   type PlanHistoryList,
@@ -33,9 +31,7 @@ import {
   insertEntry,
   listAthletes,
   listEntries,
-  readRulesRow,
   updateEntry,
-  weekPicks,
   type EntryRow,
   type EntryWrite,
   type HistoryInsert,
@@ -171,16 +167,16 @@ export async function saveChanges(
       });
       checkInputs(planning, changes, field, t.week);
 
-      // Lock the cells in one order so two batches cannot deadlock each other.
-      const order = [...changes.keys()].sort((a, b) => cellKey(changes[a]!).localeCompare(cellKey(changes[b]!)));
-      const rows: (EntryRow | null)[] = new Array(changes.length);
-      for (const i of order) rows[i] = await findCell(tx, auth.teamId, changes[i]!, true);
+      // One locking read of these athletes' entries: the cells to change, and the rest of their board for
+      // the rule check, held until commit (a concurrent create of the same cell waits, then sees this one).
+      const all = await entriesOfAthletes(tx, auth.teamId, athleteIds, true);
+      const byCell = new Map(all.map((r) => [cellKey(r), r]));
+      const rows = changes.map((c) => byCell.get(cellKey(c)) ?? null);
       const stale = changes
         .map((c, i) => ({ c, row: rows[i]! }))
         .filter(({ c, row }) => (row ? row.version !== c.version : c.version !== 0));
       if (stale.length) await conflict(tx, single, stale);
 
-      const all = await entriesOfAthletes(tx, auth.teamId, athleteIds);
       const checks = checksAfter(planning, all, changes);
       const breaking = new Set<number>();
       const needReason: ReturnType<typeof violationDto>[] = [];
@@ -333,37 +329,5 @@ export async function planHistory(
       changedByName: byName,
       changedAt: h.changedAt.toISOString(),
     })),
-  };
-}
-
-/** The signed-in athlete's picks for one week (this week by default). */
-export async function myPlan(db: Db, auth: AuthContext, week?: string): Promise<MyPlan> {
-  if (auth.athleteId === null) throw new NotFoundError('Your roster entry');
-  const w = week ?? today().week;
-  const [rulesRow, rows] = await Promise.all([
-    readRulesRow(db, auth.teamId),
-    weekPicks(db, auth.teamId, auth.athleteId, w),
-  ]);
-  const slots = readTeamRules(rulesRow?.rules).slots;
-  const order = new Map(slots.map((s, i) => [s.id, i]));
-  return {
-    week: w,
-    picks: rows
-      .sort((a, b) => (order.get(a.entry.slotId) ?? 99) - (order.get(b.entry.slotId) ?? 99))
-      .map(({ entry, variant }) => ({
-        slotId: entry.slotId,
-        slotLabel: slots.find((s) => s.id === entry.slotId)?.label ?? entry.slotId,
-        variant: {
-          id: variant.id,
-          name: variant.name,
-          lift: variant.lift,
-          family: variant.family,
-          bar: variant.bar,
-          scheme: variant.scheme,
-        },
-        source: entry.source,
-        pinned: entry.pinned,
-        reason: entry.reason,
-      })),
   };
 }

@@ -1,7 +1,7 @@
 // Authorization entries for plan entries, plan generation and the coach's board.
 import { addWeeks, weekOfDate } from '../../../shared/engine/weeks';
 import { createPlanEntry, createVariant } from '../../support/factories';
-import { athleteOnly, staff, type MatrixModule } from './types';
+import { staff, type MatrixModule } from './types';
 
 const week = addWeeks(weekOfDate(new Date()), 3);
 const board = `from=${addWeeks(week, -7)}&to=${addWeeks(week, 5)}`;
@@ -14,7 +14,6 @@ export const matrix: MatrixModule = {
   },
   cases: {
     'GET /api/plans': { path: () => `/api/plans?from=${week}&to=${week}`, expect: staff(200, 200) },
-    'GET /api/plans/mine': { path: () => `/api/plans/mine?week=${week}`, expect: athleteOnly(200) },
     'POST /api/plans/generate': {
       path: () => '/api/plans/generate',
       invalidBody: { weeks: 'someday' },

@@ -1,0 +1,530 @@
+// The coach's board: the grid and the library inside one drag-and-drop context, live rule checks while
+// dragging, saves that show at once, reasons for rule breaks, conflicts with another coach, plan runs and undo.
+import { useCallback, useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import {
+  DndContext,
+  DragOverlay,
+  MeasuringStrategy,
+  TouchSensor,
+  useSensor,
+  useSensors,
+  type Announcements,
+  type DragEndEvent,
+  type DragStartEvent,
+} from '@dnd-kit/core';
+import { useQueryClient } from '@tanstack/react-query';
+import type { BoardData, GenerateBody, GenerateResult, PlanEntryDto } from '../../../../shared/schemas';
+import { Notice, PageHeader, TrainingCaution } from '../../../components/ui/page';
+import { isApiError, type ApiError } from '../../../lib/api-client';
+import { planKeys, useBoard, type BoardRange } from '../api/queries';
+import { useGeneratePlan } from '../api/use-generate-plan';
+import { useSavePlanEntries } from '../api/use-save-plan-entries';
+import {
+  breaksAfter,
+  buildBoardModel,
+  cellKey,
+  cellLabel,
+  keyOf,
+  parseCellKey,
+  prepareRatings,
+  type BoardModel,
+  type CellKey,
+  type CellRef,
+  type DragSource,
+  type Ratings,
+} from '../model/board-model';
+import { inverseChange, pushUndo, type CellChange, type UndoItem } from '../model/changes';
+import {
+  MouseAndPenSensor,
+  OVERLAY_CLASS,
+  boardCollision,
+  BoardKeyboardSensor,
+  cellOfDndId,
+  variantOfLibraryId,
+} from '../model/dnd';
+import { STATUS_WORDS } from '../model/words';
+import { BoardGrid } from './board-grid';
+import { BoardToolbar } from './board-toolbar';
+import { CellDetails } from './cell-details';
+import { ConflictNotice, type ConflictView } from './conflict-notice';
+import { GenerateReport } from './generate-report';
+import { LibraryDrawer } from './library-drawer';
+import { ReasonDialog, type ReasonAsk } from './reason-dialog';
+
+export const RATE_MEASURE = 'board:rate';
+
+interface DragState {
+  source: DragSource;
+  ratings: Ratings;
+}
+
+interface PendingAsk {
+  ask: ReasonAsk;
+  changes: CellChange[];
+  breakKeys: Set<CellKey>;
+  label: string;
+  undoable: boolean;
+}
+
+interface PendingConflict {
+  view: ConflictView;
+  changes: CellChange[];
+  label: string;
+  undoable: boolean;
+}
+
+type RunKind = 'fill' | 'meet' | 'reshuffle';
+const RUNS: Record<RunKind, { body: GenerateBody; title: string }> = {
+  fill: { body: { weeks: 'next' }, title: 'Fill next week' },
+  meet: { body: { weeks: 'toMeet' }, title: 'Plan to meet' },
+  reshuffle: { body: { weeks: 'ahead', reshuffle: true }, title: 'Reshuffle' },
+};
+
+export const MODEL_MEASURE = 'board:model';
+
+function timedModel(data: BoardData, prev?: BoardModel): BoardModel {
+  performance.mark(`${MODEL_MEASURE}:start`);
+  const model = buildBoardModel(data, prev);
+  performance.measure(MODEL_MEASURE, `${MODEL_MEASURE}:start`);
+  return model;
+}
+
+function useBoardModel(range: BoardRange): BoardModel {
+  const { data } = useBoard(range);
+  // The route's loader has put the snapshot in the cache before this renders.
+  const snapshot = data!;
+  const [model, setModel] = useState(() => timedModel(snapshot));
+  if (model.data !== snapshot) {
+    const next = timedModel(snapshot, model);
+    setModel(next);
+    return next;
+  }
+  return model;
+}
+
+export function BoardView({ range, weekActions }: { range: BoardRange; weekActions?: ReactNode }) {
+  const queryClient = useQueryClient();
+  const model = useBoardModel(range);
+  const modelRef = useRef(model);
+  useLayoutEffect(() => {
+    modelRef.current = model;
+  }, [model]);
+
+  const scrollRef = useRef<HTMLDivElement>(null);
+  const shownRef = useRef<number[]>([]);
+  const saveMutation = useSavePlanEntries();
+  const generateMutation = useGeneratePlan();
+  const [drag, setDrag] = useState<DragState | null>(null);
+  const dragRef = useRef<DragState | null>(null);
+  const [pending, setPending] = useState<ReadonlySet<CellKey>>(() => new Set());
+  const [undoStack, setUndoStack] = useState<UndoItem[]>([]);
+  const [ask, setAsk] = useState<PendingAsk | null>(null);
+  const [conflict, setConflict] = useState<PendingConflict | null>(null);
+  const [notice, setNotice] = useState<{ tone: 'error' | 'info'; text: string } | null>(null);
+  const [status, setStatus] = useState('');
+  const [busy, setBusy] = useState<RunKind | null>(null);
+  const [report, setReport] = useState<{ title: string; result: GenerateResult } | null>(null);
+  const [details, setDetails] = useState<CellKey | null>(null);
+  const [libraryOpen, setLibraryOpen] = useState(true);
+
+  const labelOf = useCallback((c: CellRef) => cellLabel(modelRef.current, c), []);
+  const variantName = useCallback(
+    (id: number | null) => (id === null ? 'nothing' : (modelRef.current.variantById.get(id)?.name ?? `variant ${id}`)),
+    [],
+  );
+
+  const conflictView = useCallback(
+    (err: ApiError, changes: CellChange[], label: string): ConflictView => {
+      const current = err.body?.current as unknown;
+      const now = new Map<CellKey, PlanEntryDto | null>();
+      if (Array.isArray(current)) {
+        for (const c of current as { athleteId: number; week: string; slotId: string; entry: PlanEntryDto | null }[]) {
+          now.set(cellKey(c.athleteId, c.week, c.slotId), c.entry);
+        }
+      } else if (changes[0]) now.set(keyOf(changes[0]), (current as PlanEntryDto | null) ?? null);
+      return {
+        label,
+        cells: changes
+          .filter((c) => now.has(keyOf(c)))
+          .map((c) => {
+            const theirs = now.get(keyOf(c)) ?? null;
+            return {
+              cell: labelOf(c),
+              theirs: variantName(theirs?.variantId ?? null),
+              by: theirs?.updatedByName ?? null,
+              mine: c.variantId === null ? 'an empty cell' : variantName(c.variantId),
+            };
+          }),
+      };
+    },
+    [labelOf, variantName],
+  );
+
+  const save = useCallback(
+    async (changes: CellChange[], label: string, undoable: boolean) => {
+      const before = new Map(changes.map((c) => [keyOf(c), modelRef.current.entryAt.get(keyOf(c))]));
+      const keys = changes.map(keyOf);
+      setPending((p) => new Set([...p, ...keys]));
+      setNotice(null);
+      try {
+        const saved = await saveMutation.mutateAsync({ changes });
+        if (undoable) {
+          const inverse = saved.map((e) => inverseChange(e, before.get(cellKey(e.athleteId, e.week, e.slotId))));
+          setUndoStack((s) => pushUndo(s, { label, changes: inverse }));
+        }
+        setStatus(`Saved: ${label}.`);
+      } catch (err) {
+        if (isApiError(err, 409)) {
+          setConflict({ view: conflictView(err, changes, label), changes, label, undoable });
+          await queryClient.invalidateQueries({ queryKey: planKeys.boards() });
+        } else if (isApiError(err, 422) && err.code === 'rule_break') {
+          const violations = (err.body?.violations ?? []) as {
+            athleteId: number;
+            week: string;
+            slotId: string;
+            message: string;
+          }[];
+          const byCell = new Map<CellKey, string[]>();
+          for (const v of violations) {
+            const k = cellKey(v.athleteId, v.week, v.slotId);
+            byCell.set(k, [...(byCell.get(k) ?? []), v.message]);
+          }
+          setAsk({
+            ask: {
+              label,
+              breaks: [...byCell].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })),
+            },
+            changes,
+            breakKeys: new Set(byCell.keys()),
+            label,
+            undoable,
+          });
+        } else {
+          const why = err instanceof Error ? err.message : 'unknown error';
+          setNotice({ tone: 'error', text: `Not saved (${label}): ${why} The board shows what is stored.` });
+        }
+      } finally {
+        setPending((p) => new Set([...p].filter((k) => !keys.includes(k))));
+      }
+    },
+    [saveMutation, conflictView, queryClient, labelOf],
+  );
+
+  const undo = useCallback(() => {
+    const item = undoStack[undoStack.length - 1];
+    if (!item) return;
+    setUndoStack((s) => s.slice(0, -1));
+    void save(item.changes, `undo ${item.label}`, false);
+  }, [undoStack, save]);
+
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent) => {
+      const t = e.target as HTMLElement | null;
+      if (t && /^(INPUT|TEXTAREA|SELECT)$/.test(t.tagName)) return;
+      if ((e.ctrlKey || e.metaKey) && !e.shiftKey && e.key.toLowerCase() === 'z') {
+        e.preventDefault();
+        undo();
+      }
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [undo]);
+
+  const run = useCallback(
+    async (kind: RunKind) => {
+      setBusy(kind);
+      setNotice(null);
+      try {
+        const result = await generateMutation.mutateAsync(RUNS[kind].body);
+        setReport({ title: RUNS[kind].title, result });
+        setUndoStack((s) =>
+          pushUndo(s, {
+            label: RUNS[kind].title,
+            changes: result.changes.map((c) => inverseChange(c.entry, c.previous)),
+          }),
+        );
+        setStatus(`${RUNS[kind].title}: ${result.changes.length} cells changed, ${result.unfilled.length} not filled.`);
+      } catch (err) {
+        const why = err instanceof Error ? err.message : 'unknown error';
+        setNotice({ tone: 'error', text: `${RUNS[kind].title} did not run: ${why}` });
+      } finally {
+        setBusy(null);
+      }
+    },
+    [generateMutation],
+  );
+
+  // ---- dragging ----
+
+  const sensors = useSensors(
+    useSensor(MouseAndPenSensor, { activationConstraint: { distance: 5 } }),
+    useSensor(TouchSensor, { activationConstraint: { delay: 180, tolerance: 6 } }),
+    useSensor(BoardKeyboardSensor, {
+      // Enter opens a card's details; Space picks it up.
+      keyboardCodes: { start: ['Space'], cancel: ['Escape'], end: ['Space', 'Enter'] },
+    }),
+  );
+
+  const sourceOf = (id: string | number): DragSource | null => {
+    const m = modelRef.current;
+    const variantId = variantOfLibraryId(id);
+    if (variantId !== null) return { kind: 'library', variantId };
+    const cell = cellOfDndId(id);
+    const entry = cell ? m.entryAt.get(keyOf(cell)) : undefined;
+    if (cell && entry?.variantId != null) return { kind: 'cell', cell, variantId: entry.variantId, entry };
+    return null;
+  };
+
+  const onDragStart = ({ active }: DragStartEvent) => {
+    const source = sourceOf(active.id);
+    if (!source) return;
+    // The engine is prepared once for this drag and judges every target cell on screen now; cells that
+    // scroll into view later are judged as they appear.
+    const m = modelRef.current;
+    performance.mark(`${RATE_MEASURE}:start`);
+    const ratings = prepareRatings(m, source);
+    const shown = new Set(shownRef.current);
+    for (const t of m.targets) if (shown.has(t.athleteId)) ratings.get(keyOf(t));
+    performance.measure(RATE_MEASURE, `${RATE_MEASURE}:start`);
+    const next = { source, ratings };
+    dragRef.current = next;
+    setDrag(next);
+  };
+
+  // The Space or click that ends a drag must not also open the card it lands on.
+  const lastDragEnd = useRef(0);
+  const endDrag = () => {
+    dragRef.current = null;
+    lastDragEnd.current = performance.now();
+    setDrag(null);
+  };
+
+  const onDragEnd = ({ over }: DragEndEvent) => {
+    const d = dragRef.current;
+    endDrag();
+    const target = cellOfDndId(over?.id);
+    if (!d || !target) return;
+    drop(d, target);
+  };
+
+  const drop = (d: DragState, target: CellRef) => {
+    const m = modelRef.current;
+    const key = keyOf(target);
+    const rating = d.ratings.get(key);
+    const variant = m.variantById.get(d.source.variantId);
+    if (!rating || !variant || rating.status === 'source' || pending.has(key)) return;
+    const slot = m.slots.find((s) => s.id === target.slotId);
+    if (rating.status === 'wrongLift') {
+      setNotice({
+        tone: 'info',
+        text: `${variant.name} is a ${variant.lift} variant; ${slot?.label ?? 'this slot'} takes ${slot?.lifts.join(' or ')}.`,
+      });
+      return;
+    }
+    const targetEntry = m.entryAt.get(key);
+    let changes: CellChange[];
+    let label: string;
+    let breaks: Map<CellKey, string[]>;
+    if (d.source.kind === 'library') {
+      if (targetEntry?.variantId === variant.id) return;
+      changes = [{ ...target, variantId: variant.id, version: targetEntry?.version ?? 0 }];
+      label = `${variant.name} to ${labelOf(target)}`;
+      breaks = rating.status === 'break' ? new Map([[key, rating.breaks]]) : new Map();
+    } else {
+      const from = d.source.cell;
+      const back = targetEntry?.variantId ?? null;
+      const backVariant = back === null ? undefined : m.variantById.get(back);
+      const fromSlot = m.slots.find((s) => s.id === from.slotId);
+      if (backVariant && !fromSlot?.lifts.includes(backVariant.lift)) {
+        setNotice({
+          tone: 'info',
+          text: `Cannot swap: ${backVariant.name} does not fit ${fromSlot?.label ?? from.slotId}.`,
+        });
+        return;
+      }
+      changes = [
+        { ...target, variantId: variant.id, version: targetEntry?.version ?? 0 },
+        { ...from, variantId: back, version: d.source.entry.version },
+      ];
+      label =
+        back === null ? `move ${variant.name} to ${labelOf(target)}` : `swap ${variant.name} and ${backVariant?.name}`;
+      breaks = breaksAfter(m, [
+        { cell: target, variantId: variant.id },
+        { cell: from, variantId: back },
+      ]);
+    }
+    if (breaks.size) {
+      setAsk({
+        ask: { label, breaks: [...breaks].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })) },
+        changes,
+        breakKeys: new Set(breaks.keys()),
+        label,
+        undoable: true,
+      });
+      return;
+    }
+    void save(changes, label, true);
+  };
+
+  const announcements: Announcements = {
+    onDragStart: ({ active }) => {
+      const s = sourceOf(active.id);
+      const name = s ? variantName(s.variantId) : 'the card';
+      return `Picked up ${name}. Arrow keys move between cells and say whether a drop is clean; Space drops it, Escape puts it back.`;
+    },
+    onDragOver: ({ active, over }) => {
+      const s = dragRef.current?.source;
+      const name = s ? variantName(s.variantId) : String(active.id);
+      const cell = cellOfDndId(over?.id);
+      if (!cell) return `${name} is not over a cell.`;
+      const r = dragRef.current?.ratings.get(keyOf(cell));
+      const why = r ? [...r.breaks, ...r.warnings][0] : undefined;
+      return `${labelOf(cell)}: ${r ? STATUS_WORDS[r.status] : 'not a target'}${why ? ` (${why})` : ''}.`;
+    },
+    onDragEnd: ({ active, over }) => {
+      const cell = cellOfDndId(over?.id);
+      const s = sourceOf(active.id);
+      const name = s ? variantName(s.variantId) : 'The card';
+      return cell ? `${name} dropped on ${labelOf(cell)}.` : `${name} was not dropped on a cell and went back.`;
+    },
+    onDragCancel: ({ active }) => {
+      const s = sourceOf(active.id);
+      return `Cancelled: ${s ? variantName(s.variantId) : 'the card'} went back.`;
+    },
+  };
+
+  const openDetails = useCallback((key: CellKey) => {
+    if (dragRef.current || performance.now() - lastDragEnd.current < 400) return;
+    setDetails(key);
+  }, []);
+  const detailCell = details ? parseCellKey(details) : null;
+  const detailEntry = details ? model.entryAt.get(details) : undefined;
+  const dragged = drag ? model.variantById.get(drag.source.variantId) : undefined;
+  const top = undoStack[undoStack.length - 1];
+
+  return (
+    <section>
+      <PageHeader
+        title="Board"
+        subtitle={`${model.weeks[0]} to ${model.weeks[model.weeks.length - 1]} · ${model.athletes.length} athletes`}
+      />
+      <BoardToolbar
+        busy={busy}
+        onFill={() => void run('fill')}
+        onPlanToMeet={() => void run('meet')}
+        onReshuffle={() => void run('reshuffle')}
+        undoLabel={top?.label ?? null}
+        undoCount={undoStack.length}
+        onUndo={undo}
+        libraryOpen={libraryOpen}
+        onToggleLibrary={() => setLibraryOpen((o) => !o)}
+        extra={weekActions}
+      />
+      <p role="status" className="sr-only">
+        {status}
+      </p>
+      {conflict ? (
+        <ConflictNotice
+          conflict={conflict.view}
+          busy={saveMutation.isPending}
+          onDismiss={() => setConflict(null)}
+          onReapply={() => {
+            const c = conflict;
+            setConflict(null);
+            const m = modelRef.current;
+            const again = c.changes.map((ch) => ({ ...ch, version: m.entryAt.get(keyOf(ch))?.version ?? 0 }));
+            void save(again, c.label, c.undoable);
+          }}
+        />
+      ) : null}
+      {notice ? (
+        <div className="mb-3">
+          <Notice tone={notice.tone}>{notice.text}</Notice>
+        </div>
+      ) : null}
+      {report ? (
+        <GenerateReport title={report.title} result={report.result} model={model} onClose={() => setReport(null)} />
+      ) : null}
+      <DndContext
+        sensors={sensors}
+        collisionDetection={boardCollision}
+        measuring={{ droppable: { strategy: MeasuringStrategy.WhileDragging } }}
+        accessibility={{
+          announcements,
+          screenReaderInstructions: {
+            draggable:
+              'To move this pick, press Space, then use the arrow keys to reach a cell; each cell says whether the drop is clean, a warning or a rule break. Press Space to drop, Escape to cancel.',
+          },
+        }}
+        onDragStart={onDragStart}
+        onDragEnd={onDragEnd}
+        onDragCancel={endDrag}
+      >
+        <div className="flex h-[calc(100dvh-13rem)] min-h-[28rem] overflow-hidden rounded-lg border border-ink-200 bg-chalk-100">
+          <div
+            ref={scrollRef}
+            // Cells brought into view land clear of the sticky names and week headings.
+            style={{ scrollPaddingLeft: 216, scrollPaddingTop: 60 }}
+            className="min-w-0 flex-1 overflow-auto"
+            data-board-scroll
+          >
+            <BoardGrid
+              model={model}
+              ratings={drag?.ratings ?? null}
+              pending={pending}
+              onOpen={openDetails}
+              scrollRef={scrollRef}
+              shownRef={shownRef}
+            />
+          </div>
+          {libraryOpen ? <LibraryDrawer variants={model.data.variants} /> : null}
+        </div>
+        <DragOverlay dropAnimation={null} className={OVERLAY_CLASS} style={{ pointerEvents: 'none' }}>
+          {dragged ? (
+            <div className="w-36 rotate-1 rounded-md border-2 border-ink-800 bg-chalk-50 px-2 py-1.5 text-sm font-semibold text-ink-900 shadow-xl">
+              {dragged.name}
+              <span className="block text-xs font-normal text-ink-600">
+                {dragged.lift} · {dragged.family}
+              </span>
+            </div>
+          ) : null}
+        </DragOverlay>
+      </DndContext>
+      <TrainingCaution className="mt-3" />
+      {ask ? (
+        <ReasonDialog
+          ask={ask.ask}
+          saving={saveMutation.isPending}
+          onCancel={() => setAsk(null)}
+          onSubmit={(reason) => {
+            const a = ask;
+            setAsk(null);
+            const changes = a.changes.map((c) => (a.breakKeys.has(keyOf(c)) ? { ...c, reason, pinned: true } : c));
+            void save(changes, a.label, a.undoable);
+          }}
+        />
+      ) : null}
+      {detailCell && details ? (
+        <CellDetails
+          cell={detailCell}
+          label={cellLabel(model, detailCell)}
+          entry={detailEntry}
+          variant={detailEntry?.variantId != null ? model.variantById.get(detailEntry.variantId) : undefined}
+          warnings={model.warningsAt.get(details)}
+          editable={detailCell.week >= model.editableFrom}
+          onClose={() => setDetails(null)}
+          onClear={() => {
+            setDetails(null);
+            if (detailEntry) {
+              void save(
+                [{ ...detailCell, variantId: null, version: detailEntry.version }],
+                `clear ${labelOf(detailCell)}`,
+                true,
+              );
+            }
+          }}
+        />
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,199 @@
+// The library beside the board: filter by lift, family, equipment and risk, search by name, and drag a
+// card onto a cell (with the pointer, a finger, or the keyboard).
+import { memo, useId, useMemo, useState, type ReactNode } from 'react';
+import { SortableContext, useSortable } from '@dnd-kit/sortable';
+import type { Joint } from '../../../../shared/engine';
+import type { BoardVariant } from '../../../../shared/schemas';
+import { libraryDndId } from '../model/dnd';
+import { jointWords } from '../model/words';
+
+const noSorting = () => null;
+const LIFT_WORDS = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' } as const;
+const RISK_WORDS = { 1: 'low', 2: 'medium', 3: 'high' } as const;
+
+export interface LibraryFilters {
+  q: string;
+  lift: '' | BoardVariant['lift'];
+  family: string;
+  equipment: string;
+  risk: '' | '1' | '2' | '3';
+}
+
+export const NO_FILTERS: LibraryFilters = { q: '', lift: '', family: '', equipment: '', risk: '' };
+
+/** Variants a coach can still pick (archived ones stay out), narrowed by the filters. */
+export function filterLibrary(variants: BoardVariant[], f: LibraryFilters): BoardVariant[] {
+  const q = f.q.trim().toLowerCase();
+  return variants.filter(
+    (v) =>
+      !v.archived &&
+      (!f.lift || v.lift === f.lift) &&
+      (!f.family || v.family === f.family) &&
+      (!f.equipment || (f.equipment === '(none)' ? v.equipment.length === 0 : v.equipment.includes(f.equipment))) &&
+      (!f.risk || v.risk <= Number(f.risk)) &&
+      (!q || v.name.toLowerCase().includes(q) || v.family.toLowerCase().includes(q)),
+  );
+}
+
+function stressLine(v: BoardVariant): string {
+  const top = (Object.entries(v.stress) as [Joint, number][])
+    .filter(([, n]) => n > 0)
+    .sort((a, b) => b[1] - a[1])
+    .slice(0, 3);
+  return top.length ? top.map(([j, n]) => `${jointWords(j)} ${n}`).join(' · ') : 'no joint stress';
+}
+
+const LibraryCard = memo(function LibraryCard({ variant }: { variant: BoardVariant }) {
+  const descId = useId();
+  const { setNodeRef, listeners, attributes, isDragging } = useSortable({
+    id: libraryDndId(variant.id),
+    disabled: { draggable: false, droppable: true },
+  });
+  return (
+    <li>
+      <button
+        type="button"
+        ref={setNodeRef}
+        {...attributes}
+        {...listeners}
+        aria-label={variant.name}
+        aria-roledescription="library card"
+        aria-describedby={`${descId} ${attributes['aria-describedby']}`}
+        className={`flex w-full cursor-grab touch-manipulation flex-col rounded-md border border-ink-200 bg-chalk-50 px-2 py-1.5 text-left hover:border-ink-500 active:cursor-grabbing ${
+          isDragging ? 'opacity-50' : ''
+        }`}
+      >
+        <span className="text-sm font-semibold leading-tight text-ink-900">{variant.name}</span>
+        <span id={descId} className="mt-0.5 text-xs text-ink-600">
+          {LIFT_WORDS[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORDS[variant.risk]})
+          <span className="block text-ink-500">
+            {stressLine(variant)}
+            {variant.equipment.length ? ` · needs ${variant.equipment.join(', ')}` : ''}
+          </span>
+        </span>
+      </button>
+    </li>
+  );
+});
+
+const fieldClass = 'block w-full rounded-md border border-ink-300 bg-chalk-50 px-2 py-1.5 text-sm text-ink-900';
+
+function Filter({ label, children }: { label: string; children: (id: string) => ReactNode }) {
+  const id = useId();
+  return (
+    <div>
+      <label htmlFor={id} className="text-xs font-semibold text-ink-700">
+        {label}
+      </label>
+      {children(id)}
+    </div>
+  );
+}
+
+export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
+  const [filters, setFilters] = useState<LibraryFilters>(NO_FILTERS);
+  const shown = useMemo(() => filterLibrary(variants, filters), [variants, filters]);
+  const ids = useMemo(() => shown.map((v) => libraryDndId(v.id)), [shown]);
+  const live = useMemo(() => variants.filter((v) => !v.archived), [variants]);
+  const families = useMemo(() => [...new Set(live.map((v) => v.family))].sort(), [live]);
+  const equipment = useMemo(() => [...new Set(live.flatMap((v) => v.equipment))].sort(), [live]);
+  const set = <K extends keyof LibraryFilters>(k: K, value: LibraryFilters[K]) =>
+    setFilters((f) => ({ ...f, [k]: value }));
+
+  return (
+    <aside aria-label="Library" className="flex h-full w-72 shrink-0 flex-col border-l border-ink-200 bg-chalk-100">
+      <div className="space-y-2 border-b border-ink-200 p-3">
+        <h2 className="text-lg font-bold text-ink-900">Library</h2>
+        <Filter label="Search">
+          {(id) => (
+            <input
+              id={id}
+              type="search"
+              value={filters.q}
+              onChange={(e) => set('q', e.target.value)}
+              placeholder="Name or family"
+              className={fieldClass}
+            />
+          )}
+        </Filter>
+        <div className="grid grid-cols-2 gap-2">
+          <Filter label="Lift">
+            {(id) => (
+              <select
+                id={id}
+                value={filters.lift}
+                onChange={(e) => set('lift', e.target.value as LibraryFilters['lift'])}
+                className={fieldClass}
+              >
+                <option value="">Any</option>
+                <option value="squat">Squat</option>
+                <option value="bench">Bench</option>
+                <option value="deadlift">Deadlift</option>
+              </select>
+            )}
+          </Filter>
+          <Filter label="Risk">
+            {(id) => (
+              <select
+                id={id}
+                value={filters.risk}
+                onChange={(e) => set('risk', e.target.value as LibraryFilters['risk'])}
+                className={fieldClass}
+              >
+                <option value="">Any</option>
+                <option value="1">Low only</option>
+                <option value="2">Up to medium</option>
+                <option value="3">Up to high</option>
+              </select>
+            )}
+          </Filter>
+          <Filter label="Family">
+            {(id) => (
+              <select
+                id={id}
+                value={filters.family}
+                onChange={(e) => set('family', e.target.value)}
+                className={fieldClass}
+              >
+                <option value="">Any</option>
+                {families.map((f) => (
+                  <option key={f} value={f}>
+                    {f}
+                  </option>
+                ))}
+              </select>
+            )}
+          </Filter>
+          <Filter label="Equipment">
+            {(id) => (
+              <select
+                id={id}
+                value={filters.equipment}
+                onChange={(e) => set('equipment', e.target.value)}
+                className={fieldClass}
+              >
+                <option value="">Any</option>
+                <option value="(none)">None needed</option>
+                {equipment.map((f) => (
+                  <option key={f} value={f}>
+                    {f}
+                  </option>
+                ))}
+              </select>
+            )}
+          </Filter>
+        </div>
+        <p className="text-xs text-ink-600" role="status">
+          {shown.length} of {live.length} variants
+        </p>
+      </div>
+      <SortableContext id="library" items={ids} strategy={noSorting}>
+        <ul className="flex-1 space-y-1.5 overflow-y-auto p-3">
+          {shown.map((v) => (
+            <LibraryCard key={v.id} variant={v} />
+          ))}
+        </ul>
+      </SortableContext>
+    </aside>
+  );
+}

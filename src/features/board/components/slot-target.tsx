@@ -1,0 +1,277 @@
+// One max-effort slot of one athlete in one week: a labelled drop target holding the pick's card, and,
+// while something is dragged, whether dropping it here is clean, a warning or a rule break, and why.
+import { memo, useCallback, useMemo, type HTMLAttributes } from 'react';
+import { useSortable } from '@dnd-kit/sortable';
+import type { DraggableAttributes, DraggableSyntheticListeners } from '@dnd-kit/core';
+import type { BoardVariant, PlanEntryDto } from '../../../../shared/schemas';
+import { BreakIcon, CleanIcon, PinIcon, WarningIcon } from '../../../components/ui/icons';
+import type { CellKey, DropRating, DropStatus } from '../model/board-model';
+import { DROP_ATTR, cellDndId } from '../model/dnd';
+import { STATUS_WORDS, shortSlot } from '../model/words';
+
+export interface SlotProps {
+  athleteId: number;
+  week: string;
+  slotId: string;
+  cellKey: CellKey;
+  /** "<athlete> · <ISO week> · <slot>", the drop target's accessible name. */
+  label: string;
+  slotLabel: string;
+  entry: PlanEntryDto | undefined;
+  variant: BoardVariant | undefined;
+  /** What checkPlan reports for the pick in this cell. */
+  warnings: string[] | undefined;
+  rating: DropRating | undefined;
+  pending: boolean;
+  onOpen: (key: CellKey) => void;
+}
+
+const STATUS_STYLE: Record<DropStatus, string> = {
+  clean: 'border-clean-600 bg-clean-100',
+  warning: 'border-caution-600 bg-caution-100',
+  break: 'border-breach-600 bg-breach-100',
+  wrongLift: 'border-ink-200 bg-chalk-200 opacity-60',
+  source: 'border-dashed border-ink-400 bg-chalk-100',
+};
+
+const STATUS_TEXT: Record<DropStatus, string> = {
+  clean: 'text-clean-700',
+  warning: 'text-caution-700',
+  break: 'text-breach-700',
+  wrongLift: 'text-ink-500',
+  source: 'text-ink-600',
+};
+
+function StatusIcon({ status, className }: { status: DropStatus; className?: string }) {
+  if (status === 'clean') return <CleanIcon width={14} height={14} className={className} />;
+  if (status === 'warning') return <WarningIcon width={14} height={14} className={className} />;
+  if (status === 'break' || status === 'wrongLift') return <BreakIcon width={14} height={14} className={className} />;
+  return null;
+}
+
+function RatingBadge({ rating }: { rating: DropRating }) {
+  return (
+    <span
+      className={`pointer-events-none absolute -top-2 right-1 z-10 inline-flex items-center gap-0.5 rounded border border-current bg-chalk-50 px-1 text-[10px] font-semibold leading-[14px] ${STATUS_TEXT[rating.status]}`}
+    >
+      <StatusIcon status={rating.status} />
+      {STATUS_WORDS[rating.status]}
+    </span>
+  );
+}
+
+/** The reasons for the cell under the pointer. */
+function Reasons({ rating }: { rating: DropRating }) {
+  const lines = [...rating.breaks, ...rating.warnings];
+  const head =
+    rating.status === 'clean'
+      ? 'Clean: within every rule'
+      : rating.status === 'warning'
+        ? 'Warning: allowed, but worth a look'
+        : rating.status === 'break'
+          ? 'Breaks a rule: you will be asked why'
+          : rating.status === 'wrongLift'
+            ? 'Wrong lift for this slot'
+            : 'The pick being moved';
+  return (
+    <div className="pointer-events-none absolute bottom-full left-0 z-40 mb-1 w-64 rounded-md bg-ink-900 p-2 text-xs text-chalk-50 shadow-lg">
+      <p className="flex items-center gap-1 font-semibold">
+        <StatusIcon status={rating.status} />
+        {head}
+      </p>
+      {lines.length ? (
+        <ul className="mt-1 list-disc space-y-0.5 pl-4">
+          {rating.breaks.map((r) => (
+            <li key={`b${r}`} className="text-rust-300">
+              {r}
+            </li>
+          ))}
+          {rating.warnings.map((r) => (
+            <li key={`w${r}`}>{r}</li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
+
+interface CardProps {
+  slotShort: string;
+  variant: BoardVariant;
+  entry: PlanEntryDto;
+  warnings: string[] | undefined;
+  past: boolean;
+  handle?:
+    | {
+        setRef: (el: HTMLElement | null) => void;
+        listeners: DraggableSyntheticListeners;
+        attributes: DraggableAttributes;
+      }
+    | undefined;
+  onOpen: () => void;
+}
+
+/** The pick: a button named after the variant, showing who chose it and any rule it breaks. */
+function PlanCard({ slotShort, variant, entry, warnings, past, handle, onOpen }: CardProps) {
+  const coach = entry.source === 'coach';
+  const sourceText = coach ? (entry.pinned ? 'Coach pick, pinned' : 'Coach pick') : 'Engine pick';
+  const attrs: HTMLAttributes<HTMLButtonElement> = handle ? { ...handle.attributes, ...handle.listeners } : {};
+  return (
+    <button
+      type="button"
+      ref={handle?.setRef}
+      {...attrs}
+      aria-label={variant.name}
+      aria-description={`${sourceText}${entry.reason ? `: ${entry.reason}` : ''}.${
+        warnings?.length ? ` Breaks a rule: ${warnings.join('; ')}.` : ''
+      }`}
+      aria-roledescription={handle ? 'movable pick' : undefined}
+      onClick={onOpen}
+      className={`flex h-full w-full flex-col justify-between overflow-hidden rounded border px-1.5 py-[3px] text-left ${
+        past
+          ? 'border-ink-200 bg-chalk-100 text-ink-500'
+          : coach
+            ? 'border-rust-300 bg-chalk-50'
+            : 'border-ink-200 bg-chalk-50'
+      } ${handle ? 'cursor-grab touch-manipulation hover:border-ink-500 active:cursor-grabbing' : ''}`}
+    >
+      <span className={`line-clamp-2 text-[12.5px] font-semibold leading-[15px] ${past ? '' : 'text-ink-900'}`}>
+        {variant.name}
+      </span>
+      <span className="flex items-center gap-x-1.5 whitespace-nowrap text-[10px] font-semibold uppercase leading-3 tracking-wide">
+        <span className="text-ink-400">{slotShort}</span>
+        <span className={coach ? 'inline-flex items-center gap-0.5 text-rust-600' : 'text-ink-500'}>
+          {coach && entry.pinned ? <PinIcon width={11} height={11} /> : null}
+          {coach ? 'Coach' : 'Engine'}
+        </span>
+        {warnings?.length ? (
+          <span className="inline-flex items-center gap-0.5 text-breach-700" title={warnings.join('\n')}>
+            <WarningIcon width={11} height={11} />
+            Breaks rule
+          </span>
+        ) : null}
+      </span>
+    </button>
+  );
+}
+
+interface BodyProps {
+  slotLabel: string;
+  entry: PlanEntryDto | undefined;
+  variant: BoardVariant | undefined;
+  warnings: string[] | undefined;
+  rating: DropRating | undefined;
+  isOver: boolean;
+  past: boolean;
+  pending: boolean;
+  handle: CardProps['handle'];
+  onOpen: () => void;
+}
+
+const SlotBody = memo(function SlotBody({
+  slotLabel,
+  entry,
+  variant,
+  warnings,
+  rating,
+  isOver,
+  past,
+  pending,
+  handle,
+  onOpen,
+}: BodyProps) {
+  const slotShort = shortSlot(slotLabel);
+  return (
+    <>
+      {entry && variant ? (
+        <PlanCard
+          slotShort={slotShort}
+          variant={variant}
+          entry={entry}
+          warnings={warnings}
+          past={past}
+          handle={handle}
+          onOpen={onOpen}
+        />
+      ) : (
+        <span className="block h-full rounded border border-dashed border-ink-200 px-1.5 py-1.5 text-[11px] text-ink-400">
+          <span className="font-semibold uppercase tracking-wide">{slotShort}</span> · {past ? 'no pick' : 'empty'}
+        </span>
+      )}
+      {pending ? (
+        <span className="pointer-events-none absolute bottom-1 right-1 rounded bg-ink-800 px-1 text-[10px] text-chalk-50">
+          saving…
+        </span>
+      ) : null}
+      {rating ? <RatingBadge rating={rating} /> : null}
+      {rating && isOver ? <Reasons rating={rating} /> : null}
+    </>
+  );
+});
+
+const noop = () => undefined;
+
+/** A slot in a past week: shown, not a drop target. */
+export const PastSlot = memo(function PastSlot(p: Omit<SlotProps, 'rating' | 'pending'>) {
+  const open = () => p.onOpen(p.cellKey);
+  return (
+    <div role="group" aria-label={p.label} className="relative h-[54px] rounded-md border-2 border-transparent">
+      <SlotBody
+        slotLabel={p.slotLabel}
+        entry={p.entry}
+        variant={p.variant}
+        warnings={p.warnings}
+        rating={undefined}
+        isOver={false}
+        past
+        pending={false}
+        handle={undefined}
+        onOpen={p.entry ? open : noop}
+      />
+    </div>
+  );
+});
+
+/** A slot that can still be planned: a drop target, and its pick can be dragged to another cell. */
+export const EditableSlot = memo(function EditableSlot(p: SlotProps) {
+  const { onOpen, cellKey } = p;
+  const hasPick = !!p.entry && p.entry.variantId !== null && !!p.variant;
+  const id = cellDndId(p);
+  const { setDroppableNodeRef, setDraggableNodeRef, listeners, attributes, isOver, isDragging } = useSortable({
+    id,
+    disabled: { draggable: !hasPick || p.pending, droppable: p.pending },
+    // Cells do not change size while dragging; watching each one would cost more than it saves.
+    resizeObserverConfig: { disabled: true },
+  });
+  // Stable props, so the body only redraws when this cell's own state changes, not on every drag move.
+  const handle = useMemo(
+    () => (hasPick ? { setRef: setDraggableNodeRef, listeners, attributes } : undefined),
+    [hasPick, setDraggableNodeRef, listeners, attributes],
+  );
+  const open = useCallback(() => onOpen(cellKey), [onOpen, cellKey]);
+  return (
+    <div
+      ref={setDroppableNodeRef}
+      {...{ [DROP_ATTR]: id }}
+      role="group"
+      aria-label={p.label}
+      data-rating={p.rating?.status}
+      className={`relative h-[54px] rounded-md border-2 ${
+        p.rating ? STATUS_STYLE[p.rating.status] : 'border-transparent'
+      } ${isOver ? 'ring-2 ring-ink-800' : ''} ${isDragging ? 'opacity-60' : ''}`}
+    >
+      <SlotBody
+        slotLabel={p.slotLabel}
+        entry={p.entry}
+        variant={p.variant}
+        warnings={p.warnings}
+        rating={p.rating}
+        isOver={isOver}
+        past={false}
+        pending={p.pending}
+        handle={handle}
+        onOpen={open}
+      />
+    </div>
+  );
+});

@@ -1,0 +1,377 @@
+// The board's data in the engine's terms, built once per snapshot: athletes grouped by their effective
+// rules (the engine takes one set of rules per request), rule warnings per cell, joint loads per athlete,
+// and the live checks a drag uses, so every drop is judged in the browser with no round-trip.
+import {
+  checkPlan,
+  jointLoadSeries,
+  prepareCandidateChecks,
+  type AthleteInput,
+  type CandidateChecks,
+  type JointLoadPoint,
+  type PlanEntry,
+  type PlanRequest,
+  type Rules,
+  type Variant,
+  type Violation,
+} from '../../../../shared/engine';
+import {
+  plainViolationMessage,
+  toEnginePlanEntry,
+  toEngineRules,
+  toEngineVariant,
+  type BoardAthlete,
+  type BoardData,
+  type BoardSlot,
+  type BoardVariant,
+  type PlanEntryDto,
+} from '../../../../shared/schemas';
+
+export type CellKey = string;
+export interface CellRef {
+  athleteId: number;
+  week: string;
+  slotId: string;
+}
+
+export const cellKey = (athleteId: number, week: string, slotId: string): CellKey => `${athleteId}|${week}|${slotId}`;
+export const keyOf = (c: CellRef): CellKey => cellKey(c.athleteId, c.week, c.slotId);
+
+export function parseCellKey(key: CellKey): CellRef {
+  const [athleteId, week, slotId] = key.split('|');
+  return { athleteId: Number(athleteId), week: week!, slotId: slotId! };
+}
+
+export interface RulesGroup {
+  rules: Rules;
+  athleteIds: number[];
+  /** One engine request for the group over the board's weeks, with every entry on the board. */
+  request: PlanRequest;
+}
+
+export interface AthleteView {
+  athlete: BoardAthlete;
+  /** Per visible week: the joint loads of the span ending that week (ratio = load ÷ budget). */
+  loads: JointLoadPoint[][];
+  /** The highest ratio on the board's weeks, and where. */
+  peak: JointLoadPoint | null;
+}
+
+export interface BoardModel {
+  data: BoardData;
+  weeks: string[];
+  /** First week that can still be planned (this week). */
+  editableFrom: string;
+  slots: BoardSlot[];
+  athletes: AthleteView[];
+  variantById: Map<number, BoardVariant>;
+  entryAt: Map<CellKey, PlanEntryDto>;
+  /** What checkPlan reports for the cell's current pick, in plain words. */
+  warningsAt: Map<CellKey, string[]>;
+  groups: RulesGroup[];
+  groupOf: Map<number, RulesGroup>;
+  /** Cells a drop may target: editable weeks × athletes × slots, in board order. */
+  targets: CellRef[];
+  /** Per athlete: what the warnings and loads were worked out from, to reuse them when it is unchanged. */
+  facts: Map<number, AthleteFacts>;
+}
+
+function violationText(v: Violation, byId: Map<number, BoardVariant>): string {
+  const variant = byId.get(Number(v.variantId));
+  return plainViolationMessage(v.message, variant?.name, !!variant?.archived);
+}
+
+/** Engine entries of the board: every visible entry with a variant, plus the context around it. */
+function boardEntries(data: BoardData): { history: Map<string, PlanEntry[]>; planned: PlanEntry[] } {
+  const history = new Map<string, PlanEntry[]>();
+  const planned: PlanEntry[] = [];
+  for (const c of data.context) {
+    const e = toEnginePlanEntry(c);
+    if (c.week < data.from) {
+      const list = history.get(e.athleteId);
+      if (list) list.push(e);
+      else history.set(e.athleteId, [e]);
+    } else planned.push(e);
+  }
+  for (const d of data.entries) {
+    if (d.variantId === null) continue;
+    planned.push(toEnginePlanEntry({ ...d, variantId: d.variantId }));
+  }
+  return { history, planned };
+}
+
+/**
+ * Builds the model of a snapshot. Given the previous model, lists and cells whose content did not change
+ * keep their identity, so memoised cells skip redrawing after a save.
+ */
+export function buildBoardModel(data: BoardData, prev?: BoardModel): BoardModel {
+  const variantById = new Map(data.variants.map((v) => [v.id, v]));
+  const variants: Variant[] = data.variants.map(toEngineVariant);
+  const { history, planned } = boardEntries(data);
+
+  const byGroup = new Map<string, { rules: Rules; athletes: BoardAthlete[] }>();
+  for (const a of data.athletes) {
+    const rules = toEngineRules(data.rules, data.seed, a.ruleOverrides);
+    const key = JSON.stringify(rules);
+    const g = byGroup.get(key) ?? { rules, athletes: [] };
+    g.athletes.push(a);
+    byGroup.set(key, g);
+  }
+  const groups: RulesGroup[] = [];
+  const groupOf = new Map<number, RulesGroup>();
+  for (const g of byGroup.values()) {
+    const ids = new Set(g.athletes.map((a) => String(a.id)));
+    const inputs: AthleteInput[] = g.athletes.map((a) => ({
+      id: String(a.id),
+      equipment: a.equipment,
+      restrictions: a.restrictions.map((r) => ({ joint: r.joint, maxStress: r.maxStress })),
+      ...(a.meet ? { meetWeek: a.meet.week } : {}),
+      history: history.get(String(a.id)) ?? [],
+    }));
+    const group: RulesGroup = {
+      rules: g.rules,
+      athleteIds: g.athletes.map((a) => a.id),
+      request: {
+        variants,
+        slots: data.slots.map((s) => ({ id: s.id, lifts: s.lifts })),
+        athletes: inputs,
+        rules: g.rules,
+        weeks: data.weeks,
+        planned: planned.filter((e) => ids.has(e.athleteId)),
+      },
+    };
+    groups.push(group);
+    for (const a of g.athletes) groupOf.set(a.id, group);
+  }
+
+  const entryAt = new Map<CellKey, PlanEntryDto>();
+  for (const e of data.entries) entryAt.set(cellKey(e.athleteId, e.week, e.slotId), e);
+
+  // Rule warnings and joint loads per athlete; an athlete whose board and rules did not change since
+  // the previous model keeps what was worked out then.
+  const warningsAt = new Map<CellKey, string[]>();
+  const loadsOf = new Map<number, JointLoadPoint[]>();
+  const perAthlete = new Map<number, AthleteFacts>();
+  const plannedOf = new Map<string, PlanEntry[]>();
+  for (const e of planned) {
+    const list = plannedOf.get(e.athleteId);
+    if (list) list.push(e);
+    else plannedOf.set(e.athleteId, [e]);
+  }
+  for (const g of groups) {
+    for (const input of g.request.athletes) {
+      const own = plannedOf.get(input.id) ?? [];
+      const sig = signature(g.rules, input, own, data.weeks);
+      const id = Number(input.id);
+      let facts = prev?.facts.get(id);
+      if (!facts || facts.sig !== sig) {
+        const warnings = new Map<CellKey, string[]>();
+        for (const v of checkPlan(g.request, own)) {
+          const key = cellKey(id, v.week, v.slotId);
+          warnings.set(key, [...(warnings.get(key) ?? []), violationText(v, variantById)]);
+        }
+        facts = { sig, warnings, loads: jointLoadSeries(g.request, input.id, data.weeks, own) };
+      }
+      perAthlete.set(id, facts);
+      for (const [k, w] of facts.warnings) warningsAt.set(k, w);
+      loadsOf.set(id, facts.loads);
+    }
+  }
+
+  const athletes = data.athletes.map((athlete): AthleteView => {
+    const points = loadsOf.get(athlete.id) ?? [];
+    const before = prev?.athletes.find((v) => v.athlete.id === athlete.id);
+    if (before && before.athlete === athlete && prev?.facts.get(athlete.id) === perAthlete.get(athlete.id))
+      return before;
+    const byWeek = new Map<string, JointLoadPoint[]>();
+    let peak: JointLoadPoint | null = null;
+    for (const p of points) {
+      const list = byWeek.get(p.week) ?? [];
+      list.push(p);
+      byWeek.set(p.week, list);
+      if (!peak || p.ratio > peak.ratio) peak = p;
+    }
+    return { athlete, loads: data.weeks.map((w) => byWeek.get(w) ?? []), peak };
+  });
+
+  const editableWeeks = data.weeks.filter((w) => w >= data.currentWeek);
+  let targets: CellRef[] = [];
+  for (const a of data.athletes) {
+    for (const week of editableWeeks) for (const s of data.slots) targets.push({ athleteId: a.id, week, slotId: s.id });
+  }
+  if (prev && prev.targets.length === targets.length && prev.targets.every((t, i) => keyOf(t) === keyOf(targets[i]!))) {
+    targets = prev.targets;
+  }
+
+  return {
+    data,
+    weeks: data.weeks,
+    editableFrom: data.currentWeek,
+    slots: data.slots,
+    athletes,
+    variantById,
+    entryAt,
+    warningsAt,
+    groups,
+    groupOf,
+    targets,
+    facts: perAthlete,
+  };
+}
+
+interface AthleteFacts {
+  sig: string;
+  warnings: Map<CellKey, string[]>;
+  loads: JointLoadPoint[];
+}
+
+/** Everything an athlete's warnings and loads depend on, as one string. */
+function signature(rules: Rules, input: AthleteInput, own: PlanEntry[], weeks: string[]): string {
+  const entries = (list: PlanEntry[]) =>
+    list.map((e) => `${e.week}${e.slotId}${e.variantId}${e.pinned ? 'p' : ''}`).join(',');
+  return [
+    JSON.stringify(rules),
+    input.equipment.join(','),
+    JSON.stringify(input.restrictions),
+    input.meetWeek ?? '',
+    weeks[0],
+    weeks.length,
+    entries(input.history),
+    entries(own),
+  ].join('|');
+}
+
+// ---- live checks while dragging ----
+
+export type DropStatus = 'clean' | 'warning' | 'break' | 'wrongLift' | 'source';
+
+export interface DropRating {
+  status: DropStatus;
+  /** The rules the drop would break, in plain words. */
+  breaks: string[];
+  /** Softer things worth a look (a joint near its budget, a window only just kept). */
+  warnings: string[];
+}
+
+/** What is being dragged: a library variant, or the pick of one cell (to move or swap it). */
+export type DragSource =
+  { kind: 'library'; variantId: number } | { kind: 'cell'; cell: CellRef; variantId: number; entry: PlanEntryDto };
+
+const CLEAN: DropRating = { status: 'clean', breaks: [], warnings: [] };
+const SOURCE: DropRating = { status: 'source', breaks: [], warnings: [] };
+
+/** Drop ratings of one drag, worked out per cell when first asked for and kept for the rest of the drag. */
+export interface Ratings {
+  readonly source: DragSource;
+  /** undefined for a cell that is not a target (a past week, an unknown athlete). */
+  get(key: CellKey): DropRating | undefined;
+}
+
+/**
+ * Prepares the engine for this drag (once per rules group, on first need) and rates cells on demand, so
+ * a drag start pays only for the cells on screen. A dragged cell's own pick is taken off the board
+ * first, since it leaves its cell when dropped.
+ */
+export function prepareRatings(model: BoardModel, source: DragSource): Ratings {
+  const variant = model.variantById.get(source.variantId);
+  const cache = new Map<CellKey, DropRating | undefined>();
+  const checksOf = new Map<RulesGroup, CandidateChecks>();
+  const checks = (g: RulesGroup) => {
+    let c = checksOf.get(g);
+    if (!c) {
+      let req = g.request;
+      if (source.kind === 'cell' && g.athleteIds.includes(source.cell.athleteId)) {
+        const skip = keyOf(source.cell);
+        req = {
+          ...req,
+          planned: (req.planned ?? []).filter((e) => cellKey(Number(e.athleteId), e.week, e.slotId) !== skip),
+        };
+      }
+      c = prepareCandidateChecks(req);
+      checksOf.set(g, c);
+    }
+    return c;
+  };
+  const slotLifts = new Map(model.slots.map((s) => [s.id, s.lifts]));
+  const sourceKey = source.kind === 'cell' ? keyOf(source.cell) : null;
+
+  const rate = (key: CellKey): DropRating | undefined => {
+    if (!variant) return undefined;
+    const t = parseCellKey(key);
+    if (t.week < model.editableFrom || !model.weeks.includes(t.week)) return undefined;
+    if (key === sourceKey) return SOURCE;
+    const lifts = slotLifts.get(t.slotId);
+    const group = model.groupOf.get(t.athleteId);
+    if (!lifts || !group) return undefined;
+    if (!lifts.includes(variant.lift)) {
+      return { status: 'wrongLift', breaks: [`${variant.name} is a ${variant.lift} variant`], warnings: [] };
+    }
+    const r = checks(group).rate(String(t.athleteId), t.week, t.slotId, String(variant.id));
+    if (r.status === 'clean') return CLEAN;
+    return {
+      status: r.status,
+      breaks: r.violations.map((v) => violationText(v, model.variantById)),
+      warnings: r.warnings,
+    };
+  };
+
+  return {
+    source,
+    get(key) {
+      if (cache.has(key)) return cache.get(key);
+      const r = rate(key);
+      cache.set(key, r);
+      return r;
+    },
+  };
+}
+
+/** Every target cell's rating for a drag, at once. */
+export function rateTargets(model: BoardModel, source: DragSource): Map<CellKey, DropRating> {
+  const ratings = prepareRatings(model, source);
+  const out = new Map<CellKey, DropRating>();
+  for (const t of model.targets) {
+    const r = ratings.get(keyOf(t));
+    if (r) out.set(keyOf(t), r);
+  }
+  return out;
+}
+
+/** Rule breaks the board would have after these picks, judged by the engine, per changed cell. */
+export function breaksAfter(
+  model: BoardModel,
+  picks: { cell: CellRef; variantId: number | null }[],
+): Map<CellKey, string[]> {
+  const out = new Map<CellKey, string[]>();
+  const changed = new Map(picks.map((p) => [keyOf(p.cell), p]));
+  const groups = new Set(picks.map((p) => model.groupOf.get(p.cell.athleteId)).filter((g) => !!g));
+  for (const g of groups) {
+    const ids = new Set(g!.athleteIds.map(String));
+    const entries: PlanEntry[] = (g!.request.planned ?? []).filter(
+      (e) => ids.has(e.athleteId) && !changed.has(cellKey(Number(e.athleteId), e.week, e.slotId)),
+    );
+    for (const p of picks) {
+      if (p.variantId === null || !g!.athleteIds.includes(p.cell.athleteId)) continue;
+      entries.push({
+        athleteId: String(p.cell.athleteId),
+        week: p.cell.week,
+        slotId: p.cell.slotId,
+        variantId: String(p.variantId),
+      });
+    }
+    for (const v of checkPlan(g!.request, entries)) {
+      const key = cellKey(Number(v.athleteId), v.week, v.slotId);
+      if (!changed.has(key)) continue;
+      const list = out.get(key) ?? [];
+      list.push(violationText(v, model.variantById));
+      out.set(key, list);
+    }
+  }
+  return out;
+}
+
+/** "<athlete> · <ISO week> · <slot>", as the cell's drop target is named. */
+export function cellLabel(model: BoardModel, c: CellRef): string {
+  const athlete = model.athletes.find((a) => a.athlete.id === c.athleteId)?.athlete.name ?? `Athlete ${c.athleteId}`;
+  const slot = model.slots.find((s) => s.id === c.slotId)?.label ?? c.slotId;
+  return `${athlete} · ${c.week} · ${slot}`;
+}

@@ -1,0 +1,301 @@
+// The coach's board in Chromium, as the demo head coach: Fill next week, drops with the mouse and with
+// the keyboard that survive a reload, a rule-breaking drop that needs a reason, two coaches editing one
+// cell, and the athlete seeing the saved pick on My week.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Locator, Page, Response } from 'playwright-core';
+import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import { openBrowser, signInAs, type Browser } from './support/browser';
+
+const thisWeek = weekOfDate(new Date());
+const wk = (n: number) => addWeeks(thisWeek, n);
+const LOWER = 'Lower max effort';
+const UPPER = 'Upper max effort';
+// Tall enough that every demo athlete's row is in the document without scrolling.
+const VIEW = { width: 1500, height: 2400 };
+
+let b: Browser;
+beforeAll(async () => {
+  b = await openBrowser(VIEW);
+  await signInAs(b, 'coach@rackturn.test');
+  await b.page.waitForURL(/\/board$/);
+});
+afterAll(async () => {
+  await b?.close();
+});
+
+const cell = (page: Page, athlete: string, week: string, slot: string) =>
+  page.getByRole('group', { name: `${athlete} · ${week} · ${slot}`, exact: true });
+const library = (page: Page) => page.getByRole('complementary', { name: 'Library' });
+
+async function openBoard(page: Page) {
+  await page.goto(`${b.baseUrl}/board`);
+  await page.getByRole('table').waitFor();
+}
+
+async function athleteNames(page: Page): Promise<string[]> {
+  return page.locator('tbody th[scope="row"] > span:first-child').allTextContents();
+}
+
+/** Library cards for one lift, by name. */
+async function libraryNames(page: Page, lift: 'Squat' | 'Bench' | 'Deadlift'): Promise<string[]> {
+  await library(page).getByLabel('Lift', { exact: true }).selectOption({ label: lift });
+  const names = await library(page)
+    .getByRole('button')
+    .evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
+  await library(page).getByLabel('Lift', { exact: true }).selectOption({ label: 'Any' });
+  return names;
+}
+
+async function showOnly(page: Page, name: string): Promise<Locator> {
+  await library(page).getByLabel('Search', { exact: true }).fill(name);
+  const card = library(page).getByRole('button', { name, exact: true });
+  await card.waitFor();
+  return card;
+}
+
+/**
+ * Drags with the mouse as dnd-kit needs it: press, a 10 px move in 5 steps past the activation distance,
+ * 15 steps to the target, then release. Returns the rating the target showed just before the drop.
+ */
+async function mouseDrag(page: Page, source: Locator, target: Locator, drop = true): Promise<string | null> {
+  await target.scrollIntoViewIfNeeded();
+  const a = (await source.boundingBox())!;
+  const t = (await target.boundingBox())!;
+  await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(a.x + a.width / 2 + 10, a.y + a.height / 2, { steps: 5 });
+  await page.mouse.move(t.x + t.width / 2, t.y + t.height / 2, { steps: 15 });
+  await expect.poll(() => target.getAttribute('data-rating')).not.toBeNull();
+  const rating = await target.getAttribute('data-rating');
+  if (!drop) await page.keyboard.press('Escape');
+  await page.mouse.up();
+  return rating;
+}
+
+const isSave = (r: Response) =>
+  /\/api\/plans\/\d+\/\d{4}-W\d{2}\/[a-z-]+$/.test(new URL(r.url()).pathname) && r.request().method() === 'PUT';
+
+/** Drops the first library card (of a lift) that is clean or a warning for the target; returns its name. */
+async function dropCleanPick(page: Page, target: Locator, lift: 'Squat' | 'Bench' | 'Deadlift', skip: string[] = []) {
+  for (const name of await libraryNames(page, lift)) {
+    if (skip.includes(name)) continue;
+    const card = await showOnly(page, name);
+    const rating = await mouseDrag(page, card, target, false);
+    if (rating !== 'clean' && rating !== 'warning') continue;
+    const saved = page.waitForResponse(isSave, { timeout: 10_000 });
+    await mouseDrag(page, card, target, true);
+    expect((await saved).status()).toBeLessThan(300);
+    return name;
+  }
+  throw new Error('no library card is clean for that cell');
+}
+
+describe('the board', () => {
+  it('shows past weeks greyed, this week marked, and the planning actions', async () => {
+    await openBoard(b.page);
+    await expect(b.page.getByRole('columnheader', { name: /This week/ }).getAttribute('aria-current')).resolves.toBe(
+      'date',
+    );
+    for (const name of ['Fill next week', 'Plan to meet', 'Reshuffle']) {
+      await expect(b.page.getByRole('button', { name, exact: true }).isEnabled()).resolves.toBe(true);
+    }
+    const headers = await b.page.getByRole('columnheader').allTextContents();
+    expect(headers.filter((h) => h.includes('Done'))).toHaveLength(4);
+    expect(headers).toHaveLength(1 + 13);
+    await b.page.screenshot({ path: '.tmp/e2e-board-start.png' });
+  });
+
+  it('Fill next week fills every demo athlete’s cells with no rule break shown', async () => {
+    await openBoard(b.page);
+    const ran = b.page.waitForResponse((r) => r.url().endsWith('/api/plans/generate'));
+    await b.page.getByRole('button', { name: 'Fill next week', exact: true }).click();
+    expect((await ran).status()).toBe(200);
+    const report = b.page.getByRole('region', { name: 'Plan run' });
+    await expect(report.getByRole('status').textContent()).resolves.toMatch(/0 could not be filled/);
+    const names = await athleteNames(b.page);
+    expect(names.length).toBeGreaterThanOrEqual(12);
+    for (const name of names) {
+      for (const slot of [LOWER, UPPER]) {
+        const target = cell(b.page, name, wk(1), slot);
+        await expect(target.getByRole('button').count()).resolves.toBe(1);
+        await expect(target.getByText('Breaks rule').count()).resolves.toBe(0);
+      }
+    }
+    // Running it again plans the same: nothing changes.
+    const again = b.page.waitForResponse((r) => r.url().endsWith('/api/plans/generate'));
+    await b.page.getByRole('button', { name: 'Fill next week', exact: true }).click();
+    expect(((await (await again).json()) as { changes: unknown[] }).changes).toEqual([]);
+    await b.page.screenshot({ path: '.tmp/e2e-board-filled.png' });
+  });
+
+  it('keeps a library card dropped with the mouse after a reload', async () => {
+    await openBoard(b.page);
+    const [athlete] = await athleteNames(b.page);
+    const target = cell(b.page, athlete!, wk(4), LOWER);
+    const name = await dropCleanPick(b.page, target, 'Squat');
+    await openBoard(b.page);
+    await expect(target.getByRole('button', { name, exact: true }).count()).resolves.toBe(1);
+  });
+
+  it('keeps a library card dropped with the keyboard only after a reload', async () => {
+    await openBoard(b.page);
+    const names = await athleteNames(b.page);
+    const athlete = names[1]!;
+    const targetLabel = `${athlete} · ${wk(5)} · ${UPPER}`;
+    const candidates = await libraryNames(b.page, 'Bench');
+    let saved: string | null = null;
+    for (const name of candidates.slice(0, 6)) {
+      await library(b.page).getByLabel('Search', { exact: true }).fill(name);
+      // From the search box, Tab reaches the filters and then the first card.
+      await library(b.page).getByLabel('Search', { exact: true }).focus();
+      for (let i = 0; i < 8; i++) {
+        await b.page.keyboard.press('Tab');
+        const role = await b.page.evaluate(() => document.activeElement?.getAttribute('aria-roledescription'));
+        if (role === 'library card') break;
+      }
+      await expect(b.page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).resolves.toBe(name);
+      await b.page.keyboard.press('Space');
+      await b.page.waitForFunction(() => document.activeElement?.getAttribute('aria-pressed') === 'true');
+      const status = await keyboardTo(b.page, targetLabel, names);
+      if (/: (Clean|Warning)/.test(status)) {
+        const done = b.page.waitForResponse(isSave);
+        await b.page.keyboard.press('Space');
+        expect((await done).status()).toBeLessThan(300);
+        saved = name;
+        break;
+      }
+      await b.page.keyboard.press('Escape');
+    }
+    expect(saved).not.toBeNull();
+    await openBoard(b.page);
+    await expect(
+      cell(b.page, athlete, wk(5), UPPER).getByRole('button', { name: saved!, exact: true }).count(),
+    ).resolves.toBe(1);
+  });
+
+  it('asks for a reason for a drop that breaks a rule, then shows a coach pick with a warning', async () => {
+    await openBoard(b.page);
+    // The demo's athlete with the irritated elbow (elbow stress at most 1) and a bench variant that loads it.
+    const target = cell(b.page, 'Dario Menditto', wk(6), UPPER);
+    const card = await showOnly(b.page, 'Bench press with bands');
+    const rating = await mouseDrag(b.page, card, target);
+    expect(rating).toBe('break');
+    const dialog = b.page.getByRole('dialog', { name: 'This pick breaks a rule' });
+    await dialog.waitFor();
+    await expect(dialog.textContent()).resolves.toMatch(/elbow stress 3 over this athlete's limit of 1/);
+    await dialog.getByRole('button', { name: 'Save as coach pick' }).click();
+    await expect(dialog.getByRole('alert').textContent()).resolves.toBe('Say why in a few words');
+    await dialog.getByLabel('Why keep it anyway?').fill('Banded work at 60%, cleared with the physio');
+    const saved = b.page.waitForResponse(isSave);
+    await dialog.getByRole('button', { name: 'Save as coach pick' }).click();
+    const res = await saved;
+    expect(res.status()).toBe(201);
+    expect(await res.json()).toMatchObject({ source: 'coach', pinned: true });
+    await openBoard(b.page);
+    const pick = target.getByRole('button', { name: 'Bench press with bands', exact: true });
+    await expect(pick.getAttribute('aria-description')).resolves.toMatch(
+      /Coach pick, pinned: Banded work.*Breaks a rule/,
+    );
+    await expect(target.getByText('Breaks rule').isVisible()).resolves.toBe(true);
+    await b.page.screenshot({ path: '.tmp/e2e-board-break.png' });
+  });
+
+  it('handles two coaches saving the same cell: one 409, the other pick shown, mine re-applied on request', async () => {
+    const other = await openBrowser(VIEW);
+    try {
+      await signInAs(other, 'coach2@rackturn.test');
+      await openBoard(b.page);
+      await openBoard(other.page);
+      const names = await athleteNames(b.page);
+      const athlete = names[2]!;
+      const mine = cell(b.page, athlete, wk(7), LOWER);
+      const theirs = cell(other.page, athlete, wk(7), LOWER);
+      // The second coach saves first; this page still shows the cell empty.
+      const first = await dropCleanPick(other.page, theirs, 'Deadlift');
+      const statuses: number[] = [];
+      b.page.on('response', (r) => {
+        if (isSave(r)) statuses.push(r.status());
+      });
+      // This coach's drop meets the newer version and is refused.
+      await expect(dropCleanPick(b.page, mine, 'Squat')).rejects.toThrow();
+      expect(statuses).toEqual([409]);
+      const notice = b.page.getByRole('alert').filter({ hasText: 'Someone else changed this first' });
+      await notice.waitFor();
+      await expect(notice.textContent()).resolves.toContain(first);
+      // The board refetched and shows the other coach's pick.
+      await mine.getByRole('button', { name: first, exact: true }).waitFor();
+      const reapplied = b.page.waitForResponse(isSave);
+      await notice.getByRole('button', { name: 'Apply my change again' }).click();
+      expect((await reapplied).status()).toBe(200);
+      expect(statuses).toEqual([409, 200]);
+      await openBoard(other.page);
+      const now = await theirs.getByRole('button').getAttribute('aria-label');
+      expect(now).not.toBe(first);
+      await openBoard(b.page);
+      await expect(mine.getByRole('button').getAttribute('aria-label')).resolves.toBe(now);
+    } finally {
+      await other.close();
+    }
+  });
+
+  it('shows the athlete this week’s pick as soon as it is saved', async () => {
+    await openBoard(b.page);
+    const target = cell(b.page, 'Noor Halvorsen', thisWeek, LOWER);
+    const before = await target
+      .getByRole('button')
+      .getAttribute('aria-label')
+      .catch(() => null);
+    const name = await dropCleanPick(b.page, target, 'Deadlift', before ? [before] : []);
+    const athlete = await openBrowser({ width: 375, height: 812 });
+    try {
+      await signInAs(athlete, 'athlete@rackturn.test');
+      await athlete.page.waitForURL(/\/my-week$/);
+      await athlete.page.getByRole('heading', { name, exact: true }).waitFor();
+      await athlete.page.screenshot({ path: '.tmp/e2e-board-my-week.png' });
+    } finally {
+      await athlete.close();
+    }
+  });
+
+  it('raised no console errors besides the refused saves', () => {
+    expect(b.problems.filter((p) => !/409|422/.test(p))).toEqual([]);
+  });
+});
+
+/**
+ * Moves a keyboard drag to the cell named `label`, one arrow key at a time, steering by what dnd-kit's
+ * live region announces after each key. Returns the last announcement.
+ */
+async function keyboardTo(page: Page, label: string, athletes: string[]): Promise<string> {
+  const slots = [LOWER, UPPER];
+  const [athlete, week, slot] = label.split(' · ');
+  const want = { athlete: athlete!, week: week!, slot: slot! };
+  const pos = (c: { athlete: string; slot: string }) =>
+    athletes.indexOf(c.athlete) * slots.length + slots.indexOf(c.slot);
+  let said = await announced(page);
+  let key = 'ArrowLeft';
+  for (let i = 0; i < 80; i++) {
+    await page.keyboard.press(key);
+    let next = said;
+    for (let wait = 0; wait < 20 && next === said; wait++) {
+      await page.waitForTimeout(50);
+      next = await announced(page);
+    }
+    said = next;
+    const at = parse(said);
+    if (!at) continue; // no announcement yet: press again
+    if (at.week === want.week && at.athlete === want.athlete && at.slot === want.slot) return said;
+    if (at.week !== want.week) key = at.week > want.week ? 'ArrowLeft' : 'ArrowRight';
+    else key = pos(at) > pos(want) ? 'ArrowUp' : 'ArrowDown';
+  }
+  throw new Error(`could not reach ${label}; last heard: ${said}`);
+}
+
+function parse(text: string): { athlete: string; week: string; slot: string } | null {
+  const m = /^(.+?) · (\d{4}-W\d{2}) · (.+?): /.exec(text);
+  return m ? { athlete: m[1]!, week: m[2]!, slot: m[3]! } : null;
+}
+
+async function announced(page: Page): Promise<string> {
+  return page.evaluate(() => document.querySelector('[id^="DndLiveRegion"]')?.textContent ?? '');
+}
