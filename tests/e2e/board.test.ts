@@ -137,6 +137,20 @@ describe('the board', () => {
     await expect(target.getByRole('button', { name, exact: true }).count()).resolves.toBe(1);
   });
 
+  it('undoes the last change, version and all', async () => {
+    await openBoard(b.page);
+    // The first athlete by name has no meet ahead, so no taper narrows the choice in week 8.
+    const [athlete] = await athleteNames(b.page);
+    const target = cell(b.page, athlete!, wk(8), LOWER);
+    const name = await dropCleanPick(b.page, target, 'Squat');
+    await target.getByRole('button', { name, exact: true }).waitFor();
+    const undone = b.page.waitForResponse((r) => r.request().method() === 'DELETE' && r.url().includes('/api/plans/'));
+    await b.page.getByRole('button', { name: /^Undo/ }).click();
+    expect((await undone).status()).toBe(200);
+    await openBoard(b.page);
+    await expect(target.getByRole('button').count()).resolves.toBe(0);
+  });
+
   it('keeps a library card dropped with the keyboard only after a reload', async () => {
     await openBoard(b.page);
     const names = await athleteNames(b.page);

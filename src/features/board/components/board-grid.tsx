@@ -28,7 +28,7 @@ export const BOARD_PAINT_MEASURE = 'board:paint';
 export const rowHeight = (slots: number) => 44 + 62 * slots;
 const HEAD_HEIGHT = 52;
 /** Rows kept in the document beyond the visible ones, above and below (px). */
-const OVERSCAN = 320;
+const OVERSCAN = 200;
 
 /** Which rows [start, end) the scrolled view needs, with some to spare on both sides. */
 export function rowWindow(scrollTop: number, height: number, rows: number, rowH: number): [number, number] {
@@ -94,10 +94,10 @@ export const BoardGrid = memo(function BoardGrid({ model, ratings, pending, onOp
   const [start, end] = useRowWindow(scrollRef, model.athletes.length, rowH);
   const shown = model.athletes.slice(start, end);
   useEffect(() => {
-    shownRef.current = model.athletes.slice(start, end).map((v) => v.athlete.id);
+    shownRef.current = model.athletes.slice(start, end).map((a) => a.id);
   }, [model.athletes, start, end, shownRef]);
   const targetIds = useMemo(() => {
-    const ids = new Set(shown.map((v) => v.athlete.id));
+    const ids = new Set(shown.map((a) => a.id));
     return model.targets.filter((t) => ids.has(t.athleteId)).map(cellDndId);
     // `shown` is derived from these three.
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -162,12 +162,12 @@ export const BoardGrid = memo(function BoardGrid({ model, ratings, pending, onOp
               <td colSpan={cols} />
             </tr>
           ) : null}
-          {shown.map((view, i) => (
+          {shown.map((athlete, i) => (
             <AthleteRow
-              key={view.athlete.id}
+              key={athlete.id}
               index={start + i}
               height={rowH}
-              view={view}
+              view={model.view(athlete.id)}
               model={model}
               ratings={ratings}
               pending={pending}
@@ -261,7 +261,7 @@ const AthleteRow = memo(function AthleteRow({ index, height, view, model, rating
                 slotLabel: slot.label,
                 entry,
                 variant: entry?.variantId != null ? model.variantById.get(entry.variantId) : undefined,
-                warnings: model.warningsAt.get(key),
+                warnings: model.warnings(key),
                 onOpen,
               };
               return past ? (

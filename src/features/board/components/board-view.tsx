@@ -1,6 +1,6 @@
 // The coach's board: the grid and the library inside one drag-and-drop context, live rule checks while
 // dragging, saves that show at once, reasons for rule breaks, conflicts with another coach, plan runs and undo.
-import { useCallback, useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import { startTransition, useCallback, useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
 import {
   DndContext,
   DragOverlay,
@@ -115,6 +115,9 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const saveMutation = useSavePlanEntries();
   const generateMutation = useGeneratePlan();
   const [drag, setDrag] = useState<DragState | null>(null);
+  // The cells' badges come in a transition: drawn in slices between frames, so picking a card up never
+  // stalls the pointer, while the preview follows at once.
+  const [shownRatings, setShownRatings] = useState<Ratings | null>(null);
   const dragRef = useRef<DragState | null>(null);
   const [pending, setPending] = useState<ReadonlySet<CellKey>>(() => new Set());
   const [undoStack, setUndoStack] = useState<UndoItem[]>([]);
@@ -289,6 +292,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     const next = { source, ratings };
     dragRef.current = next;
     setDrag(next);
+    startTransition(() => setShownRatings(ratings));
   };
 
   // The Space or click that ends a drag must not also open the card it lands on.
@@ -297,6 +301,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     dragRef.current = null;
     lastDragEnd.current = performance.now();
     setDrag(null);
+    startTransition(() => setShownRatings(null));
   };
 
   const onDragEnd = ({ over }: DragEndEvent) => {
@@ -470,7 +475,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           >
             <BoardGrid
               model={model}
-              ratings={drag?.ratings ?? null}
+              ratings={shownRatings}
               pending={pending}
               onOpen={openDetails}
               scrollRef={scrollRef}
@@ -510,7 +515,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           label={cellLabel(model, detailCell)}
           entry={detailEntry}
           variant={detailEntry?.variantId != null ? model.variantById.get(detailEntry.variantId) : undefined}
-          warnings={model.warningsAt.get(details)}
+          warnings={model.warnings(details)}
           editable={detailCell.week >= model.editableFrom}
           onClose={() => setDetails(null)}
           onClear={() => {

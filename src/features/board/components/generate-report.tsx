@@ -57,7 +57,7 @@ export function GenerateReport({
   model: BoardModel;
   onClose: () => void;
 }) {
-  const name = (id: number) => model.athletes.find((a) => a.athlete.id === id)?.athlete.name ?? `Athlete ${id}`;
+  const name = (id: number) => model.athleteById.get(id)?.name ?? `Athlete ${id}`;
   const variant = (id: number | null) =>
     id === null ? 'nothing' : (model.variantById.get(id)?.name ?? `variant ${id}`);
   const filled = result.changes.filter((c) => c.entry.variantId !== null && !c.swap);

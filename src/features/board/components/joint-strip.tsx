@@ -1,55 +1,54 @@
 // The joint-load strip: per week, one bar per budgeted joint showing the rolling load against its
-// budget (a full bar is the budget), coloured and titled by state so overload is seen at a glance.
+// budget (the line is the budget), coloured by state and spelled out for screen readers and on hover,
+// so overload is seen at a glance. Drawn as layered backgrounds on one element per week, which keeps a
+// big board light.
 import { memo } from 'react';
 import type { JointLoadPoint } from '../../../../shared/engine';
 import { NEAR_BUDGET } from '../../../../shared/engine';
 import { jointWords, percent } from '../model/words';
-
-const SHORT: Record<string, string> = {
-  shoulder: 'Sh',
-  elbow: 'El',
-  wrist: 'Wr',
-  lowerBack: 'LB',
-  hip: 'Hp',
-  knee: 'Kn',
-};
 
 export function loadState(ratio: number): 'clean' | 'caution' | 'breach' {
   return ratio > 1 + 1e-9 ? 'breach' : ratio >= NEAR_BUDGET - 1e-9 ? 'caution' : 'clean';
 }
 
 const FILL = { clean: '#2f7d57', caution: '#a8741a', breach: '#b3362d' };
+/** The top of the strip stands for this share of the budget, so overload shows above the line. */
+const TOP = 1.25;
+
+/** CSS backgrounds for the bars (and the budget line), one layer each. */
+export function barLayers(points: JointLoadPoint[]): { image: string; size: string; position: string } {
+  const n = points.length;
+  const width = 100 / n;
+  const bar = width * 0.7;
+  const images: string[] = ['linear-gradient(#7d8bab,#7d8bab)'];
+  const sizes: string[] = ['100% 1px'];
+  const positions: string[] = [`0 ${(1 - 1 / TOP) * 100}%`];
+  points.forEach((p, i) => {
+    const c = FILL[loadState(p.ratio)];
+    const h = Math.max(4, (Math.min(TOP, Math.max(0, p.ratio)) / TOP) * 100);
+    const left = i * width + (width - bar) / 2;
+    images.push(`linear-gradient(${c},${c})`);
+    sizes.push(`${bar}% ${h}%`);
+    // A background's x% lines up its own x% point with the box's, hence the scaling.
+    positions.push(`${(left / (100 - bar)) * 100}% 100%`);
+  });
+  return { image: images.join(','), size: sizes.join(','), position: positions.join(',') };
+}
 
 /** Bars for one week; the strip of a row is these side by side under the week columns. */
 export const JointBars = memo(
   function JointBars({ points, week }: { points: JointLoadPoint[]; week: string }) {
     if (points.length === 0) return null;
-    const w = 100 / points.length;
     const text = points.map((p) => `${jointWords(p.joint)} ${percent(p.ratio)}`).join(', ');
+    const layers = barLayers(points);
     return (
-      <svg
-        viewBox="0 0 100 24"
-        preserveAspectRatio="none"
-        className="mt-1 block h-5 w-full"
+      <div
         role="img"
         aria-label={`Joint load ${week}: ${text}`}
-      >
-        <title>{`Joint load over the span ending ${week} (share of budget): ${text}`}</title>
-        <line x1="0" x2="100" y1="4" y2="4" stroke="#7d8bab" strokeWidth="0.6" strokeDasharray="2 2" />
-        {points.map((p, i) => {
-          const h = Math.min(1.2, Math.max(0, p.ratio)) * 20;
-          return (
-            <rect
-              key={p.joint}
-              x={i * w + w * 0.15}
-              width={w * 0.7}
-              y={24 - h}
-              height={Math.max(h, 0.8)}
-              fill={FILL[loadState(p.ratio)]}
-            />
-          );
-        })}
-      </svg>
+        title={`Joint load over the span ending ${week}, as a share of each budget: ${text}`}
+        className="mt-1 h-5 w-full bg-no-repeat"
+        style={{ backgroundImage: layers.image, backgroundSize: layers.size, backgroundPosition: layers.position }}
+      />
     );
   },
   (a, b) =>
@@ -57,14 +56,3 @@ export const JointBars = memo(
     a.points.length === b.points.length &&
     a.points.every((p, i) => p.joint === b.points[i]!.joint && p.ratio === b.points[i]!.ratio),
 );
-
-/** The joints the bars stand for, in order, for the row header. */
-export function JointLegend({ points }: { points: JointLoadPoint[] }) {
-  return (
-    <span className="flex gap-1 text-[9px] font-semibold uppercase text-ink-400" aria-hidden>
-      {points.map((p) => (
-        <span key={p.joint}>{SHORT[p.joint]}</span>
-      ))}
-    </span>
-  );
-}

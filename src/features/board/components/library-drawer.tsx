@@ -1,6 +1,6 @@
 // The library beside the board: filter by lift, family, equipment and risk, search by name, and drag a
 // card onto a cell (with the pointer, a finger, or the keyboard).
-import { memo, useId, useMemo, useState, type ReactNode } from 'react';
+import { memo, useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { SortableContext, useSortable } from '@dnd-kit/sortable';
 import type { Joint } from '../../../../shared/engine';
 import type { BoardVariant } from '../../../../shared/schemas';
@@ -92,6 +92,12 @@ function Filter({ label, children }: { label: string; children: (id: string) => 
 
 export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
   const [filters, setFilters] = useState<LibraryFilters>(NO_FILTERS);
+  // The cards come in the frame after the board itself is on screen.
+  const [ready, setReady] = useState(false);
+  useEffect(() => {
+    const frame = requestAnimationFrame(() => setReady(true));
+    return () => cancelAnimationFrame(frame);
+  }, []);
   const shown = useMemo(() => filterLibrary(variants, filters), [variants, filters]);
   const ids = useMemo(() => shown.map((v) => libraryDndId(v.id)), [shown]);
   const live = useMemo(() => variants.filter((v) => !v.archived), [variants]);
@@ -189,9 +195,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
       </div>
       <SortableContext id="library" items={ids} strategy={noSorting}>
         <ul className="flex-1 space-y-1.5 overflow-y-auto p-3">
-          {shown.map((v) => (
-            <LibraryCard key={v.id} variant={v} />
-          ))}
+          {ready ? shown.map((v) => <LibraryCard key={v.id} variant={v} />) : null}
         </ul>
       </SortableContext>
     </aside>

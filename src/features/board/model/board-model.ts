@@ -62,17 +62,23 @@ export interface BoardModel {
   /** First week that can still be planned (this week). */
   editableFrom: string;
   slots: BoardSlot[];
-  athletes: AthleteView[];
+  /** The board's rows, in order. */
+  athletes: BoardAthlete[];
+  athleteById: Map<number, BoardAthlete>;
   variantById: Map<number, BoardVariant>;
   entryAt: Map<CellKey, PlanEntryDto>;
-  /** What checkPlan reports for the cell's current pick, in plain words. */
-  warningsAt: Map<CellKey, string[]>;
+  /** An athlete's joint loads and peak (worked out on first use). */
+  view(athleteId: number): AthleteView;
+  /** What checkPlan reports for the cell's current pick, in plain words (worked out per athlete on first use). */
+  warnings(key: CellKey): string[] | undefined;
   groups: RulesGroup[];
   groupOf: Map<number, RulesGroup>;
   /** Cells a drop may target: editable weeks × athletes × slots, in board order. */
   targets: CellRef[];
-  /** Per athlete: what the warnings and loads were worked out from, to reuse them when it is unchanged. */
-  facts: Map<number, AthleteFacts>;
+  /** Per athlete: warnings, loads and what they were worked out from, to reuse them when unchanged. */
+  factsOf(athleteId: number): AthleteFacts | undefined;
+  /** The athletes' facts worked out so far. */
+  facts: ReadonlyMap<number, AthleteFacts>;
 }
 
 function violationText(v: Violation, byId: Map<number, BoardVariant>): string {
@@ -146,52 +152,46 @@ export function buildBoardModel(data: BoardData, prev?: BoardModel): BoardModel 
   const entryAt = new Map<CellKey, PlanEntryDto>();
   for (const e of data.entries) entryAt.set(cellKey(e.athleteId, e.week, e.slotId), e);
 
-  // Rule warnings and joint loads per athlete; an athlete whose board and rules did not change since
-  // the previous model keeps what was worked out then.
-  const warningsAt = new Map<CellKey, string[]>();
-  const loadsOf = new Map<number, JointLoadPoint[]>();
-  const perAthlete = new Map<number, AthleteFacts>();
+  // Rule warnings and joint loads are worked out per athlete when a row first needs them (rows off
+  // screen are not drawn), and an athlete whose board and rules did not change since the previous model
+  // keeps what was worked out then.
   const plannedOf = new Map<string, PlanEntry[]>();
   for (const e of planned) {
     const list = plannedOf.get(e.athleteId);
     if (list) list.push(e);
     else plannedOf.set(e.athleteId, [e]);
   }
-  for (const g of groups) {
-    for (const input of g.request.athletes) {
-      const own = plannedOf.get(input.id) ?? [];
-      const sig = signature(g.rules, input, own, data.weeks);
-      const id = Number(input.id);
-      let facts = prev?.facts.get(id);
-      if (!facts || facts.sig !== sig) {
-        const warnings = new Map<CellKey, string[]>();
-        for (const v of checkPlan(g.request, own)) {
-          const key = cellKey(id, v.week, v.slotId);
-          warnings.set(key, [...(warnings.get(key) ?? []), violationText(v, variantById)]);
-        }
-        facts = { sig, warnings, loads: jointLoadSeries(g.request, input.id, data.weeks, own) };
+  const athleteById = new Map(data.athletes.map((a) => [a.id, a]));
+  const facts = new Map<number, AthleteFacts>();
+  // Only what the previous model already worked out is carried over, so models do not chain up.
+  const inherited = new Map(prev?.facts);
+  const factsOf = (id: number): AthleteFacts | undefined => {
+    const hit = facts.get(id);
+    if (hit) return hit;
+    const g = groupOf.get(id);
+    const athlete = athleteById.get(id);
+    const input = g?.request.athletes.find((a) => a.id === String(id));
+    if (!g || !athlete || !input) return undefined;
+    const own = plannedOf.get(input.id) ?? [];
+    const sig = signature(g.rules, input, own, data.weeks);
+    const old = inherited.get(id);
+    let made: AthleteFacts;
+    if (old && old.sig === sig && old.view.athlete === athlete) made = old;
+    else {
+      const warnings = new Map<CellKey, string[]>();
+      for (const v of checkPlan(g.request, own)) {
+        const key = cellKey(id, v.week, v.slotId);
+        warnings.set(key, [...(warnings.get(key) ?? []), violationText(v, variantById)]);
       }
-      perAthlete.set(id, facts);
-      for (const [k, w] of facts.warnings) warningsAt.set(k, w);
-      loadsOf.set(id, facts.loads);
+      made = {
+        sig,
+        warnings,
+        view: athleteView(athlete, data.weeks, jointLoadSeries(g.request, input.id, data.weeks, own)),
+      };
     }
-  }
-
-  const athletes = data.athletes.map((athlete): AthleteView => {
-    const points = loadsOf.get(athlete.id) ?? [];
-    const before = prev?.athletes.find((v) => v.athlete.id === athlete.id);
-    if (before && before.athlete === athlete && prev?.facts.get(athlete.id) === perAthlete.get(athlete.id))
-      return before;
-    const byWeek = new Map<string, JointLoadPoint[]>();
-    let peak: JointLoadPoint | null = null;
-    for (const p of points) {
-      const list = byWeek.get(p.week) ?? [];
-      list.push(p);
-      byWeek.set(p.week, list);
-      if (!peak || p.ratio > peak.ratio) peak = p;
-    }
-    return { athlete, loads: data.weeks.map((w) => byWeek.get(w) ?? []), peak };
-  });
+    facts.set(id, made);
+    return made;
+  };
 
   const editableWeeks = data.weeks.filter((w) => w >= data.currentWeek);
   let targets: CellRef[] = [];
@@ -207,21 +207,36 @@ export function buildBoardModel(data: BoardData, prev?: BoardModel): BoardModel 
     weeks: data.weeks,
     editableFrom: data.currentWeek,
     slots: data.slots,
-    athletes,
+    athletes: data.athletes,
+    athleteById,
     variantById,
     entryAt,
-    warningsAt,
     groups,
     groupOf,
     targets,
-    facts: perAthlete,
+    facts,
+    factsOf,
+    view: (id) => factsOf(id)?.view ?? athleteView(athleteById.get(id)!, data.weeks, []),
+    warnings: (key) => factsOf(parseCellKey(key).athleteId)?.warnings.get(key),
   };
+}
+
+function athleteView(athlete: BoardAthlete, weeks: string[], points: JointLoadPoint[]): AthleteView {
+  const byWeek = new Map<string, JointLoadPoint[]>();
+  let peak: JointLoadPoint | null = null;
+  for (const p of points) {
+    const list = byWeek.get(p.week) ?? [];
+    list.push(p);
+    byWeek.set(p.week, list);
+    if (!peak || p.ratio > peak.ratio) peak = p;
+  }
+  return { athlete, loads: weeks.map((w) => byWeek.get(w) ?? []), peak };
 }
 
 interface AthleteFacts {
   sig: string;
   warnings: Map<CellKey, string[]>;
-  loads: JointLoadPoint[];
+  view: AthleteView;
 }
 
 /** Everything an athlete's warnings and loads depend on, as one string. */
@@ -371,7 +386,7 @@ export function breaksAfter(
 
 /** "<athlete> · <ISO week> · <slot>", as the cell's drop target is named. */
 export function cellLabel(model: BoardModel, c: CellRef): string {
-  const athlete = model.athletes.find((a) => a.athlete.id === c.athleteId)?.athlete.name ?? `Athlete ${c.athleteId}`;
+  const athlete = model.athleteById.get(c.athleteId)?.name ?? `Athlete ${c.athleteId}`;
   const slot = model.slots.find((s) => s.id === c.slotId)?.label ?? c.slotId;
   return `${athlete} · ${c.week} · ${slot}`;
 }

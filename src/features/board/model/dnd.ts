@@ -44,13 +44,14 @@ export const OVERLAY_CLASS = 'board-drag-overlay';
 /** Marks a drop target with its dnd id. */
 export const DROP_ATTR = 'data-drop-id';
 
-/** The drop target the point is on, if the topmost thing there (under the drag preview) is one. */
+/**
+ * The drop target the point is on, if the topmost thing there is one. The drag preview ignores the
+ * pointer (pointer-events: none), so the page reports what lies under it.
+ */
 function dropIdAt(x: number, y: number): string | null {
-  for (const el of document.elementsFromPoint(x, y)) {
-    if (el.closest(`.${OVERLAY_CLASS}`)) continue;
-    return el.closest(`[${DROP_ATTR}]`)?.getAttribute(DROP_ATTR) ?? null;
-  }
-  return null;
+  const el = document.elementFromPoint(x, y);
+  if (!el || el.closest(`.${OVERLAY_CLASS}`)) return null;
+  return el.closest(`[${DROP_ATTR}]`)?.getAttribute(DROP_ATTR) ?? null;
 }
 
 /**
@@ -61,11 +62,15 @@ function dropIdAt(x: number, y: number): string | null {
 export const boardCollision: CollisionDetection = ({ pointerCoordinates, collisionRect, droppableContainers }) => {
   const p = pointerCoordinates ?? { x: collisionRect.left + 4, y: collisionRect.top + 4 };
   const id = dropIdAt(p.x, p.y);
-  if (!id) return [];
-  const container = droppableContainers.find((c) => c.id === id);
-  if (!container || container.disabled) return [];
-  return [{ id, data: { droppableContainer: container, value: 0 } }];
+  const container = id ? droppableContainers.find((c) => c.id === id) : undefined;
+  const found = container && !container.disabled ? container : undefined;
+  // An unchanged answer is the same array, so the drag context does not tell the whole board about a
+  // change that is none.
+  if (last && (found ? last[0]?.data?.droppableContainer === found : last.length === 0)) return last;
+  last = found ? [{ id: found.id, data: { droppableContainer: found, value: 0 } }] : [];
+  return last;
 };
+let last: ReturnType<CollisionDetection> | null = null;
 
 const ARROWS = new Set(['ArrowUp', 'ArrowDown', 'ArrowLeft', 'ArrowRight']);
 
