@@ -12,6 +12,10 @@ import { jointWords, percent, shortWeek, weekStart } from '../model/words';
 import { JointBars, loadState } from './joint-strip';
 import { EditableSlot, PastSlot } from './slot-target';
 
+/** Column widths in px: fixed, so rows line up and the view can be placed without measuring. */
+export const NAME_WIDTH = 208;
+export const WEEK_WIDTH = 144;
+
 /** Cells stay where they are while dragging; the drag preview moves instead. */
 const noSorting = () => null;
 
@@ -116,9 +120,9 @@ export const BoardGrid = memo(function BoardGrid({ model, ratings, pending, onOp
           slot to change it.
         </caption>
         <colgroup>
-          <col style={{ width: 208 }} />
+          <col style={{ width: NAME_WIDTH }} />
           {model.weeks.map((w) => (
-            <col key={w} style={{ width: 144 }} />
+            <col key={w} style={{ width: WEEK_WIDTH }} />
           ))}
         </colgroup>
         <thead>
@@ -235,6 +239,14 @@ const AthleteRow = memo(function AthleteRow({ index, height, view, model, rating
           </span>
         ))}
         <PeakLine view={view} />
+        {view.loads[0]?.length ? (
+          <span
+            className="absolute bottom-1.5 left-2 text-[10px] font-semibold uppercase tracking-wide text-ink-400"
+            title={`Bars per week, left to right: ${view.loads[0].map((p) => jointWords(p.joint)).join(', ')}; the line is the budget`}
+          >
+            Joint load ▸
+          </span>
+        ) : null}
       </th>
       {model.weeks.map((week, wi) => {
         const past = week < current;

@@ -43,7 +43,7 @@ import {
   variantOfLibraryId,
 } from '../model/dnd';
 import { STATUS_WORDS } from '../model/words';
-import { BoardGrid } from './board-grid';
+import { BoardGrid, NAME_WIDTH, WEEK_WIDTH } from './board-grid';
 import { BoardToolbar } from './board-toolbar';
 import { CellDetails } from './cell-details';
 import { ConflictNotice, type ConflictView } from './conflict-notice';
@@ -398,6 +398,18 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     },
   };
 
+  // Opens with one past week to the left of this week, so the weeks still to plan are in view on a
+  // tablet too; set after the first paint, when the layout it needs is already there.
+  const currentIndex = model.weeks.indexOf(model.data.currentWeek);
+  useEffect(() => {
+    const frame = requestAnimationFrame(() => {
+      if (scrollRef.current && currentIndex > 0) scrollRef.current.scrollLeft = (currentIndex - 1) * WEEK_WIDTH;
+    });
+    return () => cancelAnimationFrame(frame);
+    // Only on opening the board; later the coach decides where to look.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+
   const openDetails = useCallback((key: CellKey) => {
     if (dragRef.current || performance.now() - lastDragEnd.current < 400) return;
     setDetails(key);
@@ -469,7 +481,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           <div
             ref={scrollRef}
             // Cells brought into view land clear of the sticky names and week headings.
-            style={{ scrollPaddingLeft: 216, scrollPaddingTop: 60 }}
+            style={{ scrollPaddingLeft: NAME_WIDTH + 8, scrollPaddingTop: 60 }}
             className="min-w-0 flex-1 overflow-auto"
             data-board-scroll
           >

@@ -6,9 +6,10 @@ import { useCellHistory } from '../api/queries';
 import type { CellRef } from '../model/board-model';
 import { Dialog } from './dialog';
 
+const stamp = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+
 function when(iso: string): string {
-  const d = new Date(iso);
-  return `${d.toLocaleDateString()} ${d.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`;
+  return stamp.format(new Date(iso));
 }
 
 export function CellDetails({
