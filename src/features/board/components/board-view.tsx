@@ -399,13 +399,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   };
 
   // Opens with one past week to the left of this week, so the weeks still to plan are in view on a
-  // tablet too; set after the first paint, when the layout it needs is already there.
+  // tablet too. Set before the first paint (no jump); the layout it needs is the one that paint needs.
   const currentIndex = model.weeks.indexOf(model.data.currentWeek);
-  useEffect(() => {
-    const frame = requestAnimationFrame(() => {
-      if (scrollRef.current && currentIndex > 0) scrollRef.current.scrollLeft = (currentIndex - 1) * WEEK_WIDTH;
-    });
-    return () => cancelAnimationFrame(frame);
+  useLayoutEffect(() => {
+    if (scrollRef.current && currentIndex > 0) scrollRef.current.scrollLeft = (currentIndex - 1) * WEEK_WIDTH;
     // Only on opening the board; later the coach decides where to look.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
