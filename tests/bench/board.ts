@@ -220,7 +220,8 @@ export interface BenchServer {
 export async function startBenchServer(): Promise<BenchServer> {
   const instance = process.env.TEST_INSTANCE ?? 'test';
   const db = await startMariaDb({
-    name: instance,
+    // The same folder `npm test` uses for this instance.
+    name: instance === 'test' ? 'test' : `test-${instance}`,
     port: Number(process.env.TEST_DB_PORT ?? 3308),
     databases: ['rackturn_bench'],
   });
