@@ -1,12 +1,23 @@
 // The demo scenario: seeded once into an empty database, consistent with the team's own rules.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { addWeeks, checkPlan, weekOfDate, type PlanEntry, type Variant } from '../../shared/engine';
+import {
+  addWeeks,
+  checkPlan,
+  generatePlan,
+  weekOfDate,
+  weekRange,
+  type PlanEntry,
+  type Variant,
+} from '../../shared/engine';
 import { readTeamRules, toEngineRules, toEngineSlots } from '../../shared/schemas/rules';
+import { toEngineVariant } from '../../shared/schemas/plans';
 import { createDatabase, type Database } from '../../server/db/client';
 import {
   athletes,
   bodyweights,
+  meetEntries,
+  meets,
   planEntries,
   restrictions,
   teamRules,
@@ -80,16 +91,9 @@ describe('demo seed', () => {
       slotId: r.slotId,
       variantId: String(r.variantId),
     }));
-    const engineVariants: Variant[] = lib.map((v) => ({
-      id: String(v.id),
-      name: v.name,
-      lift: v.lift,
-      family: v.family,
-      risk: v.risk as 1 | 2 | 3,
-      specificity: v.specificity,
-      stress: v.stress,
-      equipment: v.equipment,
-    }));
+    const engineVariants: Variant[] = lib.map((v) =>
+      toEngineVariant({ ...v, risk: v.risk as 1 | 2 | 3, archived: false }),
+    );
     const violations = checkPlan(
       {
         variants: engineVariants,
@@ -124,5 +128,49 @@ describe('demo seed', () => {
       .sort()
       .at(-1)!;
     expect(latest < today.toISOString().slice(0, 10)).toBe(true);
+  });
+
+  it('lets the coach plan each meet athlete all the way to the meet with every cell filled', async () => {
+    const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
+    const [stored] = await database.db.select().from(teamRules).where(eq(teamRules.teamId, club!.id));
+    const rules = readTeamRules(stored!.rules);
+    const lib = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
+    const rows = await database.db.select().from(planEntries).where(eq(planEntries.teamId, club!.id));
+    const entered = await database.db
+      .select({ athleteId: meetEntries.athleteId, date: meets.date })
+      .from(meetEntries)
+      .innerJoin(meets, eq(meets.id, meetEntries.meetId))
+      .where(eq(meets.teamId, club!.id));
+    expect(entered.length).toBe(2);
+    const roster = await database.db.select().from(athletes).where(eq(athletes.teamId, club!.id));
+    for (const entry of entered) {
+      const a = roster.find((r) => r.id === entry.athleteId)!;
+      const meetWeek = weekOfDate(new Date(`${entry.date}T12:00:00Z`));
+      const weeks = weekRange(addWeeks(thisWeek, 1), meetWeek);
+      const plan = generatePlan({
+        variants: lib.map((v) => toEngineVariant({ ...v, risk: v.risk as 1 | 2 | 3, archived: false })),
+        slots: toEngineSlots(rules),
+        rules: toEngineRules(rules, stored!.seed),
+        weeks,
+        athletes: [
+          {
+            id: String(a.id),
+            equipment: a.equipment,
+            restrictions: [],
+            meetWeek,
+            history: rows
+              .filter((r) => r.athleteId === a.id)
+              .map((r) => ({
+                athleteId: String(r.athleteId),
+                week: r.week,
+                slotId: r.slotId,
+                variantId: String(r.variantId),
+              })),
+          },
+        ],
+      });
+      expect(plan.unfilled, a.name).toEqual([]);
+      expect(plan.entries.length).toBe(weeks.length * rules.slots.length);
+    }
   });
 });

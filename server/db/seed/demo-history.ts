@@ -6,6 +6,7 @@ import seedrandom from 'seedrandom';
 import { estimateOneRepMax } from '../../../shared/calc';
 import { addWeeks, generatePlan, mondayOf, weekOfDate, type AthleteInput, type Variant } from '../../../shared/engine';
 import { readTeamRules, toEngineRules, toEngineSlots } from '../../../shared/schemas/rules';
+import { toEngineVariant } from '../../../shared/schemas/plans';
 import type { Tx } from '../client';
 import { bodyweights, planEntries, planEntryHistory, teamRules, topSets } from '../schema';
 import { DEMO_EQUIPMENT, DEMO_LIBRARY, type DemoVariant } from './demo-library';
@@ -42,20 +43,9 @@ export async function seedDemoHistory(tx: Tx, ctx: HistoryContext): Promise<void
   const rules = readTeamRules(stored?.rules);
   const byId = new Map<string, DemoVariant>();
   const variants: Variant[] = DEMO_LIBRARY.map((v) => {
-    const id = String(ctx.variantIds.get(v.name));
-    byId.set(id, v);
-    return {
-      id,
-      name: v.name,
-      lift: v.lift,
-      family: v.family,
-      risk: v.risk,
-      specificity: v.specificity,
-      stress: v.stress,
-      equipment: v.equipment,
-      emphasis: v.emphasis,
-      bar: v.bar,
-    };
+    const variant = toEngineVariant({ ...v, id: ctx.variantIds.get(v.name)!, archived: false });
+    byId.set(variant.id, v);
+    return variant;
   });
 
   const athletes: AthleteInput[] = DEMO_ATHLETES.map((a) => ({
