@@ -78,17 +78,15 @@ describe('an SMTP outage', () => {
       emails.push(u.email);
     }
     const week = addWeeks(weekOfDate(new Date()), 1);
-    await db
-      .insert(planEntries)
-      .values({
-        teamId: team.teamId,
-        athleteId: team.athleteId,
-        week,
-        slotId: 'lower',
-        variantId: variant,
-        source: 'engine',
-        reasons: [],
-      });
+    await db.insert(planEntries).values({
+      teamId: team.teamId,
+      athleteId: team.athleteId,
+      week,
+      slotId: 'lower',
+      variantId: variant,
+      source: 'engine',
+      reasons: [],
+    });
 
     const coach = await t.signIn(team.coach.email);
     expect((await coach.post(`/api/weeks/${week}/publish`)).status).toBe(201);

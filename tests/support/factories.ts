@@ -131,30 +131,6 @@ export async function createTopSet(
   return s!.id;
 }
 
-/**
- * A library the planner can fill many weeks from: `perLift` variants each of squat, deadlift and bench,
- * each in its own family, with light joint stress and no equipment.
- */
-export async function createPlanLibrary(db: Db, teamId: number, perLift = 6) {
-  const make = async (lift: 'squat' | 'deadlift' | 'bench', i: number) =>
-    createVariant(db, teamId, {
-      name: `${lift} variant ${i} ${uniq()}`,
-      lift,
-      family: `${lift} family ${i}`,
-      emphasis: (['bottom', 'midRange', 'lockout'] as const)[i % 3],
-      stress: lift === 'bench' ? { shoulder: 1, elbow: 1 } : { lowerBack: 1, hip: 1, knee: 1 },
-      specificity: 0.9,
-      equipment: [],
-    });
-  const out = { squat: [] as number[], deadlift: [] as number[], bench: [] as number[] };
-  for (let i = 0; i < perLift; i++) {
-    out.squat.push(await make('squat', i));
-    out.deadlift.push(await make('deadlift', i));
-    out.bench.push(await make('bench', i));
-  }
-  return out;
-}
-
 /** A restriction on one joint, in force from the given day (a past Monday by default) with no end. */
 export async function createRestriction(
   db: Db,
@@ -192,8 +168,38 @@ export async function createMeetEntry(
   return e!.id;
 }
 
-export async function createBodyweight(db: Db, teamId: number, athleteId: number, measuredOn: string, weightKg: number) {
+export async function createBodyweight(
+  db: Db,
+  teamId: number,
+  athleteId: number,
+  measuredOn: string,
+  weightKg: number,
+) {
   await db.insert(bodyweights).values({ teamId, athleteId, measuredOn, weightKg });
+}
+
+/**
+ * A library the planner can fill many weeks from: `perLift` variants each of squat, deadlift and bench,
+ * each in its own family, with light joint stress and no equipment.
+ */
+export async function createPlanLibrary(db: Db, teamId: number, perLift = 6) {
+  const make = async (lift: 'squat' | 'deadlift' | 'bench', i: number) =>
+    createVariant(db, teamId, {
+      name: `${lift} variant ${i} ${uniq()}`,
+      lift,
+      family: `${lift} family ${i}`,
+      emphasis: (['bottom', 'midRange', 'lockout'] as const)[i % 3],
+      stress: lift === 'bench' ? { shoulder: 1, elbow: 1 } : { lowerBack: 1, hip: 1, knee: 1 },
+      specificity: 0.9,
+      equipment: [],
+    });
+  const out = { squat: [] as number[], deadlift: [] as number[], bench: [] as number[] };
+  for (let i = 0; i < perLift; i++) {
+    out.squat.push(await make('squat', i));
+    out.deadlift.push(await make('deadlift', i));
+    out.bench.push(await make('bench', i));
+  }
+  return out;
 }
 
 /** A fee plan of the team (EUR by default), optionally already tied to a provider price. */
