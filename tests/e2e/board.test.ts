@@ -65,7 +65,7 @@ async function mouseDrag(page: Page, source: Locator, target: Locator, drop = tr
   await page.mouse.down();
   await page.mouse.move(a.x + a.width / 2 + 10, a.y + a.height / 2, { steps: 5 });
   await page.mouse.move(t.x + t.width / 2, t.y + t.height / 2, { steps: 15 });
-  await expect.poll(() => target.getAttribute('data-rating')).not.toBeNull();
+  await expect.poll(() => target.getAttribute('data-rating'), { timeout: 5_000 }).not.toBeNull();
   const rating = await target.getAttribute('data-rating');
   if (!drop) await page.keyboard.press('Escape');
   await page.mouse.up();
