@@ -234,7 +234,12 @@ export async function saveChanges(
   } catch (err) {
     const code = errCode(err);
     if (!code || !RACE_CODES.has(code)) throw err;
-    const now = await Promise.all(changes.map((c) => findCell(db, auth.teamId, c)));
+    // The winner may still be committing (a deadlock is reported before it has): read until its row shows.
+    let now = await Promise.all(changes.map((c) => findCell(db, auth.teamId, c)));
+    for (let tries = 0; tries < 20 && now.some((r) => !r); tries++) {
+      await new Promise((r) => setTimeout(r, 50));
+      now = await Promise.all(changes.map((c) => findCell(db, auth.teamId, c)));
+    }
     return conflict(
       db,
       single,
