@@ -65,6 +65,13 @@ async function mouseDrag(page: Page, source: Locator, target: Locator, drop = tr
   await page.mouse.down();
   await page.mouse.move(a.x + a.width / 2 + 10, a.y + a.height / 2, { steps: 5 });
   await page.mouse.move(t.x + t.width / 2, t.y + t.height / 2, { steps: 15 });
+  // The board may scroll under the pointer near its edge: aim again until the target is the one under it.
+  for (let i = 0; i < 20 && (await target.getAttribute('data-over')) !== 'true'; i++) {
+    const now = (await target.boundingBox())!;
+    await page.mouse.move(now.x + now.width / 2, now.y + now.height / 2, { steps: 2 });
+    await page.waitForTimeout(100);
+  }
+  await expect.poll(() => target.getAttribute('data-over'), { timeout: 5_000 }).toBe('true');
   await expect.poll(() => target.getAttribute('data-rating'), { timeout: 5_000 }).not.toBeNull();
   const rating = await target.getAttribute('data-rating');
   if (!drop) await page.keyboard.press('Escape');

@@ -463,6 +463,8 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         sensors={sensors}
         collisionDetection={boardCollision}
         measuring={{ droppable: { strategy: MeasuringStrategy.WhileDragging } }}
+        // Scroll only when the pointer is close to the board's edge, so a drop on a cell in view stays put.
+        autoScroll={{ threshold: { x: 0.08, y: 0.12 } }}
         accessibility={{
           announcements,
           screenReaderInstructions: {

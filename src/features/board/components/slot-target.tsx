@@ -256,6 +256,7 @@ export const EditableSlot = memo(function EditableSlot(p: SlotProps) {
       role="group"
       aria-label={p.label}
       data-rating={p.rating?.status}
+      data-over={isOver || undefined}
       className={`relative h-[54px] rounded-md border-2 ${
         p.rating ? STATUS_STYLE[p.rating.status] : 'border-transparent'
       } ${isOver ? 'ring-2 ring-ink-800' : ''} ${isDragging ? 'opacity-60' : ''}`}
