@@ -12,6 +12,7 @@ import { meQueryOptions } from '../../features/auth/api/queries';
 import { homeFor } from '../guards';
 import { AuthFrame } from '../../features/auth/components/auth-frame';
 import { isApiError } from '../../lib/api-client';
+import { applyFieldErrors } from '../../lib/form-errors';
 
 export function Component() {
   const [params] = useSearchParams();
@@ -28,9 +29,8 @@ export function Component() {
       const next = params.get('next');
       navigate(next && next.startsWith('/') && !next.startsWith('//') ? next : homeFor(me), { replace: true });
     } catch (err) {
-      if (isApiError(err) && Object.keys(err.fields).length) {
-        for (const [k, v] of Object.entries(err.fields)) form.setError(k as keyof LoginBody, { message: v[0] });
-      }
+      // Field errors go beside their fields; anything else shows as the notice above the form.
+      applyFieldErrors(err, form.setError);
     }
   });
 

@@ -1,20 +1,10 @@
 // A fee's payment status as icon and words (colour only repeats what they say).
 import type { SVGProps } from 'react';
 import type { PaymentStatus } from '../../../../shared/schemas';
-import { BreakIcon, CleanIcon } from '../../../components/ui/icons';
-
-const base = {
-  width: 18,
-  height: 18,
-  viewBox: '0 0 20 20',
-  fill: 'none',
-  stroke: 'currentColor',
-  strokeWidth: 2,
-  'aria-hidden': true,
-} as const;
+import { BreakIcon, CleanIcon, iconFrame } from '../../../components/ui/icons';
 
 const HourglassIcon = (p: SVGProps<SVGSVGElement>) => (
-  <svg {...base} {...p}>
+  <svg {...iconFrame} {...p}>
     <path
       d="M5 2.5h10M5 17.5h10M6 2.5c0 4 8 4 8 7.5s-8 3.5-8 7.5M14 2.5c0 4-8 4-8 7.5s8 3.5 8 7.5"
       strokeLinecap="round"
@@ -22,13 +12,13 @@ const HourglassIcon = (p: SVGProps<SVGSVGElement>) => (
   </svg>
 );
 const StoppedIcon = (p: SVGProps<SVGSVGElement>) => (
-  <svg {...base} {...p}>
+  <svg {...iconFrame} {...p}>
     <circle cx="10" cy="10" r="8" />
     <path d="M6 10h8" strokeLinecap="round" />
   </svg>
 );
 const EmptyIcon = (p: SVGProps<SVGSVGElement>) => (
-  <svg {...base} {...p}>
+  <svg {...iconFrame} {...p}>
     <circle cx="10" cy="10" r="8" strokeDasharray="3 3" />
   </svg>
 );
