@@ -30,6 +30,11 @@ export function variantFactor(v: Pick<DemoVariant, 'specificity' | 'emphasis' | 
   return 0.55 + 0.45 * v.specificity + emphasis + (partial ? 0.2 : 0);
 }
 
+/** An opener single is a rehearsal at about 91 % of the max (common practice, from memory), not a max. */
+function workFactor(v: Pick<DemoVariant, 'name' | 'specificity' | 'emphasis' | 'equipment'>): number {
+  return variantFactor(v) * (v.name.includes('opener') ? 0.91 : 1);
+}
+
 const REPS = { single: 1, triple: 3, five: 5 } as const;
 
 function isoDay(ms: number): string {
@@ -114,7 +119,7 @@ function topSetFor(
   const rng = seedrandom(`demo-top-set:${who.key}:${e.week}:${e.slotId}`);
   // Slow, noisy progress over the block: about +0.4 % a week.
   const progress = 1 + 0.004 * weekIndex + (rng() - 0.5) * 0.03;
-  const e1rmTarget = who.maxes[v.lift] * variantFactor(v) * progress;
+  const e1rmTarget = who.maxes[v.lift] * workFactor(v) * progress;
   const reps = REPS[v.scheme];
   // Gym numbers: whole 2.5 kg steps.
   const weightKg = Math.max(25, Math.floor(e1rmTarget / (1 + reps / 30) / 2.5) * 2.5);
