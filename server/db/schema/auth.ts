@@ -12,6 +12,12 @@ export const teams = mysqlTable('teams', {
   createdAt: createdAt(),
 });
 
+/** The owning team; a team's rows go with it. */
+export const teamRef = () =>
+  ref('team_id')
+    .notNull()
+    .references(() => teams.id, { onDelete: 'cascade' });
+
 export const users = mysqlTable(
   'users',
   {
@@ -32,9 +38,7 @@ export const memberships = mysqlTable(
   'memberships',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     userId: ref('user_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
@@ -48,9 +52,7 @@ export const invitations = mysqlTable(
   'invitations',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     email: varchar('email', { length: 254 }).notNull(),
     role: mysqlEnum('role', roles).notNull(),
     athleteId: ref('athlete_id'),

@@ -1,16 +1,14 @@
 // Coaching fees: the team's monthly plans, each athlete's subscription state, and webhook events seen.
 import { char, datetime, index, int, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt, version } from './columns';
-import { teams } from './auth';
+import { teamRef } from './auth';
 import { athletes } from './roster';
 
 export const feePlans = mysqlTable(
   'fee_plans',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     name: varchar('name', { length: 120 }).notNull(),
     priceMinor: int('price_minor', { unsigned: true }).notNull(),
     currency: char('currency', { length: 3 }).notNull(),
@@ -33,9 +31,7 @@ export const athleteBilling = mysqlTable(
     athleteId: ref('athlete_id')
       .primaryKey()
       .references(() => athletes.id, { onDelete: 'cascade' }),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     feePlanId: ref('fee_plan_id').references(() => feePlans.id, { onDelete: 'set null' }),
     providerCustomerId: varchar('provider_customer_id', { length: 120 }),
     providerSubscriptionId: varchar('provider_subscription_id', { length: 120 }),

@@ -11,8 +11,8 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt, version } from './columns';
-import { teams } from './auth';
+import { createdAt, id, updatedAt, version } from './columns';
+import { teamRef } from './auth';
 
 export type StressMap = Partial<Record<'shoulder' | 'elbow' | 'wrist' | 'lowerBack' | 'hip' | 'knee', number>>;
 
@@ -20,9 +20,7 @@ export const variants = mysqlTable(
   'variants',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     name: varchar('name', { length: 120 }).notNull(),
     lift: mysqlEnum('lift', ['squat', 'bench', 'deadlift']).notNull(),
     family: varchar('family', { length: 60 }).notNull(),

@@ -13,8 +13,8 @@ import {
   varchar,
 } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt, version } from './columns';
-import { teams, users } from './auth';
-import { athletes } from './roster';
+import { teamRef, users } from './auth';
+import { athleteRef } from './roster';
 import { variants } from './library';
 
 export const planSources = ['engine', 'coach'] as const;
@@ -23,12 +23,8 @@ export const planEntries = mysqlTable(
   'plan_entries',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     week: char('week', { length: 8 }).notNull(),
     slotId: varchar('slot_id', { length: 32 }).notNull(),
     variantId: ref('variant_id').references(() => variants.id),
@@ -52,9 +48,7 @@ export const planEntryHistory = mysqlTable(
   'plan_entry_history',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     planEntryId: ref('plan_entry_id')
       .notNull()
       .references(() => planEntries.id, { onDelete: 'cascade' }),
@@ -77,9 +71,7 @@ export const weekPublications = mysqlTable(
   'week_publications',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     week: char('week', { length: 8 }).notNull(),
     publishedBy: ref('published_by').references(() => users.id, { onDelete: 'set null' }),
     publishedAt: createdAt(),

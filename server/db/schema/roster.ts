@@ -13,7 +13,7 @@ import {
   varchar,
 } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt, version } from './columns';
-import { teams, users } from './auth';
+import { teamRef, teams, users } from './auth';
 
 export const joints = ['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee'] as const;
 
@@ -21,9 +21,7 @@ export const athletes = mysqlTable(
   'athletes',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     userId: ref('user_id').references(() => users.id, { onDelete: 'set null' }),
     name: varchar('name', { length: 120 }).notNull(),
     sex: mysqlEnum('sex', ['M', 'F']).notNull(),
@@ -41,16 +39,18 @@ export const athletes = mysqlTable(
   (t) => [index('athletes_team_idx').on(t.teamId), uniqueIndex('athletes_team_user_uq').on(t.teamId, t.userId)],
 );
 
+/** The athlete a row belongs to; it goes with the athlete. */
+export const athleteRef = () =>
+  ref('athlete_id')
+    .notNull()
+    .references(() => athletes.id, { onDelete: 'cascade' });
+
 export const restrictions = mysqlTable(
   'restrictions',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     joint: mysqlEnum('joint', joints).notNull(),
     maxStress: tinyint('max_stress', { unsigned: true }).notNull(),
     fromDate: date('from_date', { mode: 'string' }).notNull(),
@@ -81,9 +81,7 @@ export const meets = mysqlTable(
   'meets',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     name: varchar('name', { length: 160 }).notNull(),
     date: date('date', { mode: 'string' }).notNull(),
     location: varchar('location', { length: 160 }),
@@ -106,15 +104,11 @@ export const meetEntries = mysqlTable(
   'meet_entries',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     meetId: ref('meet_id')
       .notNull()
       .references(() => meets.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    athleteId: athleteRef(),
     weightClass: varchar('weight_class', { length: 8 }),
     division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
     attempts: json('attempts').$type<AttemptPlan>().notNull(),

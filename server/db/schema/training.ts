@@ -15,8 +15,8 @@ import {
   varchar,
 } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt, version } from './columns';
-import { teams, users } from './auth';
-import { athletes } from './roster';
+import { teamRef, users } from './auth';
+import { athleteRef } from './roster';
 import { variants } from './library';
 import { planEntries } from './plans';
 
@@ -24,12 +24,8 @@ export const videos = mysqlTable(
   'videos',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     storageKey: varchar('storage_key', { length: 200 }).notNull(),
     contentType: varchar('content_type', { length: 60 }).notNull(),
     sizeBytes: bigint('size_bytes', { mode: 'number', unsigned: true }).notNull(),
@@ -44,9 +40,7 @@ export const videoComments = mysqlTable(
   'video_comments',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
     videoId: ref('video_id')
       .notNull()
       .references(() => videos.id, { onDelete: 'cascade' }),
@@ -61,12 +55,8 @@ export const topSets = mysqlTable(
   'top_sets',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     planEntryId: ref('plan_entry_id').references(() => planEntries.id, { onDelete: 'set null' }),
     variantId: ref('variant_id')
       .notNull()
@@ -94,12 +84,8 @@ export const bodyweights = mysqlTable(
   'bodyweights',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     measuredOn: date('measured_on', { mode: 'string' }).notNull(),
     weightKg: decimal('weight_kg', { precision: 5, scale: 2, mode: 'number' }).notNull(),
     createdAt: createdAt(),
@@ -111,12 +97,8 @@ export const tissuePrescriptions = mysqlTable(
   'tissue_prescriptions',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     week: char('week', { length: 8 }).notNull(),
     items: json('items').$type<unknown[]>().notNull(),
     createdAt: createdAt(),
@@ -128,12 +110,8 @@ export const tissueCheckins = mysqlTable(
   'tissue_checkins',
   {
     id: id(),
-    teamId: ref('team_id')
-      .notNull()
-      .references(() => teams.id, { onDelete: 'cascade' }),
-    athleteId: ref('athlete_id')
-      .notNull()
-      .references(() => athletes.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
     week: char('week', { length: 8 }).notNull(),
     kind: mysqlEnum('kind', ['highRep', 'isometric', 'loadedStretch']).notNull(),
     soreness: tinyint('soreness', { unsigned: true }).notNull(),
