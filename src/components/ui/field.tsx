@@ -39,22 +39,23 @@ function Shell({ id, label, error, hint, children }: FieldShell & { id: string; 
   );
 }
 
-function describedBy(id: string, error?: string, hint?: ReactNode) {
-  return error ? `${id}-error` : hint ? `${id}-hint` : undefined;
+/** The id and accessibility attributes that tie a control to its label, hint and error. */
+function useControl(id: string | undefined, error?: string, hint?: ReactNode) {
+  const auto = useId();
+  const fid = id ?? auto;
+  return {
+    id: fid,
+    'aria-invalid': error ? true : undefined,
+    'aria-describedby': error ? `${fid}-error` : hint ? `${fid}-hint` : undefined,
+    className: inputClass(error),
+  };
 }
 
 export function TextField({ label, error, hint, id, ...props }: FieldShell & InputHTMLAttributes<HTMLInputElement>) {
-  const auto = useId();
-  const fid = id ?? auto;
+  const control = useControl(id, error, hint);
   return (
-    <Shell id={fid} label={label} error={error} hint={hint}>
-      <input
-        id={fid}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fid, error, hint)}
-        className={inputClass(error)}
-        {...props}
-      />
+    <Shell id={control.id} label={label} error={error} hint={hint}>
+      <input {...control} {...props} />
     </Shell>
   );
 }
@@ -67,17 +68,10 @@ export function SelectField({
   children,
   ...props
 }: FieldShell & SelectHTMLAttributes<HTMLSelectElement>) {
-  const auto = useId();
-  const fid = id ?? auto;
+  const control = useControl(id, error, hint);
   return (
-    <Shell id={fid} label={label} error={error} hint={hint}>
-      <select
-        id={fid}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fid, error, hint)}
-        className={inputClass(error)}
-        {...props}
-      >
+    <Shell id={control.id} label={label} error={error} hint={hint}>
+      <select {...control} {...props}>
         {children}
       </select>
     </Shell>
@@ -91,17 +85,10 @@ export function TextAreaField({
   id,
   ...props
 }: FieldShell & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const auto = useId();
-  const fid = id ?? auto;
+  const control = useControl(id, error, hint);
   return (
-    <Shell id={fid} label={label} error={error} hint={hint}>
-      <textarea
-        id={fid}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fid, error, hint)}
-        className={inputClass(error)}
-        {...props}
-      />
+    <Shell id={control.id} label={label} error={error} hint={hint}>
+      <textarea {...control} {...props} />
     </Shell>
   );
 }
