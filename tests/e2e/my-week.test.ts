@@ -95,7 +95,7 @@ describe('My week on a phone', () => {
     expect(board.items.map((e) => e.variantId).sort()).toEqual(picks.map((p) => p.variantId).sort());
     await signInAs(b, 'athlete@rackturn.test');
     await b.page.waitForURL(/\/my-week$/);
-    await b.page.getByRole('heading', { name: picks[0]!.name }).waitFor();
+    await b.page.getByRole('heading', { name: picks[0]!.name, exact: true }).waitFor();
     const headings = await b.page.locator('section h2').allTextContents();
     for (const p of picks) expect(headings).toContain(p.name);
     await expect(
@@ -108,7 +108,7 @@ describe('My week on a phone', () => {
   });
 
   it('opens the warm-up with a plate diagram for every step', async () => {
-    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: picks[0]!.name }) });
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: picks[0]!.name, exact: true }) });
     await card.getByRole('button', { name: 'Warm-up and plates' }).click();
     const steps = card.getByRole('list', { name: 'Warm-up sets' }).getByRole('listitem');
     expect(await steps.count()).toBeGreaterThanOrEqual(3);
@@ -127,7 +127,7 @@ describe('My week on a phone', () => {
     const before = await bestE1rm(pick.variantId);
     // A single 2.5–5 kg over the best e1RM: its e1RM (the weight itself) beats the record.
     const weight = Math.ceil((before + 0.01) / 2.5) * 2.5 + 2.5;
-    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pick.name }) });
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pick.name, exact: true }) });
     const form = card.getByRole('form', { name: `Log top set: ${pick.name}` });
     await form.getByLabel('Weight (kg)').fill(String(weight));
     await form.getByLabel('Reps').fill('1');
@@ -157,7 +157,7 @@ describe('My week on a phone', () => {
 
   it('shows upload progress and can cancel, then uploads a small video', async () => {
     const pick = picks[0]!;
-    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pick.name }) });
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pick.name, exact: true }) });
     // Hold the upload open (no answer) so the progress bar can be seen and the cancel pressed.
     await b.page.route('**/api/top-sets/*/video', () => undefined);
     const chooser = card.getByLabel('Add a video of this set').first();

@@ -23,7 +23,8 @@ describe('Roster and Athlete', () => {
     );
     await table.getByRole('link', { name: 'Priya Ramaswell' }).click();
     await page.waitForURL(/\/athletes\/\d+$/);
-    await page.getByRole('heading', { name: 'Priya Ramaswell' }).waitFor();
+    // The page heading, not the review section's "Review: …" heading that loads beside it.
+    await page.getByRole('heading', { level: 1, name: 'Priya Ramaswell', exact: true }).waitFor();
 
     const panel = page.getByRole('region', { name: 'Restrictions' });
     await panel.getByRole('button', { name: 'Add restriction' }).click();
