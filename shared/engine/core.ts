@@ -214,6 +214,8 @@ export function buildAth(ctx: Ctx, input: AthleteInput): Ath {
   const equipment = new Set(input.equipment);
   const limit = new Float64Array(NJ).fill(Infinity);
   for (const r of input.restrictions) {
+    // Version-1 handling: joint caps only, whatever their dates (the version-2 rules replace this).
+    if (r.joint === undefined || r.maxStress === undefined) continue;
     const k = JOINTS.indexOf(r.joint);
     if (k >= 0) limit[k] = Math.min(limit[k]!, r.maxStress);
   }

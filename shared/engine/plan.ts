@@ -26,7 +26,7 @@ export function generatePlan(req: PlanRequest): PlanResult {
   const ctx = ctxFor(req);
   const weeks = [...new Set(req.weeks)];
   weeks.forEach(wn);
-  const result: PlanResult = { entries: [], unfilled: [], swaps: [] };
+  const result: PlanResult = { entries: [], unfilled: [], swaps: [], cleared: [] };
   const done = new Set<string>();
   for (const a of req.athletes) {
     if (done.has(a.id)) continue;

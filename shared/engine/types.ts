@@ -13,7 +13,12 @@ export type RuleId =
   | 'restriction'
   | 'equipment'
   | 'liftMismatch'
-  | 'unknownVariant';
+  | 'unknownVariant'
+  // version 2
+  | 'meetPhase'
+  | 'archived'
+  | 'riskCeiling'
+  | 'restWeek';
 
 export const LIFTS: readonly Lift[] = ['squat', 'bench', 'deadlift'];
 export const JOINTS: readonly Joint[] = ['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee'];
@@ -27,6 +32,10 @@ export const RULE_IDS: readonly RuleId[] = [
   'equipment',
   'liftMismatch',
   'unknownVariant',
+  'meetPhase',
+  'archived',
+  'riskCeiling',
+  'restWeek',
 ];
 
 export interface Variant {
@@ -41,6 +50,10 @@ export interface Variant {
   /** Optional soft-goal tags: the part of the range the variant overloads, and the bar used. */
   emphasis?: Emphasis;
   bar?: string;
+  /** Never picked; a planned one is swapped (rule 'archived'), a pinned one reported. */
+  archived?: boolean;
+  /** Only when 0 <= weeks to the athlete's meet <= this (meet rehearsals, openers); rule 'meetPhase'. */
+  meetPhaseWeeks?: number;
 }
 export interface SlotDef {
   id: string;
@@ -53,12 +66,28 @@ export interface PlanEntry {
   variantId: string;
   pinned?: boolean;
 }
+/**
+ * A restriction (version 2). At least one of joint+maxStress, emphasis or families is given.
+ * The version-1 shape { joint, maxStress } stays valid.
+ */
+export interface Restriction {
+  joint?: Joint;
+  maxStress?: number; // variant.stress[joint] <= maxStress
+  emphasis?: Emphasis[]; // no variant with one of these emphases
+  families?: string[]; // no variant of these families
+  fromWeek?: string; // ISO weeks it covers, inclusive; absent = open-ended
+  toWeek?: string;
+}
 export interface AthleteInput {
   id: string;
   equipment: string[];
-  restrictions: { joint: Joint; maxStress: number }[]; // variant.stress[joint] must be <= maxStress
+  restrictions: Restriction[];
   meetWeek?: string; // ISO week of the next meet, '2027-W14'
   history: PlanEntry[]; // weeks already trained
+  /** This athlete's risk ceiling (rule 'riskCeiling'), e.g. 2 for a newer lifter. */
+  maxRisk?: RiskTier;
+  /** Deload or rest weeks: no max-effort pick at all. */
+  restWeeks?: string[];
 }
 export interface TaperRule {
   weeksOut: number;
@@ -72,6 +101,10 @@ export interface Rules {
   jointBudget: Partial<Record<Joint, number>>; // per joint: summed stress in any span <= budget
   taper: TaperRule[];
   seed: string;
+  /** Default 0.8: joint load at or under this share of budget is "comfortable". */
+  comfortRatio?: number;
+  /** A slot with several lifts holds each of them at least once in any span this long. */
+  liftBalanceWeeks?: number;
 }
 export interface PlanRequest {
   variants: Variant[];
@@ -92,6 +125,8 @@ export interface PlanResult {
     dropped?: { variantId: string; rule: RuleId; message: string };
   }[];
   swaps: { athleteId: string; week: string; slotId: string; from: string; to: string; rule: RuleId }[];
+  /** Unpinned planned entries removed from rest weeks. */
+  cleared: { athleteId: string; week: string; slotId: string; variantId: string; rule: 'restWeek' }[];
 }
 export interface Violation {
   rule: RuleId;

@@ -45,7 +45,12 @@ function search(req: PlanRequest, nodeLimit: number, allowEmpty: boolean): Exhau
       const options = req.variants.filter((v) => {
         if (!slot.lifts.includes(v.lift)) return false;
         if (!v.equipment.every((e) => athlete.equipment.includes(e))) return false;
-        if (athlete.restrictions.some((r) => (v.stress[r.joint] ?? 0) > r.maxStress)) return false;
+        if (
+          athlete.restrictions.some(
+            (r) => r.joint !== undefined && (v.stress[r.joint] ?? 0) > (r.maxStress ?? Infinity),
+          )
+        )
+          return false;
         if (athlete.meetWeek) {
           const d = weeksBetween(week, athlete.meetWeek);
           for (const t of rules.taper) {

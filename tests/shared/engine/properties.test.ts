@@ -36,7 +36,8 @@ function naiveBreaks(req: PlanRequest, entries: PlanEntry[]): Set<string> {
     const slot = req.slots.find((s) => s.id === e.slotId);
     if (!slot || !slot.lifts.includes(v.lift)) key('liftMismatch');
     if (v.equipment.some((x) => !a.equipment.includes(x))) key('equipment');
-    if (a.restrictions.some((x) => (v.stress[x.joint] ?? 0) > x.maxStress)) key('restriction');
+    if (a.restrictions.some((x) => x.joint !== undefined && (v.stress[x.joint] ?? 0) > (x.maxStress ?? Infinity)))
+      key('restriction');
     if (a.meetWeek) {
       const d = weeksBetween(e.week, a.meetWeek);
       for (const t of r.taper) {

@@ -13,6 +13,10 @@ export const RULE_WORDS: Record<RuleId, string> = {
   equipment: 'equipment the athlete lacks',
   liftMismatch: 'wrong lift for the slot',
   unknownVariant: 'not in the library',
+  meetPhase: 'only for the weeks just before a meet',
+  archived: 'archived in the library',
+  riskCeiling: "above the athlete's risk ceiling",
+  restWeek: 'rest week',
 };
 
 export const STATUS_WORDS: Record<DropStatus, string> = {
