@@ -1,6 +1,7 @@
 // checkPlan: every rule each entry of a proposed board breaks, given the athletes' history.
 
-import { Board, addAll, buildAth, cellViolations, ctxFor, rangeOf, wn } from './core';
+import { Board, addAll, buildAth, ctxFor, rangeOf, weekNum } from './core';
+import { breaksAt } from './rules/index';
 import type { PlanEntry, PlanRequest, Violation } from './types';
 
 /**
@@ -22,17 +23,17 @@ export function checkPlan(req: PlanRequest, entries: PlanEntry[]): Violation[] {
     const input = ctx.athletes.get(athleteId)!;
     const ath = buildAth(ctx, input);
     const own = idxs.map((i) => entries[i]!);
-    const [lo, hi] = rangeOf(ctx.req.weeks.map(wn), input.history, own);
+    const [lo, hi] = rangeOf(ctx.req.weeks.map(weekNum), input.history, own);
     const board = new Board(ctx, lo, hi);
     addAll(ctx, board, input.history);
     addAll(ctx, board, own);
     for (const i of idxs) {
       const e = entries[i]!;
       const v = ctx.byId.get(e.variantId);
-      const w = wn(e.week);
-      const slot = ctx.slots.get(e.slotId)?.idx ?? -1;
+      const w = weekNum(e.week);
+      const slot = ctx.slots.get(e.slotId)?.index ?? -1;
       if (v !== undefined) board.add(w, v, slot, -1);
-      found[i] = cellViolations(ctx, ath, board, e.week, e.slotId, e.variantId);
+      found[i] = breaksAt(ctx, ath, board, e.week, e.slotId, e.variantId);
       if (v !== undefined) board.add(w, v, slot, 1);
     }
   }

@@ -1,5 +1,5 @@
-// Indexes built once per request (library, slots, rules) and per athlete (the board of their entries),
-// and the rule checks that checkPlan, explainCandidate and the planner share, so all judge a cell alike.
+// Indexes built once per request (library, slots, rules) and per athlete (their fixed facts and the board
+// of their entries), shared by the checker, the planner, the live drag checks and the reasons.
 
 import {
   JOINTS,
@@ -8,86 +8,100 @@ import {
   type Lift,
   type PlanEntry,
   type PlanRequest,
-  type RuleId,
+  type Restriction,
   type SlotDef,
   type TaperRule,
   type Variant,
-  type Violation,
 } from './types';
+import { validateRequest } from './validate';
 import { weekFromNumber, weekNumber } from './weeks';
-import * as W from './words';
 
 /** Tolerance for summed stresses that are not whole numbers (0.1 + 0.2 must not break a budget of 0.3). */
 export const EPS = 1e-9;
-export const NJ = JOINTS.length;
-const LIFT_BIT: Record<Lift, number> = { squat: 1, bench: 2, deadlift: 4 };
-const EMPHASES: readonly Emphasis[] = ['bottom', 'midRange', 'lockout'];
+export const JOINT_COUNT = JOINTS.length;
+export const LIFT_BIT: Record<Lift, number> = { squat: 1, bench: 2, deadlift: 4 };
+export const EMPHASES: readonly Emphasis[] = ['bottom', 'midRange', 'lockout'];
+/** The comfort line when the rules do not set one: joint load at or under 80% of budget. */
+export const DEFAULT_COMFORT_RATIO = 0.8;
 
-const numOf = new Map<string, number>();
-const strOf = new Map<number, string>();
+const numberOfWeek = new Map<string, number>();
+const weekOfNumber = new Map<number, string>();
 /** weekNumber with a memo: the engine converts the same few week strings thousands of times. */
-export function wn(week: string): number {
-  let n = numOf.get(week);
+export function weekNum(week: string): number {
+  let n = numberOfWeek.get(week);
   if (n === undefined) {
     n = weekNumber(week);
-    if (numOf.size > 50_000) numOf.clear();
-    numOf.set(week, n);
+    if (numberOfWeek.size > 50_000) numberOfWeek.clear();
+    numberOfWeek.set(week, n);
   }
   return n;
 }
-export function ws(n: number): string {
-  let s = strOf.get(n);
+export function weekStr(n: number): string {
+  let s = weekOfNumber.get(n);
   if (s === undefined) {
     s = weekFromNumber(n);
-    if (strOf.size > 50_000) strOf.clear();
-    strOf.set(n, s);
+    if (weekOfNumber.size > 50_000) weekOfNumber.clear();
+    weekOfNumber.set(n, s);
   }
   return s;
 }
 
 export interface SlotInfo {
-  idx: number;
-  mask: number;
+  index: number;
+  liftMask: number;
   def: SlotDef;
 }
 
-/** Everything about a request that does not depend on one athlete. */
+/** Everything about a request that does not depend on one athlete. Variants are numbered 0…n−1. */
 export interface Ctx {
   variants: Variant[]; // unique by id (the first of a duplicated id wins)
   byId: Map<string, number>;
-  fam: Int32Array;
-  famNames: string[];
+  family: Int32Array;
+  familyNames: string[];
   liftBit: Uint8Array;
   risk: Uint8Array;
-  spec: Float64Array;
+  specificity: Float64Array;
   /** Emphasis and bar as small numbers for the variety goal (−1 when not given). */
-  emph: Int8Array;
+  emphasis: Int8Array;
   bar: Int32Array;
+  archived: Uint8Array;
+  /** Per variant, its meet-phase window in weeks (−1: not a meet-phase variant). */
+  meetPhaseWeeks: Float64Array;
+  anyArchived: boolean;
+  anyMeetPhase: boolean;
   /** Equipment as bits (the first 30 kinds); a variant needing a kind past those has mask −1. */
-  equipBit: Map<string, number>;
-  equipMask: Int32Array;
+  equipmentBit: Map<string, number>;
+  equipmentMask: Int32Array;
   /** Per slot, the variants whose lift fits it. */
-  bySlot: Int32Array[];
+  slotVariants: Int32Array[];
   stress: Float64Array; // variant × joint, negatives read as 0
-  /** Per variant, its stresses above 0 on joints that have a budget: sJ/sV[sOff[v] .. sOff[v+1]). */
-  sOff: Int32Array;
-  sJ: Uint8Array;
-  sV: Float64Array;
+  /** Per variant v, its stresses above 0 on budgeted joints: stressJoint/stressValue[stressStart[v] … stressStart[v+1]). */
+  stressStart: Int32Array;
+  stressJoint: Uint8Array;
+  stressValue: Float64Array;
   budget: Float64Array; // per joint; NaN when the joint has no budget
   budgeted: number[];
   slots: Map<string, SlotInfo>;
   slotList: SlotDef[];
+  /** Per slot index, its lifts as bits. */
+  slotMasks: number[];
+  /** 0, 1, 2, …: each variant is its own item for the repeat rule. */
+  variantItems: Int32Array;
   /** Effective windows: a variant never twice in one week, so the repeat window is at least 1. */
-  R: number;
-  F: number;
-  J: number;
+  repeatWindow: number;
+  familyWindow: number;
+  jointWindow: number;
   taper: TaperRule[];
   taperMax: number; // largest weeksOut, −1 without taper rules
+  comfortRatio: number;
+  /** 0 when the lift-balance goal is off. */
+  liftBalanceWeeks: number;
   athletes: Map<string, AthleteInput>;
   req: PlanRequest;
 }
 
 export function buildCtx(req: PlanRequest): Ctx {
+  validateRequest(req);
   const variants: Variant[] = [];
   const byId = new Map<string, number>();
   for (const v of req.variants) {
@@ -95,20 +109,22 @@ export function buildCtx(req: PlanRequest): Ctx {
     byId.set(v.id, variants.length);
     variants.push(v);
   }
-  const V = variants.length;
-  const famIdx = new Map<string, number>();
-  const famNames: string[] = [];
-  const fam = new Int32Array(V);
-  const liftBit = new Uint8Array(V);
-  const risk = new Uint8Array(V);
-  const spec = new Float64Array(V);
-  const emph = new Int8Array(V);
-  const bar = new Int32Array(V);
+  const count = variants.length;
+  const familyIndex = new Map<string, number>();
+  const familyNames: string[] = [];
+  const family = new Int32Array(count);
+  const liftBit = new Uint8Array(count);
+  const risk = new Uint8Array(count);
+  const specificity = new Float64Array(count);
+  const emphasis = new Int8Array(count);
+  const bar = new Int32Array(count);
+  const archived = new Uint8Array(count);
+  const meetPhaseWeeks = new Float64Array(count).fill(-1);
   const bars = new Map<string, number>();
-  const equipBit = new Map<string, number>();
-  const equipMask = new Int32Array(V);
-  const stress = new Float64Array(V * NJ);
-  const budget = new Float64Array(NJ).fill(NaN);
+  const equipmentBit = new Map<string, number>();
+  const equipmentMask = new Int32Array(count);
+  const stress = new Float64Array(count * JOINT_COUNT);
+  const budget = new Float64Array(JOINT_COUNT).fill(NaN);
   const budgeted: number[] = [];
   JOINTS.forEach((j, k) => {
     const b = req.rules.jointBudget?.[j];
@@ -117,134 +133,203 @@ export function buildCtx(req: PlanRequest): Ctx {
       budgeted.push(k);
     }
   });
-  const sJ: number[] = [];
-  const sV: number[] = [];
-  const sOff = new Int32Array(V + 1);
+  const stressJoint: number[] = [];
+  const stressValue: number[] = [];
+  const stressStart = new Int32Array(count + 1);
   variants.forEach((v, i) => {
-    let f = famIdx.get(v.family);
+    let f = familyIndex.get(v.family);
     if (f === undefined) {
-      f = famNames.length;
-      famIdx.set(v.family, f);
-      famNames.push(v.family);
+      f = familyNames.length;
+      familyIndex.set(v.family, f);
+      familyNames.push(v.family);
     }
-    fam[i] = f;
+    family[i] = f;
     liftBit[i] = LIFT_BIT[v.lift] ?? 0;
     risk[i] = v.risk;
-    spec[i] = v.specificity;
-    emph[i] = v.emphasis ? EMPHASES.indexOf(v.emphasis) : -1;
+    specificity[i] = v.specificity;
+    emphasis[i] = v.emphasis ? EMPHASES.indexOf(v.emphasis) : -1;
     if (v.bar !== undefined && !bars.has(v.bar)) bars.set(v.bar, bars.size);
     bar[i] = v.bar === undefined ? -1 : bars.get(v.bar)!;
+    archived[i] = v.archived ? 1 : 0;
+    if (typeof v.meetPhaseWeeks === 'number' && Number.isFinite(v.meetPhaseWeeks))
+      meetPhaseWeeks[i] = Math.max(0, v.meetPhaseWeeks);
     for (const e of v.equipment) {
-      if (!equipBit.has(e) && equipBit.size < 30) equipBit.set(e, 1 << equipBit.size);
-      const bit = equipBit.get(e);
-      equipMask[i] = bit === undefined || equipMask[i]! < 0 ? -1 : equipMask[i]! | bit;
+      if (!equipmentBit.has(e) && equipmentBit.size < 30) equipmentBit.set(e, 1 << equipmentBit.size);
+      const b = equipmentBit.get(e);
+      equipmentMask[i] = b === undefined || equipmentMask[i]! < 0 ? -1 : equipmentMask[i]! | b;
     }
     JOINTS.forEach((j, k) => {
       const s = Math.max(0, Number(v.stress[j]) || 0);
-      stress[i * NJ + k] = s;
+      stress[i * JOINT_COUNT + k] = s;
       if (s > 0 && !Number.isNaN(budget[k]!)) {
-        sJ.push(k);
-        sV.push(s);
+        stressJoint.push(k);
+        stressValue.push(s);
       }
     });
-    sOff[i + 1] = sJ.length;
+    stressStart[i + 1] = stressJoint.length;
   });
   const slots = new Map<string, SlotInfo>();
   const slotList: SlotDef[] = [];
   for (const s of req.slots) {
     if (slots.has(s.id)) continue;
-    let mask = 0;
-    for (const l of s.lifts) mask |= LIFT_BIT[l] ?? 0;
-    slots.set(s.id, { idx: slotList.length, mask, def: s });
+    let liftMask = 0;
+    for (const l of s.lifts) liftMask |= LIFT_BIT[l] ?? 0;
+    slots.set(s.id, { index: slotList.length, liftMask, def: s });
     slotList.push(s);
   }
-  const bySlot = slotList.map((_, q) => {
-    const mask = [...slots.values()][q]!.mask;
+  const slotVariants = [...slots.values()].map((slot) => {
     const list: number[] = [];
-    for (let v = 0; v < V; v++) if (liftBit[v]! & mask) list.push(v);
+    for (let v = 0; v < count; v++) if (liftBit[v]! & slot.liftMask) list.push(v);
     return Int32Array.from(list);
   });
   const athletes = new Map<string, AthleteInput>();
   for (const a of req.athletes) if (!athletes.has(a.id)) athletes.set(a.id, a);
-  const win = (n: number) => (Number.isFinite(n) ? Math.max(0, Math.floor(n)) : 0);
+  const whole = (n: number | undefined) =>
+    typeof n === 'number' && Number.isFinite(n) ? Math.max(0, Math.floor(n)) : 0;
   const r = req.rules;
   return {
     variants,
     byId,
-    fam,
-    famNames,
+    family,
+    familyNames,
     liftBit,
     risk,
-    spec,
-    emph,
+    specificity,
+    emphasis,
     bar,
-    equipBit,
-    equipMask,
-    bySlot,
+    archived,
+    meetPhaseWeeks,
+    anyArchived: archived.some((a) => a === 1),
+    anyMeetPhase: meetPhaseWeeks.some((m) => m >= 0),
+    equipmentBit,
+    equipmentMask,
+    slotVariants,
     stress,
-    sOff,
-    sJ: Uint8Array.from(sJ),
-    sV: Float64Array.from(sV),
+    stressStart,
+    stressJoint: Uint8Array.from(stressJoint),
+    stressValue: Float64Array.from(stressValue),
     budget,
     budgeted,
     slots,
     slotList,
-    R: Math.max(1, win(r.repeatWindowWeeks)),
-    F: win(r.familyWindowWeeks),
-    J: Math.max(1, win(r.jointWindowWeeks)),
+    slotMasks: [...slots.values()].map((s) => s.liftMask),
+    variantItems: Int32Array.from(variants, (_, i) => i),
+    repeatWindow: Math.max(1, whole(r.repeatWindowWeeks)),
+    familyWindow: whole(r.familyWindowWeeks),
+    jointWindow: Math.max(1, whole(r.jointWindowWeeks)),
     taper: r.taper ?? [],
     taperMax: (r.taper ?? []).reduce((m, t) => Math.max(m, t.weeksOut), -1),
+    comfortRatio: r.comfortRatio ?? DEFAULT_COMFORT_RATIO,
+    liftBalanceWeeks: whole(r.liftBalanceWeeks),
     athletes,
     req,
   };
 }
 
-/** One athlete's fixed facts: which variants their equipment and restrictions allow, and the meet. */
+/** One restriction of an athlete, with its weeks as numbers and the variants it rules out. */
+export interface DatedRestriction {
+  source: Restriction;
+  from: number; // −Infinity when open-ended
+  to: number; // Infinity when open-ended
+  /** Per variant: 1 when this restriction rules it out. */
+  blocks: number[];
+}
+
+/** One athlete's fixed facts: what their equipment, restrictions, ceiling, meet and rest weeks allow. */
 export interface Ath {
   input: AthleteInput;
   equipment: Set<string>;
-  /** Per joint, the tightest restriction (Infinity when none). */
-  limit: Float64Array;
-  /** Per variant: 0 allowed, 1 missing equipment, 2 over a restriction, 3 both. */
-  block: Uint8Array;
+  /** Per variant: 1 when it needs equipment the athlete does not have. */
+  missingEquipment: number[];
+  restrictions: DatedRestriction[];
+  /** Per week number, the variants ruled out by the restrictions in force that week (null: none). */
+  restrictedIn: Map<number, number[] | null>;
   meet: number | undefined;
+  maxRisk: number; // Infinity without a ceiling
+  restWeeks: Set<number>;
+  /** Per week number, the cell rules in force and their tests (filled by the rule registry). */
+  cellTests: Map<number, unknown>;
+}
+
+/**
+ * Per variant of the library, 1 where `out` holds. Masks are plain arrays: the engine makes several per
+ * athlete, and small typed arrays cost more to make and to collect.
+ */
+export function maskOf(ctx: Ctx, out: (v: number) => boolean): number[] {
+  const mask = new Array<number>(ctx.variants.length);
+  for (let v = 0; v < mask.length; v++) mask[v] = out(v) ? 1 : 0;
+  return mask;
+}
+
+/** Whether restriction r rules out variant v (any of its parts does). */
+export function restrictionBlocks(ctx: Ctx, r: Restriction, v: number): boolean {
+  const x = ctx.variants[v]!;
+  if (r.joint !== undefined && typeof r.maxStress === 'number') {
+    const k = JOINTS.indexOf(r.joint);
+    if (k >= 0 && ctx.stress[v * JOINT_COUNT + k]! > r.maxStress + EPS) return true;
+  }
+  if (r.emphasis && x.emphasis && r.emphasis.includes(x.emphasis)) return true;
+  if (r.families && r.families.includes(x.family)) return true;
+  return false;
 }
 
 export function buildAth(ctx: Ctx, input: AthleteInput): Ath {
   const equipment = new Set(input.equipment);
-  const limit = new Float64Array(NJ).fill(Infinity);
-  for (const r of input.restrictions) {
-    // Version-1 handling: joint caps only, whatever their dates (the version-2 rules replace this).
-    if (r.joint === undefined || r.maxStress === undefined) continue;
-    const k = JOINTS.indexOf(r.joint);
-    if (k >= 0) limit[k] = Math.min(limit[k]!, r.maxStress);
-  }
-  const V = ctx.variants.length;
-  const block = new Uint8Array(V);
+  const count = ctx.variants.length;
+  const missingEquipment = new Array<number>(count).fill(0);
   let has = 0;
-  for (const e of input.equipment) has |= ctx.equipBit.get(e) ?? 0;
-  const restricted: number[] = [];
-  for (let k = 0; k < NJ; k++) if (limit[k]! < Infinity) restricted.push(k);
-  for (let v = 0; v < V; v++) {
-    const need = ctx.equipMask[v]!;
-    let b = 0;
-    if (need < 0) b = ctx.variants[v]!.equipment.every((e) => equipment.has(e)) ? 0 : 1;
-    else if (need & ~has) b = 1;
-    for (const k of restricted) {
-      if (ctx.stress[v * NJ + k]! > limit[k]! + EPS) {
-        b |= 2;
-        break;
-      }
-    }
-    block[v] = b;
+  for (const e of input.equipment) has |= ctx.equipmentBit.get(e) ?? 0;
+  for (let v = 0; v < count; v++) {
+    const need = ctx.equipmentMask[v]!;
+    if (need < 0) missingEquipment[v] = ctx.variants[v]!.equipment.every((e) => equipment.has(e)) ? 0 : 1;
+    else if (need & ~has) missingEquipment[v] = 1;
   }
-  return { input, equipment, limit, block, meet: input.meetWeek ? wn(input.meetWeek) : undefined };
+  const restrictions = input.restrictions.map((source): DatedRestriction => {
+    const blocks = maskOf(ctx, (v) => restrictionBlocks(ctx, source, v));
+    return {
+      source,
+      from: source.fromWeek ? weekNum(source.fromWeek) : -Infinity,
+      to: source.toWeek ? weekNum(source.toWeek) : Infinity,
+      blocks,
+    };
+  });
+  return {
+    input,
+    equipment,
+    missingEquipment,
+    restrictions,
+    restrictedIn: new Map(),
+    meet: input.meetWeek ? weekNum(input.meetWeek) : undefined,
+    maxRisk: input.maxRisk ?? Infinity,
+    restWeeks: new Set((input.restWeeks ?? []).map(weekNum)),
+    cellTests: new Map(),
+  };
+}
+
+/** The restrictions of the athlete in force in week w. */
+export function restrictionsIn(ath: Ath, w: number): DatedRestriction[] {
+  return ath.restrictions.filter((r) => r.from <= w && w <= r.to);
+}
+
+/** The variants the restrictions in force in week w rule out, combined (null when none is in force). */
+export function restrictedIn(ath: Ath, w: number): number[] | null {
+  let hit = ath.restrictedIn.get(w);
+  if (hit !== undefined) return hit;
+  const active = restrictionsIn(ath, w);
+  hit = null;
+  if (active.length === 1) hit = active[0]!.blocks;
+  else if (active.length > 1) {
+    hit = active[0]!.blocks.slice();
+    for (const r of active) for (let v = 0; v < hit.length; v++) hit[v]! |= r.blocks[v]!;
+  }
+  ath.restrictedIn.set(w, hit);
+  return hit;
 }
 
 export interface Taper {
-  d: number;
+  weeksToMeet: number;
   maxRisk: number;
-  minSpec: number;
+  minSpecificity: number;
 }
 
 /** The taper limits in force in week w (weeks to the meet between 0 and weeksOut), or null. */
@@ -253,15 +338,15 @@ export function taperAt(ctx: Ctx, ath: Ath, w: number): Taper | null {
   const d = ath.meet - w;
   if (d < 0 || d > ctx.taperMax) return null;
   let maxRisk = Infinity;
-  let minSpec = -Infinity;
+  let minSpecificity = -Infinity;
   let any = false;
   for (const t of ctx.taper) {
     if (d > t.weeksOut) continue;
     any = true;
     maxRisk = Math.min(maxRisk, t.maxRisk);
-    if (typeof t.minSpecificity === 'number') minSpec = Math.max(minSpec, t.minSpecificity);
+    if (typeof t.minSpecificity === 'number') minSpecificity = Math.max(minSpecificity, t.minSpecificity);
   }
-  return any ? { d, maxRisk, minSpec } : null;
+  return any ? { weeksToMeet: d, maxRisk, minSpecificity } : null;
 }
 
 const CELL_KEY = 1024;
@@ -271,38 +356,39 @@ const CELL_KEY = 1024;
  * summed stress per joint and week over a range that holds every entry (outside it the load is 0).
  */
 export class Board {
-  lo: number;
+  /** Week number of load[k][0]. */
+  first: number;
   load: number[][];
-  vUses: number[][] = [];
-  fUses: number[][] = [];
+  variantUses: number[][] = [];
+  familyUses: number[][] = [];
   cells = new Map<number, number>();
 
   constructor(
     readonly ctx: Ctx,
-    lo: number,
-    hi: number,
+    from: number,
+    to: number,
   ) {
-    this.lo = lo - ctx.J - 1;
-    const size = Math.max(0, hi - lo) + 2 * ctx.J + 3;
+    this.first = from - ctx.jointWindow - 1;
+    const size = Math.max(0, to - from) + 2 * ctx.jointWindow + 3;
     this.load = JOINTS.map(() => new Array<number>(size).fill(0));
   }
 
   add(w: number, v: number, slot: number, sign: 1 | -1): void {
     const ctx = this.ctx;
-    const f = ctx.fam[v]!;
+    const f = ctx.family[v]!;
     if (sign > 0) {
-      (this.vUses[v] ??= []).push(w);
-      (this.fUses[f] ??= []).push(w);
+      (this.variantUses[v] ??= []).push(w);
+      (this.familyUses[f] ??= []).push(w);
       if (slot >= 0) this.cells.set(w * CELL_KEY + slot, v);
     } else {
-      dropOne(this.vUses[v], w);
-      dropOne(this.fUses[f], w);
+      dropOne(this.variantUses[v], w);
+      dropOne(this.familyUses[f], w);
       if (slot >= 0 && this.cells.get(w * CELL_KEY + slot) === v) this.cells.delete(w * CELL_KEY + slot);
     }
-    const i = w - this.lo;
+    const i = w - this.first;
     if (i < 0 || i >= this.load[0]!.length) return;
-    for (let k = 0; k < NJ; k++) {
-      const s = ctx.stress[v * NJ + k]!;
+    for (let k = 0; k < JOINT_COUNT; k++) {
+      const s = ctx.stress[v * JOINT_COUNT + k]!;
       if (s > 0) this.load[k]![i]! += sign * s;
     }
   }
@@ -313,25 +399,25 @@ export class Board {
 
   loadAt(k: number, w: number): number {
     const a = this.load[k]!;
-    const i = w - this.lo;
+    const i = w - this.first;
     return i >= 0 && i < a.length ? a[i]! : 0;
   }
 
-  /** Summed stress on joint k in the span of J weeks starting at week st. */
-  spanLoad(k: number, st: number): number {
+  /** Summed stress on joint k in the span of jointWindow weeks starting at week start. */
+  spanLoad(k: number, start: number): number {
     let s = 0;
-    for (let x = st; x < st + this.ctx.J; x++) s += this.loadAt(k, x);
+    for (let x = start; x < start + this.ctx.jointWindow; x++) s += this.loadAt(k, x);
     return s;
   }
 
   /** The busiest span holding week w on joint k: its first week and its load. */
   busiest(k: number, w: number): { start: number; load: number } {
-    const J = this.ctx.J;
-    let s = this.spanLoad(k, w - J + 1);
+    const span = this.ctx.jointWindow;
+    let s = this.spanLoad(k, w - span + 1);
     let best = s;
-    let start = w - J + 1;
-    for (let st = w - J + 2; st <= w; st++) {
-      s += this.loadAt(k, st + J - 1) - this.loadAt(k, st - 1);
+    let start = w - span + 1;
+    for (let st = w - span + 2; st <= w; st++) {
+      s += this.loadAt(k, st + span - 1) - this.loadAt(k, st - 1);
       if (s > best + EPS) {
         best = s;
         start = st;
@@ -348,28 +434,28 @@ function dropOne(list: number[] | undefined, w: number): void {
 }
 
 /** The week range an athlete's board must cover for these entries and weeks. */
-export function rangeOf(weeksNums: number[], ...lists: PlanEntry[][]): [number, number] {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const n of weeksNums) {
-    lo = Math.min(lo, n);
-    hi = Math.max(hi, n);
+export function rangeOf(weekNums: number[], ...lists: PlanEntry[][]): [number, number] {
+  let from = Infinity;
+  let to = -Infinity;
+  for (const n of weekNums) {
+    from = Math.min(from, n);
+    to = Math.max(to, n);
   }
   for (const list of lists) {
     for (const e of list) {
-      const n = wn(e.week);
-      lo = Math.min(lo, n);
-      hi = Math.max(hi, n);
+      const n = weekNum(e.week);
+      from = Math.min(from, n);
+      to = Math.max(to, n);
     }
   }
-  return lo === Infinity ? [0, 0] : [lo, hi];
+  return from === Infinity ? [0, 0] : [from, to];
 }
 
 /** Adds entries to a board; entries naming unknown variants count for nothing. */
 export function addAll(ctx: Ctx, board: Board, entries: PlanEntry[]): void {
   for (const e of entries) {
     const v = ctx.byId.get(e.variantId);
-    if (v !== undefined) board.add(wn(e.week), v, ctx.slots.get(e.slotId)?.idx ?? -1, 1);
+    if (v !== undefined) board.add(weekNum(e.week), v, ctx.slots.get(e.slotId)?.index ?? -1, 1);
   }
 }
 
@@ -395,113 +481,6 @@ export function lastBefore(uses: number[] | undefined, w: number): number | unde
 
 export function specText(x: number): string {
   return String(Math.round(x * 100) / 100);
-}
-
-/** The cell being judged, and where its violations go. */
-interface Target {
-  athleteId: string;
-  week: string;
-  slotId: string;
-  variantId: string;
-  out: Violation[];
-}
-
-function note(c: Target, rule: RuleId, message: string): void {
-  c.out.push({ rule, athleteId: c.athleteId, week: c.week, slotId: c.slotId, variantId: c.variantId, message });
-}
-
-/**
- * Every rule that putting variantId in (week, slotId) would break, against what is on the board.
- * The caller takes the cell's own entry off the board first.
- */
-export function cellViolations(
-  ctx: Ctx,
-  ath: Ath,
-  board: Board,
-  week: string,
-  slotId: string,
-  variantId: string,
-): Violation[] {
-  const out: Violation[] = [];
-  const cell: Target = { athleteId: ath.input.id, week, slotId, variantId, out };
-  const v = ctx.byId.get(variantId);
-  if (v === undefined) {
-    note(cell, 'unknownVariant', `no variant "${variantId}" in the library`);
-    return out;
-  }
-  const x = ctx.variants[v]!;
-  const w = wn(week);
-  const slot = ctx.slots.get(slotId);
-  if (!slot) note(cell, 'liftMismatch', `there is no "${slotId}" slot`);
-  else if ((ctx.liftBit[v]! & slot.mask) === 0) {
-    const lifts = slot.def.lifts.length ? slot.def.lifts.join(' or ') : 'no lift';
-    note(cell, 'liftMismatch', `${x.name} is a ${x.lift} variant; the ${slotId} slot takes ${lifts}`);
-  }
-  if (ath.block[v]! & 1) {
-    const missing = x.equipment.filter((e) => !ath.equipment.has(e));
-    note(cell, 'equipment', `${x.name} needs ${missing.join(', ')}, which this athlete does not have`);
-  }
-  if (ath.block[v]! & 2) {
-    for (let k = 0; k < NJ; k++) {
-      const s = ctx.stress[v * NJ + k]!;
-      if (s > ath.limit[k]! + EPS) {
-        note(
-          cell,
-          'restriction',
-          `${x.name} puts ${jointName(k)} stress ${W.num(s)} over this athlete's limit of ${W.num(ath.limit[k]!)}`,
-        );
-      }
-    }
-  }
-  const taper = taperAt(ctx, ath, w);
-  if (taper) {
-    const when = W.meetWhen(taper.d);
-    if (x.risk > taper.maxRisk)
-      note(cell, 'taperRisk', `${x.name} has risk ${x.risk}, above the limit of ${taper.maxRisk} ${when}`);
-    if (x.specificity < taper.minSpec - EPS) {
-      note(
-        cell,
-        'taperSpecificity',
-        `${x.name} has specificity ${specText(x.specificity)}, below the minimum of ${specText(taper.minSpec)} ${when}`,
-      );
-    }
-  }
-  const rep = nearest(board.vUses[v], w, ctx.R);
-  if (rep !== undefined) {
-    note(
-      cell,
-      'repeat',
-      rep === w
-        ? `${x.name} is already in ${week}; a variant may appear only once a week`
-        : `${x.name} is already in ${ws(rep)}, ${W.weeks(Math.abs(rep - w))} away; the repeat window is ${W.weeks(ctx.R)}`,
-    );
-  }
-  const famUse = nearest(board.fUses[ctx.fam[v]!], w, ctx.F);
-  if (famUse !== undefined) {
-    const away = famUse === w ? '' : `, ${W.weeks(Math.abs(famUse - w))} away`;
-    note(
-      cell,
-      'family',
-      `the ${x.family} family is already in ${ws(famUse)}${away}; the family window is ${W.weeks(ctx.F)}`,
-    );
-  }
-  for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
-    const k = ctx.sJ[t]!;
-    const b = board.busiest(k, w);
-    const total = b.load + ctx.sV[t]!;
-    if (total > ctx.budget[k]! + EPS) {
-      note(
-        cell,
-        'jointBudget',
-        `${W.jointLoad(JOINTS[k]!)} ${W.num(total)} over budget ${W.num(ctx.budget[k]!)} in ${W.span(ws(b.start), ws(b.start + ctx.J - 1))}`,
-      );
-    }
-  }
-  return out;
-}
-
-function jointName(k: number): string {
-  return W.jointName(JOINTS[k]!);
 }
 
 /** A memo per request object, rebuilt when the request or one of the parts named in `key` is replaced. */

@@ -1,23 +1,34 @@
-// Live checks for the coach's board while dragging: what a drop would break, and softer warnings,
-// from indexes built once per request so each target cell costs microseconds.
+// Live checks for the coach's board while dragging: what a drop would break, softer warnings, and the
+// planner's own preference for a variant in a cell, from indexes built once per request so each target
+// cell costs microseconds.
 
 import {
   Board,
   addAll,
   buildAth,
-  cellViolations,
   ctxFor,
   entriesOf,
+  lastBefore,
   memo,
-  nearest,
   rangeOf,
-  wn,
-  ws,
+  taperAt,
+  weekNum,
   type Ath,
-  type Ctx,
 } from './core';
-import { JOINTS, type PlanEntry, type PlanRequest, type Violation } from './types';
+import {
+  TERM_COUNT,
+  balancedLifts,
+  bitCount,
+  fairShareOf,
+  newPreferenceInput,
+  preference,
+  type BalanceView,
+} from './goals';
+import { blockedIn, breaksAt, isRestWeek, ruleWarnings } from './rules/index';
+import { LIFTS, type PlanEntry, type PlanRequest, type Violation } from './types';
 import * as W from './words';
+
+export { NEAR_BUDGET } from './rules/index';
 
 export interface CandidateRating {
   status: 'clean' | 'warning' | 'break';
@@ -30,16 +41,30 @@ export interface CandidateChecks {
   explain(athleteId: string, week: string, slotId: string, variantId: string): Violation[];
   /** explain plus warnings a coach wants while dragging; status is the worst of the two. */
   rate(athleteId: string, week: string, slotId: string, variantId: string): CandidateRating;
+  /**
+   * The planner's soft-goal preference for variantId in the cell given everything else on the board
+   * (lower = preferred; the seeded tie-break left out). Infinity for an unknown athlete, slot or variant.
+   */
+  score(athleteId: string, week: string, slotId: string, variantId: string): number;
 }
 
-/** A joint at or above this share of its budget in some span earns a warning. */
-export const NEAR_BUDGET = 0.85;
+/** Per athlete and slot, over the request's weeks: what the soft goals measure against. */
+interface SlotFacts {
+  /** Lifts of the slot with an eligible variant in some planned week (lift bits). */
+  required: number;
+  eligibleFamilies: number;
+  /** Mean specificity of the variants eligible outside taper weeks. */
+  eligibleMean: number;
+  /** Planned weeks that are not rest weeks. */
+  weeks: number;
+}
 
 interface AthleteIndex {
   ath: Ath;
   board: Board;
   /** "week|slot" → the board entries in that cell. */
   cells: Map<string, PlanEntry[]>;
+  slotFacts: (SlotFacts | undefined)[];
 }
 
 /**
@@ -48,6 +73,10 @@ interface AthleteIndex {
  */
 export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
   const ctx = ctxFor(req);
+  const planWeeks = [...new Set(req.weeks)].map(weekNum);
+  const planSet = new Set(planWeeks);
+  const planFirst = Math.min(...planWeeks);
+  const planLast = Math.max(...planWeeks);
   const index = new Map<string, AthleteIndex | null>();
   const get = (athleteId: string): AthleteIndex | null => {
     let hit = index.get(athleteId);
@@ -56,8 +85,8 @@ export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
     hit = null;
     if (input) {
       const planned = entriesOf(req.planned, athleteId);
-      const [lo, hi] = rangeOf(req.weeks.map(wn), input.history, planned);
-      const board = new Board(ctx, lo, hi);
+      const [from, to] = rangeOf(planWeeks, input.history, planned);
+      const board = new Board(ctx, from, to);
       addAll(ctx, board, input.history);
       addAll(ctx, board, planned);
       const cells = new Map<string, PlanEntry[]>();
@@ -67,10 +96,41 @@ export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
         if (list) list.push(e);
         else cells.set(key, [e]);
       }
-      hit = { ath: buildAth(ctx, input), board, cells };
+      hit = { ath: buildAth(ctx, input), board, cells, slotFacts: [] };
     }
     index.set(athleteId, hit);
     return hit;
+  };
+
+  const factsOf = (x: AthleteIndex, slot: number): SlotFacts => {
+    const known = x.slotFacts[slot];
+    if (known) return known;
+    let required = 0;
+    let weeks = 0;
+    const families = new Set<number>();
+    const outsideTaper = new Set<number>();
+    for (const w of planWeeks) {
+      if (isRestWeek(x.ath, w)) continue;
+      weeks++;
+      const blocked = blockedIn(ctx, x.ath, w);
+      const taper = taperAt(ctx, x.ath, w) !== null;
+      for (const v of ctx.slotVariants[slot]!) {
+        if (blocked && blocked[v]) continue;
+        required |= ctx.liftBit[v]!;
+        families.add(ctx.family[v]!);
+        if (!taper) outsideTaper.add(v);
+      }
+    }
+    let sum = 0;
+    for (const v of outsideTaper) sum += ctx.specificity[v]!;
+    const facts = {
+      required,
+      eligibleFamilies: families.size,
+      eligibleMean: outsideTaper.size ? sum / outsideTaper.size : 0,
+      weeks,
+    };
+    x.slotFacts[slot] = facts;
+    return facts;
   };
 
   /** Takes the cell's own board entries off (a drop would replace them); restore() puts them back. */
@@ -87,86 +147,132 @@ export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
   const restore = (x: AthleteIndex, w: number, slot: number): void => {
     for (const v of lifted) x.board.add(w, v, slot, 1);
   };
+  /** Runs `f` with the cell's own entries off the board. */
+  const withCellCleared = <T>(x: AthleteIndex, week: string, slotId: string, f: (w: number, slot: number) => T): T => {
+    const w = weekNum(week);
+    const slot = ctx.slots.get(slotId)?.index ?? -1;
+    clear(x, w, slot, `${week}|${slotId}`);
+    try {
+      return f(w, slot);
+    } finally {
+      restore(x, w, slot);
+    }
+  };
 
   const explain = (athleteId: string, week: string, slotId: string, variantId: string): Violation[] => {
     const x = get(athleteId);
     if (!x) return [];
-    const w = wn(week);
-    const slot = ctx.slots.get(slotId)?.idx ?? -1;
-    clear(x, w, slot, `${week}|${slotId}`);
-    try {
-      return cellViolations(ctx, x.ath, x.board, week, slotId, variantId);
-    } finally {
-      restore(x, w, slot);
+    return withCellCleared(x, week, slotId, () => breaksAt(ctx, x.ath, x.board, week, slotId, variantId));
+  };
+
+  const balanceWarning = (x: AthleteIndex, w: number, slot: number, v: number): string | null => {
+    if (ctx.liftBalanceWeeks < 1 || slot < 0 || !planSet.has(w)) return null;
+    const facts = factsOf(x, slot);
+    if (bitCount(facts.required) < 2 || !(ctx.liftBit[v]! & facts.required)) return null;
+    const view: BalanceView = {
+      span: ctx.liftBalanceWeeks,
+      required: facts.required,
+      planFirst,
+      planLast,
+      liftAt: (u) => {
+        const at = x.board.at(u, slot);
+        return at === undefined ? 0 : ctx.liftBit[at]!;
+      },
+      openAt: (u) => planSet.has(u) && !isRestWeek(x.ath, u) && x.board.at(u, slot) === undefined,
+    };
+    if (balancedLifts(view, w, ctx.liftBit[v]!) !== 0) return null;
+    const missing = LIFTS.filter((l, i) => facts.required & (1 << i) && l !== ctx.variants[v]!.lift);
+    const slotDef = ctx.slotList[slot]!;
+    return `lift balance: the ${slotDef.id} slot should hold ${slotDef.lifts.join(' and ')} in any ${W.weeks(ctx.liftBalanceWeeks)}; this leaves no week for ${missing.join(' or ')}`;
+  };
+
+  const warningsFor = (x: AthleteIndex, w: number, slot: number, v: number): string[] => {
+    const out = ruleWarnings(ctx, x.board, w, v);
+    const balance = balanceWarning(x, w, slot, v);
+    if (balance) out.push(balance);
+    const prev = slot >= 0 ? x.board.at(w - 1, slot) : undefined;
+    const emphasis = ctx.variants[v]!.emphasis;
+    if (prev !== undefined && emphasis && ctx.variants[prev]!.emphasis === emphasis) {
+      out.push(`same emphasis (${W.emphasisName(emphasis)}) as last week's ${ctx.slotList[slot]!.id} pick`);
     }
+    return out;
   };
 
   const rate = (athleteId: string, week: string, slotId: string, variantId: string): CandidateRating => {
     const x = get(athleteId);
     if (!x) return { status: 'clean', violations: [], warnings: [] };
-    const w = wn(week);
-    const slot = ctx.slots.get(slotId)?.idx ?? -1;
-    clear(x, w, slot, `${week}|${slotId}`);
-    try {
-      const violations = cellViolations(ctx, x.ath, x.board, week, slotId, variantId);
+    return withCellCleared(x, week, slotId, (w, slot) => {
+      const violations = breaksAt(ctx, x.ath, x.board, week, slotId, variantId);
       const v = ctx.byId.get(variantId);
-      const warnings = v === undefined ? [] : softWarnings(ctx, x.board, w, slotId, v);
+      const warnings = v === undefined ? [] : warningsFor(x, w, slot, v);
       const status = violations.length ? 'break' : warnings.length ? 'warning' : 'clean';
       return { status, violations, warnings };
-    } finally {
-      restore(x, w, slot);
-    }
+    });
   };
 
-  return { explain, rate };
-}
+  const input = newPreferenceInput();
+  const terms = new Float64Array(TERM_COUNT);
+  /** The last cell scored: its family counts and specificity surplus, computed once for all variants. */
+  let scoredCell: { athleteId: string; key: string; familyPicks: Map<number, number>; surplus: number } | null = null;
+  const cellTotals = (x: AthleteIndex, athleteId: string, key: string, w: number, slot: number, facts: SlotFacts) => {
+    if (scoredCell && scoredCell.athleteId === athleteId && scoredCell.key === key) return scoredCell;
+    const familyPicks = new Map<number, number>();
+    let surplus = 0;
+    for (const u of planWeeks) {
+      const at = u === w ? undefined : x.board.at(u, slot);
+      if (at === undefined) continue;
+      familyPicks.set(ctx.family[at]!, (familyPicks.get(ctx.family[at]!) ?? 0) + 1);
+      if (!taperAt(ctx, x.ath, u)) surplus += ctx.specificity[at]! - facts.eligibleMean;
+    }
+    scoredCell = { athleteId, key, familyPicks, surplus };
+    return scoredCell;
+  };
 
-/** Not rule breaks, but worth a look: a joint near its budget, a window only just kept, no variety. */
-function softWarnings(ctx: Ctx, board: Board, w: number, slotId: string, v: number): string[] {
-  const out: string[] = [];
-  const x = ctx.variants[v]!;
-  for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
-    const k = ctx.sJ[t]!;
-    const b = board.busiest(k, w);
-    const total = b.load + ctx.sV[t]!;
-    const budget = ctx.budget[k]!;
-    if (budget > 0 && total <= budget + 1e-9 && total >= NEAR_BUDGET * budget - 1e-9) {
-      const span = W.span(ws(b.start), ws(b.start + ctx.J - 1));
-      out.push(
-        `${W.jointLoad(JOINTS[k]!)} would reach ${W.num(total)} of ${W.num(budget)} (${W.pct(total / budget)}) in ${span}`,
-      );
-    }
-  }
-  if (ctx.R > 1) {
-    const u = nearest(board.vUses[v], w, ctx.R + 2);
-    if (u !== undefined && Math.abs(u - w) >= ctx.R) {
-      out.push(`${x.name} is also in ${ws(u)}, just outside the ${ctx.R}-week repeat window`);
-    }
-  }
-  if (ctx.F > 0) {
-    const u = nearest(board.fUses[ctx.fam[v]!], w, ctx.F + 2);
-    if (u !== undefined && Math.abs(u - w) >= ctx.F) {
-      out.push(`the ${x.family} family is also in ${ws(u)}, just outside its ${ctx.F}-week window`);
-    }
-  }
-  const slot = ctx.slots.get(slotId);
-  const prev = slot ? board.at(w - 1, slot.idx) : undefined;
-  if (prev !== undefined && x.emphasis && ctx.variants[prev]!.emphasis === x.emphasis) {
-    out.push(`same emphasis (${W.emphasisName(x.emphasis)}) as last week's ${slotId} pick`);
-  }
-  return out;
+  const score = (athleteId: string, week: string, slotId: string, variantId: string): number => {
+    const x = get(athleteId);
+    const v = ctx.byId.get(variantId);
+    const slotInfo = ctx.slots.get(slotId);
+    if (!x || v === undefined || !slotInfo) return Infinity;
+    return withCellCleared(x, week, slotId, (w, slot) => {
+      const facts = factsOf(x, slot);
+      const totals = cellTotals(x, athleteId, `${week}|${slotId}`, w, slot, facts);
+      const familyLast = lastBefore(x.board.familyUses[ctx.family[v]!], w);
+      const variantLast = lastBefore(x.board.variantUses[v], w);
+      let ratio = 0;
+      for (let t = ctx.stressStart[v]!; t < ctx.stressStart[v + 1]!; t++) {
+        const k = ctx.stressJoint[t]!;
+        const b = ctx.budget[k]!;
+        if (b > 0) ratio = Math.max(ratio, (x.board.busiest(k, w).load + ctx.stressValue[t]!) / b);
+      }
+      const before = x.board.at(w - 1, slot) ?? -1;
+      const after = x.board.at(w + 1, slot) ?? -1;
+      input.familyGap = familyLast === undefined ? Infinity : w - familyLast;
+      input.variantGap = variantLast === undefined ? Infinity : w - variantLast;
+      input.loadRatio = ratio;
+      input.comfortRatio = ctx.comfortRatio;
+      input.familyPicks = totals.familyPicks.get(ctx.family[v]!) ?? 0;
+      input.fairShare = fairShareOf(facts.weeks, facts.eligibleFamilies);
+      input.taper = taperAt(ctx, x.ath, w) !== null;
+      input.specificity = ctx.specificity[v]!;
+      input.eligibleMean = facts.eligibleMean;
+      input.surplus = totals.surplus;
+      input.emphasis = ctx.emphasis[v]!;
+      input.emphasisBefore = before < 0 ? -1 : ctx.emphasis[before]!;
+      input.emphasisAfter = after < 0 ? -1 : ctx.emphasis[after]!;
+      input.bar = ctx.bar[v]!;
+      input.barBefore = before < 0 ? -1 : ctx.bar[before]!;
+      input.barAfter = after < 0 ? -1 : ctx.bar[after]!;
+      input.noise = 0;
+      return -preference(input, terms);
+    });
+  };
+
+  return { explain, rate, score };
 }
 
 const prepared = new WeakMap<PlanRequest, { key: unknown[]; value: CandidateChecks }>();
 
-/** What would break if variantId were put in the cell; reuses the prepared checks of the request. */
-export function explainCandidate(
-  req: PlanRequest,
-  athleteId: string,
-  week: string,
-  slotId: string,
-  variantId: string,
-): Violation[] {
+function checksFor(req: PlanRequest): CandidateChecks {
   const key = [
     req.planned,
     req.planned?.length,
@@ -176,6 +282,32 @@ export function explainCandidate(
     req.variants.length,
     req.rules,
     req.slots,
+    req.weeks,
   ];
-  return memo(prepared, req, key, () => prepareCandidateChecks(req)).explain(athleteId, week, slotId, variantId);
+  return memo(prepared, req, key, () => prepareCandidateChecks(req));
+}
+
+/** What would break if variantId were put in the cell; reuses the prepared checks of the request. */
+export function explainCandidate(
+  req: PlanRequest,
+  athleteId: string,
+  week: string,
+  slotId: string,
+  variantId: string,
+): Violation[] {
+  return checksFor(req).explain(athleteId, week, slotId, variantId);
+}
+
+/**
+ * The planner's soft-goal preference for variantId in the cell given everything else (lower =
+ * preferred); reuses the prepared checks of the request, so scoring a whole library for one cell is cheap.
+ */
+export function candidateScore(
+  req: PlanRequest,
+  athleteId: string,
+  week: string,
+  slotId: string,
+  variantId: string,
+): number {
+  return checksFor(req).score(athleteId, week, slotId, variantId);
 }

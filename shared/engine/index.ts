@@ -7,6 +7,7 @@ export * from './weeks';
 export { generatePlan } from './plan';
 export { checkPlan } from './check';
 export {
+  candidateScore,
   explainCandidate,
   prepareCandidateChecks,
   NEAR_BUDGET,

@@ -1,6 +1,6 @@
 // Rolling joint loads for the board's joint-load strip and for judging plans by their peak load ratio.
 
-import { Board, addAll, ctxFor, entriesOf, rangeOf, wn, type Ctx } from './core';
+import { Board, addAll, ctxFor, entriesOf, rangeOf, weekNum, type Ctx } from './core';
 import { peakOf, ratioOf } from './search';
 import { JOINTS, type Joint, type PlanEntry, type PlanRequest } from './types';
 
@@ -33,12 +33,12 @@ export function jointLoadSeries(
   entries: PlanEntry[],
 ): JointLoadPoint[] {
   const ctx = ctxFor(req);
-  const nums = weeks.map(wn);
+  const nums = weeks.map(weekNum);
   const board = boardOf(ctx, athleteId, nums, entries);
   const out: JointLoadPoint[] = [];
   weeks.forEach((week, i) => {
     for (const k of ctx.budgeted) {
-      const load = board.spanLoad(k, nums[i]! - ctx.J + 1);
+      const load = board.spanLoad(k, nums[i]! - ctx.jointWindow + 1);
       const budget = ctx.budget[k]!;
       out.push({ week, joint: JOINTS[k]!, load, budget, ratio: ratioOf(load, budget) });
     }
@@ -58,6 +58,6 @@ export function peakLoadRatio(
 ): number {
   const ctx = ctxFor(req);
   if (weeks.length === 0) return 0;
-  const nums = weeks.map(wn);
+  const nums = weeks.map(weekNum);
   return peakOf(ctx, boardOf(ctx, athleteId, nums, entries), Math.min(...nums), Math.max(...nums));
 }

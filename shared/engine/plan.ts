@@ -1,10 +1,11 @@
 // generatePlan: keeps pinned and still-valid board entries, replaces the rest and fills the open
-// cells, athlete by athlete, each from its own seeded stream.
+// cells, athlete by athlete, each from its own seeded stream. Rest weeks are left empty.
 
-import { Board, addAll, buildAth, cellViolations, ctxFor, entriesOf, rangeOf, wn, type Ath, type Ctx } from './core';
+import { Board, addAll, buildAth, ctxFor, entriesOf, rangeOf, weekNum, type Ath, type Ctx } from './core';
 import { keptReasons, pickReasons, pinnedReasons, swapReason } from './reasons';
 import { athleteRng } from './rng';
-import { Search, solve, type OpenCell, type Pick } from './search';
+import { breaksAt, isRestWeek } from './rules/index';
+import { Search, solve, type GoalsKept, type OpenCell, type Pick } from './search';
 import { RULE_IDS, type AthleteInput, type PlanEntry, type PlanRequest, type PlanResult, type RuleId } from './types';
 
 interface Dropped {
@@ -21,11 +22,12 @@ interface Dropped {
  *   removed entry and its rule in `dropped`; it is never kept as a silent break.
  * - Board entries outside the requested weeks or slots count toward the rules but are not returned.
  * - Of several board entries for one cell, the first pinned one (else the first) is the cell's entry.
+ * - In a rest week an unpinned board entry is removed (listed in `cleared`), a pinned one stays.
  */
 export function generatePlan(req: PlanRequest): PlanResult {
   const ctx = ctxFor(req);
   const weeks = [...new Set(req.weeks)];
-  weeks.forEach(wn);
+  weeks.forEach(weekNum);
   const result: PlanResult = { entries: [], unfilled: [], swaps: [], cleared: [] };
   const done = new Set<string>();
   for (const a of req.athletes) {
@@ -39,11 +41,11 @@ export function generatePlan(req: PlanRequest): PlanResult {
 function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: PlanResult): void {
   const ath = buildAth(ctx, input);
   const slots = ctx.slotList;
-  const S = slots.length;
-  const nums = weeks.map(wn);
+  const slotCount = slots.length;
+  const nums = weeks.map(weekNum);
   const weekIdx = new Map(weeks.map((w, i) => [w, i]));
   const planned = entriesOf(ctx.req.planned, input.id);
-  const atCell: (PlanEntry | undefined)[] = new Array(weeks.length * S);
+  const atCell: (PlanEntry | undefined)[] = new Array(weeks.length * slotCount);
   const context: PlanEntry[] = [];
   for (const e of planned) {
     const wi = weekIdx.get(e.week);
@@ -52,7 +54,7 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
       context.push(e);
       continue;
     }
-    const i = wi * S + slot.idx;
+    const i = wi * slotCount + slot.index;
     const cur = atCell[i];
     if (!cur || (!cur.pinned && e.pinned)) atCell[i] = e;
   }
@@ -63,15 +65,29 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
   const pinned = atCell.filter((e): e is PlanEntry => !!e?.pinned);
   addAll(ctx, board, pinned);
 
-  const kind: ('pinned' | 'kept' | 'open')[] = new Array(weeks.length * S).fill('open');
-  const dropped: (Dropped | undefined)[] = new Array(weeks.length * S);
+  const kind: CellKind[] = new Array(weeks.length * slotCount).fill('open');
+  const dropped: (Dropped | undefined)[] = new Array(weeks.length * slotCount);
+  for (let i = 0; i < kind.length; i++) {
+    if (isRestWeek(ath, nums[Math.floor(i / slotCount)]!) && !atCell[i]?.pinned) {
+      kind[i] = 'rest';
+      const e = atCell[i];
+      if (e)
+        result.cleared.push({
+          athleteId: input.id,
+          week: e.week,
+          slotId: e.slotId,
+          variantId: e.variantId,
+          rule: 'restWeek',
+        });
+    }
+  }
   atCell.forEach((e, i) => {
-    if (!e) return;
+    if (!e || kind[i] === 'rest') return;
     if (e.pinned) {
       kind[i] = 'pinned';
       return;
     }
-    const found = cellViolations(ctx, ath, board, e.week, e.slotId, e.variantId);
+    const found = breaksAt(ctx, ath, board, e.week, e.slotId, e.variantId);
     if (found.length === 0) {
       kind[i] = 'kept';
       addAll(ctx, board, [e]);
@@ -81,15 +97,17 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
   });
 
   const open: OpenCell[] = [];
-  for (let i = 0; i < weeks.length * S; i++) {
+  for (let i = 0; i < weeks.length * slotCount; i++) {
     if (kind[i] !== 'open') continue;
-    const wi = Math.floor(i / S);
-    open.push({ at: i, w: nums[wi]!, week: weeks[wi]!, slot: i % S, slotId: slots[i % S]!.id });
+    const wi = Math.floor(i / slotCount);
+    open.push({ at: i, w: nums[wi]!, week: weeks[wi]!, slot: i % slotCount, slotId: slots[i % slotCount]!.id });
   }
   const rng = athleteRng(ctx.req.rules.seed, input.id);
   const search = new Search(ctx, ath, board, open, Math.min(...nums), Math.max(...nums), rng);
   const cells = search.cells;
-  const sol = cells.length ? solve(search) : null;
+  const solved = cells.length ? solve(search, ctx) : null;
+  const sol = solved?.solution ?? null;
+  const kept: GoalsKept = solved?.kept ?? { comfort: false, balance: false };
 
   // Cell index (weeks × slots) → the variant chosen there and how it won.
   const chosen = new Map<number, { v: number; pick?: Pick }>();
@@ -107,8 +125,10 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
     search.commit(cell, best.v);
     chosen.set(cell.at, best);
   }
-  emit(ctx, ath, board, weeks, nums, atCell, kind, dropped, chosen, result);
+  emit(ctx, ath, board, weeks, nums, atCell, kind, dropped, chosen, kept, search, result);
 }
+
+type CellKind = 'pinned' | 'kept' | 'open' | 'rest';
 
 function emit(
   ctx: Ctx,
@@ -117,23 +137,26 @@ function emit(
   weeks: string[],
   nums: number[],
   atCell: (PlanEntry | undefined)[],
-  kind: ('pinned' | 'kept' | 'open')[],
+  kind: CellKind[],
   dropped: (Dropped | undefined)[],
   chosen: Map<number, { v: number; pick?: Pick }>,
+  kept: GoalsKept,
+  search: Search,
   result: PlanResult,
 ): void {
   const athleteId = ath.input.id;
-  const S = ctx.slotList.length;
-  for (let i = 0; i < weeks.length * S; i++) {
-    const week = weeks[Math.floor(i / S)]!;
-    const w = nums[Math.floor(i / S)]!;
-    const slot = i % S;
+  const slotCount = ctx.slotList.length;
+  for (let i = 0; i < weeks.length * slotCount; i++) {
+    if (kind[i] === 'rest') continue;
+    const week = weeks[Math.floor(i / slotCount)]!;
+    const w = nums[Math.floor(i / slotCount)]!;
+    const slot = i % slotCount;
     const slotId = ctx.slotList[slot]!.id;
     const e = atCell[i];
     if (kind[i] === 'pinned' && e) {
       const v = ctx.byId.get(e.variantId);
       if (v !== undefined) board.add(w, v, slot, -1);
-      const found = cellViolations(ctx, ath, board, week, slotId, e.variantId);
+      const found = breaksAt(ctx, ath, board, week, slotId, e.variantId);
       if (v !== undefined) board.add(w, v, slot, 1);
       result.entries.push({
         athleteId,
@@ -154,7 +177,10 @@ function emit(
     const gone = dropped[i];
     if (got) {
       const variantId = ctx.variants[got.v]!.id;
-      const reasons = pickReasons(ctx, ath, board, w, slot, got.v, got.pick);
+      const reasons = pickReasons(ctx, ath, board, w, slot, got.v, got.pick, {
+        comfort: kept.comfort,
+        balance: kept.balance && search.balance[slot] !== null,
+      });
       if (gone) {
         reasons.unshift(swapReason(ctx, gone.variantId, gone.message));
         result.swaps.push({ athleteId, week, slotId, from: gone.variantId, to: variantId, rule: gone.rule });
@@ -174,11 +200,11 @@ function emit(
 
 /** The rules that rule out every variant of a fitting lift (or liftMismatch when none fits the slot). */
 function blockedBy(ctx: Ctx, ath: Ath, board: Board, week: string, slotId: string): RuleId[] {
-  const mask = ctx.slots.get(slotId)!.mask;
+  const mask = ctx.slots.get(slotId)!.liftMask;
   const rules = new Set<RuleId>();
   ctx.variants.forEach((x, v) => {
     if ((ctx.liftBit[v]! & mask) === 0) return;
-    for (const f of cellViolations(ctx, ath, board, week, slotId, x.id)) rules.add(f.rule);
+    for (const f of breaksAt(ctx, ath, board, week, slotId, x.id)) rules.add(f.rule);
   });
   if (rules.size === 0) rules.add('liftMismatch');
   return RULE_IDS.filter((r) => rules.has(r));

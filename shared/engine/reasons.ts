@@ -1,29 +1,43 @@
-// Why each cell of a generated plan holds what it holds, in a coach's words and with the numbers.
+// Why each cell of a generated plan holds what it holds, in a coach's words and with the numbers: first
+// the goal that decided against the runner-up, then the facts (recency, load, taper, changes).
 
-import { type Ath, type Board, type Ctx, lastBefore, specText, taperAt, ws } from './core';
+import { lastBefore, specText, type Ath, type Board, type Ctx } from './core';
+import { family, jointBudget, meetPhase, repeat, taperSpecificity } from './rules/index';
 import type { Pick } from './search';
-import { JOINTS, type Violation } from './types';
+import type { Violation } from './types';
 import * as W from './words';
 
-function ago(gap: number | undefined): string {
-  return gap === undefined ? 'not used before' : `${W.weeks(gap)} ago`;
+/** The soft goals a plan keeps, as they apply to one cell. */
+export interface CellGoals {
+  comfort: boolean;
+  balance: boolean;
 }
 
-/** The busiest span around week w on the joint the variant loads most, against its budget. */
-export function loadReason(ctx: Ctx, board: Board, w: number, v: number): string | null {
-  if (ctx.budgeted.length === 0) return null;
-  let top: { k: number; load: number; start: number; ratio: number } | null = null;
-  for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
-    const k = ctx.sJ[t]!;
-    const b = board.busiest(k, w);
-    const budget = ctx.budget[k]!;
-    const ratio = budget > 0 ? b.load / budget : Infinity;
-    if (!top || ratio > top.ratio) top = { k, load: b.load, start: b.start, ratio };
+/** The first reason line: which goal made this pick win over the runner-up. */
+function decidedLine(ctx: Ctx, slot: number, v: number, pick: Pick | undefined, taper: boolean): string | null {
+  if (!pick) return null;
+  if (pick.runnerUp < 0) return pick.candidates === 1 ? 'the only variant that fits here' : null;
+  const x = ctx.variants[v]!;
+  const other = ctx.variants[pick.runnerUp]!;
+  const slotId = ctx.slotList[slot]!.id;
+  switch (pick.decided) {
+    case 'comfort':
+      return `chosen for comfort: lighter on the joints than ${other.name}, as no plan keeps every joint under ${W.pct(ctx.comfortRatio)} of budget`;
+    case 'fairShare':
+      return `chosen for variety: the ${other.family} family already has its fair share of ${slotId} picks`;
+    case 'familyRecency':
+      return `chosen for variety: the ${x.family} family was used less recently than ${other.family}`;
+    case 'variantRecency':
+      return `chosen for variety: done less recently than ${other.name}`;
+    case 'specificity':
+      return taper
+        ? `chosen for effect: more specific for the meet (${specText(x.specificity)}) than ${other.name} (${specText(other.specificity)})`
+        : `chosen for effect: specificity ${specText(x.specificity)} keeps the ${slotId} picks' mean at or above the library's`;
+    case 'vary':
+      return 'chosen for effect: varies emphasis or bar from the weeks around it';
+    default:
+      return `chosen by the seeded tie-break between equal choices (${other.name} was as good)`;
   }
-  if (!top) return 'adds no load to any budgeted joint';
-  const span = W.span(ws(top.start), ws(top.start + ctx.J - 1));
-  const share = Number.isFinite(top.ratio) ? ` (${W.pct(top.ratio)})` : '';
-  return `${W.jointLoad(JOINTS[top.k]!)} ${W.num(top.load)} of ${W.num(ctx.budget[top.k]!)} in ${span}${share}`;
 }
 
 /** Reasons for a variant the engine picked, read off the finished board. */
@@ -34,27 +48,30 @@ export function pickReasons(
   w: number,
   slot: number,
   v: number,
-  pick?: Pick,
+  pick: Pick | undefined,
+  goals: CellGoals,
 ): string[] {
   const x = ctx.variants[v]!;
   const out: string[] = [];
-  const famGap = gapOf(lastBefore(board.fUses[ctx.fam[v]!], w), w);
+  const taperLine = taperSpecificity.reason!(ctx, ath, w, v);
+  const decided = decidedLine(ctx, slot, v, pick, taperLine !== null);
+  if (decided) out.push(decided);
+  const familyGap = gapOf(lastBefore(board.familyUses[ctx.family[v]!], w), w);
   // "Least recently used" was true among the candidates at pick time; a later pick may have changed it.
-  out.push(
-    pick?.leastFam && (famGap ?? Infinity) === pick.famGap
-      ? `least recently used ${x.family} family (${ago(famGap)})`
-      : `${x.family} family last used ${ago(famGap)}`,
-  );
-  const varGap = gapOf(lastBefore(board.vUses[v], w), w);
-  out.push(varGap === undefined ? `${x.name} not done before` : `${x.name} last done ${ago(varGap)}`);
-  const load = loadReason(ctx, board, w, v);
+  const leastRecent = !!pick?.leastRecentFamily && (familyGap ?? Infinity) === pick.familyGap;
+  out.push(family.reason(ctx, v, familyGap, leastRecent));
+  out.push(repeat.reason(ctx, v, gapOf(lastBefore(board.variantUses[v], w), w), false));
+  const load = jointBudget.reason(ctx, board, w, v);
   if (load) out.push(load);
-  const taper = taperAt(ctx, ath, w);
-  if (taper) {
-    const min = Number.isFinite(taper.minSpec) ? ` (at least ${specText(taper.minSpec)})` : '';
-    const max = Number.isFinite(taper.maxRisk) ? ` (at most ${taper.maxRisk})` : '';
-    out.push(`${W.meetDistance(taper.d)}: specificity ${specText(x.specificity)}${min}, risk ${x.risk}${max}`);
+  if (goals.comfort && ctx.budgeted.length > 0)
+    out.push(`comfort: every joint stays at or under ${W.pct(ctx.comfortRatio)} of its budget`);
+  if (goals.balance) {
+    const lifts = ctx.slotList[slot]!.lifts.join(' and ');
+    out.push(`lift balance: ${lifts} each at least once in any ${W.weeks(ctx.liftBalanceWeeks)}`);
   }
+  if (taperLine) out.push(taperLine);
+  const phase = meetPhase.reason!(ctx, ath, w, v);
+  if (phase) out.push(phase);
   const prev = board.at(w - 1, slot);
   if (prev !== undefined) {
     const p = ctx.variants[prev]!;
@@ -71,7 +88,7 @@ function gapOf(last: number | undefined, w: number): number | undefined {
 }
 
 export function keptReasons(ctx: Ctx, board: Board, w: number, v: number): string[] {
-  const load = loadReason(ctx, board, w, v);
+  const load = jointBudget.reason(ctx, board, w, v);
   return ['kept from the board: still within every rule', ...(load ? [load] : [])];
 }
 

@@ -1,11 +1,23 @@
 // The per-athlete planner: depth-first search over the open cells (tightest first, then week order)
-// with forward checking and a joint-load lower bound, first for a complete rule-clean plan, then for
-// lower peak load ratios.
+// with forward checking and a joint-load lower bound. It looks first for a complete rule-clean plan that
+// keeps every joint under the comfort line and every multi-lift slot in lift balance, and gives those
+// goals up in that order only when no such plan is found; among the candidates of a cell it follows the
+// variety and effect score of ./goals.
 
-import { EPS, NJ, type Ath, type Board, type Ctx, lastBefore, taperAt } from './core';
+import { EPS, JOINT_COUNT, lastBefore, taperAt, type Ath, type Board, type Ctx } from './core';
+import {
+  TERM_COUNT,
+  balancedLifts,
+  bitCount,
+  decidingTerm,
+  fairShareOf,
+  newPreferenceInput,
+  preference,
+  type BalanceView,
+  type Term,
+} from './goals';
+import { WINDOW_RULES, blockedIn, budgetCaps, type WindowRule } from './rules/index';
 
-/** Recency counts up to half a year; older or never used rank alike (then noise and variety decide). */
-const GAP_CAP = 26;
 /** Effort bounds, in candidate evaluations, per athlete (not per request, so athletes stay independent). */
 export const EFFORT = {
   /** Complete (40 per domain entry) and partial (2 per entry) searches, in candidate evaluations. */
@@ -36,17 +48,22 @@ export interface OpenCell {
 }
 
 export interface Cell extends OpenCell {
-  dom: number[]; // variants the static rules and the fixed entries allow
-  jit: number[]; // seeded noise per domain variant, for ties and reshuffles
-  minS: number[]; // per joint, the least stress any domain variant adds
+  domain: number[]; // variants the cell rules and the fixed entries allow
+  noise: number[]; // seeded noise per domain variant, for ties and reshuffles
+  minStress: number[]; // per joint, the least stress any domain variant adds
   taper: boolean;
 }
 
+/** How a pick won, for its reasons. */
 export interface Pick {
-  famGap: number; // weeks since the family was last used before this week (Infinity: never)
-  leastFam: boolean; // no valid candidate's family was less recently used
-  varGap: number;
-  leastVar: boolean;
+  familyGap: number; // weeks since the family was last used before this week (Infinity: never)
+  leastRecentFamily: boolean; // no valid candidate's family was less recently used
+  variantGap: number;
+  /** The goal on which the pick beat the runner-up, and the runner-up (−1: it was the only candidate). */
+  decided: Term | null;
+  runnerUp: number;
+  /** How many valid candidates the cell had (0: not counted). */
+  candidates: number;
 }
 
 export interface Solution {
@@ -56,39 +73,57 @@ export interface Solution {
   empties: number;
 }
 
-const ZERO = zeros(NJ);
-
-/** Variety bonus: full when two tags differ, half when either is unknown (−1), none when equal. */
-function differs(a: number, b: number, full: number): number {
-  if (a < 0 || b < 0) return full / 2;
-  return a === b ? 0 : full;
+/** Which soft goals a plan was found to keep. */
+export interface GoalsKept {
+  comfort: boolean;
+  balance: boolean;
 }
 
+const NO_STRESS = zeros(JOINT_COUNT);
+const CELL_KEY = 1024;
+
 export class Search {
-  private readonly n: number;
-  private readonly lb: number[][];
+  private readonly cellCount: number;
+  /** The board's load plus, per open cell, the least stress it may add (the joint-load lower bound). */
+  private readonly boundLoad: number[][];
   private cap: number[];
-  private readonly full: number[];
-  private useMin = true;
+  private readonly fullCaps: number[];
+  private useMinStress = true;
   private partial = false;
+  private balanceOn = false;
   private limit = 0;
   aborted = false;
+  /** Effort spent by the last run. */
+  lastRunWork = 0;
   private order: number[] = [];
   /** Per cell, how often the search found it left with nothing: the first to give up when stuck. */
   readonly wipe: number[];
-  private readonly famLast: number[];
+  private readonly familyLast: number[];
   work = 0;
   private empties = 0;
   private bestEmpties = Infinity;
   private readonly assign: number[];
   private readonly picks: (Pick | undefined)[];
-  private readonly mBuf: number[][];
-  private readonly fBuf = zeros(NJ);
+  private readonly spanBuffers: number[][];
+  private readonly aliveBuffer = zeros(JOINT_COUNT);
   best: Solution | null = null;
-  private readonly vBlock: number[];
-  private readonly fBlock: number[];
-  private famGap = 0;
-  private varGap = 0;
+  /** Per window rule, per planned week × item: how many entries keep the item out of that week. */
+  private readonly blocked: { rule: WindowRule; window: number; items: number; itemOf: Int32Array; counts: number[] }[];
+  private familyGap = 0;
+  private variantGap = 0;
+  private readonly input = newPreferenceInput();
+  private readonly terms = new Float64Array(TERM_COUNT);
+  private readonly otherTerms = new Float64Array(TERM_COUNT);
+  /** Per slot × family: picks in the planned weeks (fixed and searched); per slot: the fair share. */
+  private readonly familyPicks: number[];
+  private readonly fairShare: number[];
+  /** Per slot: mean specificity of the eligible variants outside taper weeks, and the picks' surplus over it. */
+  private readonly eligibleMean: number[];
+  private readonly surplus: number[];
+  /** Per slot, the lift-balance view (null: the goal does not apply to the slot). */
+  readonly balance: (BalanceView | null)[];
+  private readonly openAt = new Map<number, number>();
+  private readonly horizon: number;
 
   readonly cells: Cell[];
   /** Cells with few candidates first, then week order (see the constructor). */
@@ -104,57 +139,100 @@ export class Search {
     private readonly last: number,
     rng: () => number,
   ) {
-    this.lb = board.load.map((a) => zeros(a.length));
-    this.full = this.budgetCaps(1, false);
-    this.cap = this.full;
+    this.boundLoad = board.load.map((a) => zeros(a.length));
+    this.fullCaps = budgetCaps(ctx, 1);
+    this.cap = this.fullCaps;
     const weeks = open.length ? last - first + 1 : 0;
-    this.vBlock = zeros(weeks * ctx.variants.length);
-    this.fBlock = zeros(weeks * ctx.famNames.length);
-    board.vUses.forEach((uses, v) => {
-      for (const u of uses) this.block(this.vBlock, ctx.variants.length, v, u, ctx.R, 1);
+    this.blocked = WINDOW_RULES.map((rule) => {
+      const items = rule.itemCount(ctx);
+      const entry = { rule, window: rule.window(ctx), items, itemOf: rule.items(ctx), counts: zeros(weeks * items) };
+      for (let item = 0; item < items; item++) {
+        const uses = rule.uses(board, item);
+        if (uses) for (const u of uses) this.block(entry, item, u, 1);
+      }
+      return entry;
     });
-    board.fUses.forEach((uses, f) => {
-      for (const u of uses) this.block(this.fBlock, ctx.famNames.length, f, u, ctx.F, 1);
+    const slotCount = ctx.slotList.length;
+    this.familyPicks = zeros(slotCount * ctx.familyNames.length);
+    this.fairShare = zeros(slotCount).fill(Infinity);
+    this.eligibleMean = zeros(slotCount);
+    this.surplus = zeros(slotCount);
+    const { cells, required } = this.domains(open, rng);
+    this.cells = cells;
+    this.cellCount = cells.length;
+    cells.forEach((c, i) => this.openAt.set(c.w * CELL_KEY + c.slot, i));
+    this.assign = zeros(this.cellCount).fill(-1);
+    this.picks = new Array<Pick | undefined>(this.cellCount);
+    this.spanBuffers = cells.map(() => zeros(JOINT_COUNT));
+    this.wipe = zeros(this.cellCount);
+    this.familyLast = zeros(ctx.familyNames.length);
+    this.balance = ctx.slotList.map((_, slot) => {
+      if (ctx.liftBalanceWeeks < 1 || bitCount(required[slot]!) < 2) return null;
+      return {
+        span: ctx.liftBalanceWeeks,
+        required: required[slot]!,
+        planFirst: first,
+        planLast: last,
+        liftAt: (w: number) => {
+          const v = board.at(w, slot);
+          return v === undefined ? 0 : ctx.liftBit[v]!;
+        },
+        openAt: (w: number) => {
+          const i = this.openAt.get(w * CELL_KEY + slot);
+          return i !== undefined && this.assign[i]! < 0;
+        },
+      };
     });
-    this.cells = this.domains(open, rng);
-    this.n = this.cells.length;
-    this.assign = zeros(this.n).fill(-1);
-    this.picks = new Array<Pick | undefined>(this.n);
-    this.mBuf = this.cells.map(() => zeros(NJ));
-    this.wipe = zeros(this.n);
-    this.famLast = zeros(ctx.famNames.length);
+    this.horizon = Math.max(ctx.repeatWindow, ctx.familyWindow, ctx.jointWindow, ctx.liftBalanceWeeks);
     // Cells with few candidates first (tightest first), so that a corner is found before effort goes
     // into the weeks around it; the rest in week order, which suits the recency and variety goals.
-    const tight = 2 * Math.max(ctx.R, ctx.F, 1);
-    const rank = (c: Cell) => (c.dom.length <= tight ? c.dom.length : Infinity);
+    const tight = 2 * Math.max(ctx.repeatWindow, ctx.familyWindow, 1);
+    const rank = (c: Cell) => (c.domain.length <= tight ? c.domain.length : Infinity);
     this.searchOrder = this.cells.map((_, i) => i).sort((a, b) => rank(this.cells[a]!) - rank(this.cells[b]!) || a - b);
   }
 
-  private domains(open: OpenCell[], rng: () => number): Cell[] {
+  /** Whether some slot has the lift-balance goal. */
+  get hasBalance(): boolean {
+    return this.balance.some((b) => b !== null);
+  }
+
+  /**
+   * Each open cell's candidates (the cell rules, then the fixed entries), and per slot the goals' facts:
+   * the lifts with an eligible variant, the eligible families and mean specificity, the fair share.
+   */
+  private domains(open: OpenCell[], rng: () => number): { cells: Cell[]; required: number[] } {
     const ctx = this.ctx;
+    const slotCount = ctx.slotList.length;
     const cells: Cell[] = [];
-    const m = zeros(NJ);
+    const spanMax = zeros(JOINT_COUNT);
+    const count = ctx.variants.length;
+    // Per slot × variant: 1 eligible in some open cell, 2 also outside taper weeks.
+    const eligible = zeros(slotCount * count);
+    const weeksOfSlot = zeros(slotCount);
+    const required = zeros(slotCount);
     for (const o of open) {
+      weeksOfSlot[o.slot]!++;
+      const blocked = blockedIn(ctx, this.ath, o.w);
       const taper = taperAt(ctx, this.ath, o.w);
-      const maxRisk = taper ? taper.maxRisk : Infinity;
-      const minSpec = taper ? taper.minSpec - EPS : -Infinity;
-      this.spanMaxes(this.board.load, o.w, m);
-      const list = ctx.bySlot[o.slot]!;
-      const block = this.ath.block;
-      const dom = zeros(list.length);
+      this.spanMaxes(this.board.load, o.w, spanMax);
+      const list = ctx.slotVariants[o.slot]!;
+      const domain = zeros(list.length);
       let n = 0;
-      // The slot's list already matches its lifts; the rest of the static rules, then the fixed entries.
       for (let i = 0; i < list.length; i++) {
         const v = list[i]!;
-        if (block[v] !== 0 || ctx.risk[v]! > maxRisk || ctx.spec[v]! < minSpec) continue;
-        if (this.valid(v, o.w, m, ZERO)) dom[n++] = v;
+        if (blocked && blocked[v]) continue;
+        const at = o.slot * count + v;
+        if (!taper) eligible[at] = 2;
+        else if (eligible[at] === 0) eligible[at] = 1;
+        required[o.slot]! |= ctx.liftBit[v]!;
+        if (this.valid(v, o.w, spanMax, NO_STRESS)) domain[n++] = v;
       }
       if (n === 0) continue;
-      const minS = zeros(NJ);
+      const minStress = zeros(JOINT_COUNT);
       for (const k of ctx.budgeted) {
-        let mk = Infinity;
-        for (let i = 0; i < n && mk > 0; i++) mk = Math.min(mk, ctx.stress[dom[i]! * NJ + k]!);
-        minS[k] = mk;
+        let least = Infinity;
+        for (let i = 0; i < n && least > 0; i++) least = Math.min(least, ctx.stress[domain[i]! * JOINT_COUNT + k]!);
+        minStress[k] = least;
       }
       cells.push({
         at: o.at,
@@ -162,45 +240,58 @@ export class Search {
         week: o.week,
         slot: o.slot,
         slotId: o.slotId,
-        dom: dom.slice(0, n),
-        jit: noise(rng, n),
-        minS,
+        domain: domain.slice(0, n),
+        noise: noise(rng, n),
+        minStress,
         taper: taper !== null,
       });
     }
-    return cells;
-  }
-
-  /** Counts, per planned week, the entries that keep item i (a variant or a family) out of it. */
-  private block(arr: number[], stride: number, i: number, u: number, window: number, sign: 1 | -1): void {
-    const from = Math.max(this.first, u - window + 1);
-    const to = Math.min(this.last, u + window - 1);
-    for (let x = from; x <= to; x++) arr[(x - this.first) * stride + i]! += sign;
-  }
-
-  /** Per-joint caps at ratio t of the budget; `strict` asks for loads below t × budget. */
-  budgetCaps(t: number, strict: boolean): number[] {
-    const cap = zeros(NJ).fill(Infinity);
-    for (const k of this.ctx.budgeted) {
-      const b = this.ctx.budget[k]!;
-      cap[k] = b === 0 ? 0 : Math.min(b, Math.max(0, t * b - (strict ? 1e-7 : 0)));
+    for (let slot = 0; slot < slotCount; slot++) {
+      const families = new Set<number>();
+      let sum = 0;
+      let outsideTaper = 0;
+      for (const v of ctx.slotVariants[slot]!) {
+        const mark = eligible[slot * count + v]!;
+        if (mark === 0) continue;
+        families.add(ctx.family[v]!);
+        if (mark === 2) {
+          sum += ctx.specificity[v]!;
+          outsideTaper++;
+        }
+      }
+      // The slot's cells in the planned weeks: the open ones and those the board already fills.
+      for (let w = this.first; w <= this.last && open.length; w++) {
+        const v = this.board.at(w, slot);
+        if (v === undefined) continue;
+        weeksOfSlot[slot]!++;
+        this.familyPicks[slot * ctx.familyNames.length + ctx.family[v]!]!++;
+      }
+      this.fairShare[slot] = fairShareOf(weeksOfSlot[slot]!, families.size);
+      this.eligibleMean[slot] = outsideTaper ? sum / outsideTaper : 0;
     }
-    return cap;
+    return { cells, required };
   }
 
-  /** Largest summed stress of the spans holding week w, per budgeted joint, from array set `arr`. */
-  private spanMaxes(arr: number[][], w: number, out: number[]): void {
-    const J = this.ctx.J;
-    const lo = this.board.lo;
+  /** Counts, per planned week, the entries that keep `item` out of it under one window rule. */
+  private block(entry: (typeof this.blocked)[number], item: number, u: number, sign: 1 | -1): void {
+    const from = Math.max(this.first, u - entry.window + 1);
+    const to = Math.min(this.last, u + entry.window - 1);
+    for (let x = from; x <= to; x++) entry.counts[(x - this.first) * entry.items + item]! += sign;
+  }
+
+  /** Largest summed stress of the spans holding week w, per budgeted joint, from array set `loads`. */
+  private spanMaxes(loads: number[][], w: number, out: number[]): void {
+    const span = this.ctx.jointWindow;
+    const base = this.board.first;
     for (const k of this.ctx.budgeted) {
-      const a = arr[k]!;
-      // Week w − J + 1 … w + J − 1 as indexes into a; outside the array the load is 0.
-      const from = w - J + 1 - lo;
+      const a = loads[k]!;
+      // Week w − span + 1 … w + span − 1 as indexes into a; outside the array the load is 0.
+      const from = w - span + 1 - base;
       let s = 0;
-      for (let i = from; i < from + J; i++) if (i >= 0 && i < a.length) s += a[i]!;
+      for (let i = from; i < from + span; i++) if (i >= 0 && i < a.length) s += a[i]!;
       let best = s;
-      for (let i = from + 1; i <= w - lo; i++) {
-        const add = i + J - 1;
+      for (let i = from + 1; i <= w - base; i++) {
+        const add = i + span - 1;
         if (add >= 0 && add < a.length) s += a[add]!;
         if (i - 1 >= 0 && i - 1 < a.length) s -= a[i - 1]!;
         if (s > best) best = s;
@@ -209,67 +300,100 @@ export class Search {
     }
   }
 
-  /** The hard rules that depend on other entries, for variant v in a cell at week w. */
-  private valid(v: number, w: number, m: number[], mn: number[]): boolean {
+  /** The window rules and the joint caps (the rules that depend on other entries) for v at week w. */
+  private valid(v: number, w: number, spanMax: number[], minStress: number[]): boolean {
     const ctx = this.ctx;
-    if (this.vBlock[(w - this.first) * ctx.variants.length + v] !== 0) return false;
-    if (this.fBlock[(w - this.first) * ctx.famNames.length + ctx.fam[v]!] !== 0) return false;
+    const week = w - this.first;
+    const blocked = this.blocked;
+    for (let r = 0; r < blocked.length; r++) {
+      const b = blocked[r]!;
+      if (b.counts[week * b.items + b.itemOf[v]!] !== 0) return false;
+    }
     const cap = this.cap;
-    for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
-      const k = ctx.sJ[t]!;
-      if (m[k]! + ctx.sV[t]! - mn[k]! > cap[k]! + EPS) return false;
+    for (let t = ctx.stressStart[v]!; t < ctx.stressStart[v + 1]!; t++) {
+      const k = ctx.stressJoint[t]!;
+      if (spanMax[k]! + ctx.stressValue[t]! - minStress[k]! > cap[k]! + EPS) return false;
     }
     return true;
   }
 
+  /** The lifts a pick in cell c may have under the lift-balance goal (all when it is off). */
+  private liftsAllowed(c: Cell): number {
+    const view = this.balanceOn ? this.balance[c.slot] : null;
+    return view ? balancedLifts(view, c.w, 7) : 7;
+  }
+
   /** For every family, the last week before w that used it (−Infinity: never), for score(). */
   private lastUses(w: number): void {
-    const fu = this.board.fUses;
-    for (let f = 0; f < this.famLast.length; f++) this.famLast[f] = lastBefore(fu[f], w) ?? -Infinity;
+    const uses = this.board.familyUses;
+    for (let f = 0; f < this.familyLast.length; f++) this.familyLast[f] = lastBefore(uses[f], w) ?? -Infinity;
   }
 
-  /** Soft-goal score of a valid candidate (higher is better); leaves its recency in famGap/varGap. */
-  private score(c: Cell, i: number, m: number[], mn: number[], prev: number, next: number): number {
+  /** Sets the parts of the score that are the same for every candidate of cell c (see score()). */
+  private scoreCell(c: Cell, before: number, after: number): void {
     const ctx = this.ctx;
-    const v = c.dom[i]!;
-    const lf = this.famLast[ctx.fam[v]!]!;
-    const lv = lastBefore(this.board.vUses[v], c.w);
-    this.famGap = c.w - lf;
-    this.varGap = lv === undefined ? Infinity : c.w - lv;
-    let s = 2 * Math.min(this.famGap, GAP_CAP + 1) + Math.min(this.varGap, GAP_CAP + 1);
-    if (c.taper) s += 8 * ctx.spec[v]!;
-    const e = ctx.emph[v]!;
-    const b = ctx.bar[v]!;
-    s += differs(e, prev < 0 ? -1 : ctx.emph[prev]!, 3) + differs(e, next < 0 ? -1 : ctx.emph[next]!, 1.5);
-    s += differs(b, prev < 0 ? -1 : ctx.bar[prev]!, 1.5) + differs(b, next < 0 ? -1 : ctx.bar[next]!, 0.75);
-    let ratio = 0;
-    for (let t = ctx.sOff[v]!; t < ctx.sOff[v + 1]!; t++) {
-      const k = ctx.sJ[t]!;
-      const b = ctx.budget[k]!;
-      if (b > 0) ratio = Math.max(ratio, (m[k]! + ctx.sV[t]! - mn[k]!) / b);
-    }
-    return s - 3 * ratio + 3 * c.jit[i]!;
+    const p = this.input;
+    p.comfortRatio = ctx.comfortRatio;
+    p.fairShare = this.fairShare[c.slot]!;
+    p.taper = c.taper;
+    p.eligibleMean = this.eligibleMean[c.slot]!;
+    p.surplus = this.surplus[c.slot]!;
+    p.emphasisBefore = before < 0 ? -1 : ctx.emphasis[before]!;
+    p.emphasisAfter = after < 0 ? -1 : ctx.emphasis[after]!;
+    p.barBefore = before < 0 ? -1 : ctx.bar[before]!;
+    p.barAfter = after < 0 ? -1 : ctx.bar[after]!;
   }
 
-  private apply(c: Cell, v: number, sign: 1 | -1, mn: number[]): void {
-    this.board.add(c.w, v, c.slot, sign);
-    this.block(this.vBlock, this.ctx.variants.length, v, c.w, this.ctx.R, sign);
-    this.block(this.fBlock, this.ctx.famNames.length, this.ctx.fam[v]!, c.w, this.ctx.F, sign);
-    const i = c.w - this.board.lo;
-    for (const k of this.ctx.budgeted) {
-      this.lb[k]![i]! += sign * (this.ctx.stress[v * NJ + k]! - mn[k]!);
+  /**
+   * Soft-goal score of a valid candidate (higher is better), after scoreCell() for its cell; leaves its
+   * recency in familyGap/variantGap.
+   */
+  private score(c: Cell, i: number, spanMax: number[], minStress: number[], terms = this.terms): number {
+    const ctx = this.ctx;
+    const v = c.domain[i]!;
+    const p = this.input;
+    const lastVariant = lastBefore(this.board.variantUses[v], c.w);
+    this.familyGap = c.w - this.familyLast[ctx.family[v]!]!;
+    this.variantGap = lastVariant === undefined ? Infinity : c.w - lastVariant;
+    let ratio = 0;
+    for (let t = ctx.stressStart[v]!; t < ctx.stressStart[v + 1]!; t++) {
+      const k = ctx.stressJoint[t]!;
+      const b = ctx.budget[k]!;
+      if (b > 0) ratio = Math.max(ratio, (spanMax[k]! + ctx.stressValue[t]! - minStress[k]!) / b);
     }
+    p.familyGap = this.familyGap;
+    p.variantGap = this.variantGap;
+    p.loadRatio = ratio;
+    p.familyPicks = this.familyPicks[c.slot * ctx.familyNames.length + ctx.family[v]!]!;
+    p.specificity = ctx.specificity[v]!;
+    p.emphasis = ctx.emphasis[v]!;
+    p.bar = ctx.bar[v]!;
+    p.noise = c.noise[i]!;
+    return preference(p, terms);
+  }
+
+  private apply(c: Cell, v: number, sign: 1 | -1, minStress: number[]): void {
+    const ctx = this.ctx;
+    this.board.add(c.w, v, c.slot, sign);
+    for (const b of this.blocked) this.block(b, b.itemOf[v]!, c.w, sign);
+    const i = c.w - this.board.first;
+    for (const k of ctx.budgeted) this.boundLoad[k]![i]! += sign * (ctx.stress[v * JOINT_COUNT + k]! - minStress[k]!);
+    this.familyPicks[c.slot * ctx.familyNames.length + ctx.family[v]!]! += sign;
+    if (!c.taper) this.surplus[c.slot]! += sign * (ctx.specificity[v]! - this.eligibleMean[c.slot]!);
   }
 
   /** Whether cell c still has a valid candidate. */
   private alive(c: Cell): boolean {
-    const m = this.fBuf;
-    this.spanMaxes(this.lb, c.w, m);
-    const mn = this.useMin ? c.minS : ZERO;
-    const dom = c.dom;
-    for (let i = 0; i < dom.length; i++) {
+    const spanMax = this.aliveBuffer;
+    this.spanMaxes(this.boundLoad, c.w, spanMax);
+    const minStress = this.useMinStress ? c.minStress : NO_STRESS;
+    const lifts = this.liftsAllowed(c);
+    if (lifts === 0) return false;
+    const domain = c.domain;
+    for (let i = 0; i < domain.length; i++) {
       this.work++;
-      if (this.valid(dom[i]!, c.w, m, mn)) return true;
+      const v = domain[i]!;
+      if (this.ctx.liftBit[v]! & lifts && this.valid(v, c.w, spanMax, minStress)) return true;
     }
     return false;
   }
@@ -277,11 +401,10 @@ export class Search {
   /** Number of open cells near cell k left without a candidate (complete mode stops at the first). */
   private forward(k: number): number {
     const w = this.cells[this.order[k]!]!.w;
-    const H = Math.max(this.ctx.R, this.ctx.F, this.ctx.J);
     let dead = 0;
     for (let q = k + 1; q < this.order.length; q++) {
       const c = this.cells[this.order[q]!]!;
-      if (c.w - w >= H || w - c.w >= H) continue;
+      if (c.w - w >= this.horizon || w - c.w >= this.horizon) continue;
       if (!this.alive(c)) {
         this.wipe[this.order[q]!]!++;
         dead++;
@@ -302,29 +425,30 @@ export class Search {
     }
     const ci = this.order[k]!;
     const c = this.cells[ci]!;
-    const m = this.mBuf[k]!;
-    this.spanMaxes(this.lb, c.w, m);
-    const mn = this.useMin ? c.minS : ZERO;
+    const spanMax = this.spanBuffers[k]!;
+    this.spanMaxes(this.boundLoad, c.w, spanMax);
+    const minStress = this.useMinStress ? c.minStress : NO_STRESS;
     this.lastUses(c.w);
-    const prev = this.board.at(c.w - 1, c.slot) ?? -1;
-    const next = this.board.at(c.w + 1, c.slot) ?? -1;
-    const dom = c.dom;
-    const nb = nodeBuf(k, dom.length);
-    let cnt = 0;
-    let maxFam = -1;
-    let maxVar = -1;
-    for (let i = 0; i < dom.length; i++) {
-      if (!this.valid(dom[i]!, c.w, m, mn)) continue;
-      nb.score[cnt] = this.score(c, i, m, mn, prev, next);
-      nb.cand[cnt] = dom[i]!;
-      nb.fam[cnt] = this.famGap;
-      nb.vari[cnt] = this.varGap;
-      if (this.famGap > maxFam) maxFam = this.famGap;
-      if (this.varGap > maxVar) maxVar = this.varGap;
-      cnt++;
+    const before = this.board.at(c.w - 1, c.slot) ?? -1;
+    const after = this.board.at(c.w + 1, c.slot) ?? -1;
+    const lifts = this.liftsAllowed(c);
+    this.scoreCell(c, before, after);
+    const domain = c.domain;
+    const nb = nodeBuffer(k, domain.length);
+    let count = 0;
+    let mostFamilyGap = -1;
+    for (let i = 0; i < domain.length; i++) {
+      const v = domain[i]!;
+      if (!(this.ctx.liftBit[v]! & lifts) || !this.valid(v, c.w, spanMax, minStress)) continue;
+      nb.score[count] = this.score(c, i, spanMax, minStress);
+      nb.index[count] = i;
+      nb.familyGap[count] = this.familyGap;
+      nb.variantGap[count] = this.variantGap;
+      if (this.familyGap > mostFamilyGap) mostFamilyGap = this.familyGap;
+      count++;
     }
-    this.work += dom.length;
-    const sc = nb.score;
+    this.work += domain.length;
+    const scores = nb.score;
     // Without a complete plan, picks that leave a nearby cell with nothing are tried last: first every
     // candidate that costs no other cell (best score first), then the deferred ones in score order.
     const deadBefore = this.partial ? this.forward(k) : 0;
@@ -332,37 +456,46 @@ export class Search {
     let late = -1;
     for (;;) {
       let bi = -1;
+      let second = -1;
       if (late < 0) {
         let bs = -Infinity;
-        for (let j = 0; j < cnt; j++) {
-          if (sc[j]! > bs) {
-            bs = sc[j]!;
+        let ss = -Infinity;
+        for (let j = 0; j < count; j++) {
+          const s = scores[j]!;
+          if (s > bs) {
+            ss = bs;
+            second = bi;
+            bs = s;
             bi = j;
+          } else if (s > ss) {
+            ss = s;
+            second = j;
           }
         }
-        if (bi >= 0) sc[bi] = -Infinity;
+        if (bi >= 0) scores[bi] = -Infinity;
         else late = 0;
       }
       if (late >= 0) {
         if (late >= deferred.length) break;
         bi = deferred[late++]!;
+        second = -1;
       }
-      const v = nb.cand[bi]!;
-      const p: Pick = {
-        famGap: nb.fam[bi]!,
-        leastFam: nb.fam[bi]! >= maxFam,
-        varGap: nb.vari[bi]!,
-        leastVar: nb.vari[bi]! >= maxVar,
-      };
-      this.apply(c, v, 1, mn);
+      const i = nb.index[bi]!;
+      const v = domain[i]!;
+      const pick = this.describePick(c, i, second >= 0 ? nb.index[second]! : -1, spanMax, minStress);
+      pick.familyGap = nb.familyGap[bi]!;
+      pick.variantGap = nb.variantGap[bi]!;
+      pick.leastRecentFamily = nb.familyGap[bi]! >= mostFamilyGap;
+      pick.candidates = count;
+      this.apply(c, v, 1, minStress);
       this.assign[ci] = v;
-      this.picks[ci] = p;
+      this.picks[ci] = pick;
       const dead = this.forward(k);
       if (this.partial && late < 0 && dead > deadBefore) deferred.push(bi);
       else if (this.partial ? this.empties + dead < this.bestEmpties : dead === 0) {
         if (this.rec(k + 1)) return true;
       }
-      this.apply(c, v, -1, mn);
+      this.apply(c, v, -1, minStress);
       this.assign[ci] = -1;
       this.picks[ci] = undefined;
       if (this.aborted) return false;
@@ -376,27 +509,58 @@ export class Search {
     return false;
   }
 
+  /** Which goal made domain entry i beat domain entry `other` (−1: there was no other candidate). */
+  private describePick(c: Cell, i: number, other: number, spanMax: number[], minStress: number[]): Pick {
+    const pick: Pick = {
+      familyGap: 0,
+      leastRecentFamily: false,
+      variantGap: 0,
+      decided: null,
+      runnerUp: -1,
+      candidates: 0,
+    };
+    if (other < 0) return pick;
+    this.score(c, i, spanMax, minStress, this.terms);
+    this.score(c, other, spanMax, minStress, this.otherTerms);
+    pick.decided = decidingTerm(this.terms, this.otherTerms);
+    pick.runnerUp = c.domain[other]!;
+    return pick;
+  }
+
   /** Puts a pick on the board for good (after the runs), keeping the search's counts in step. */
   commit(c: Cell, v: number): void {
-    this.cap = this.full;
-    this.apply(c, v, 1, ZERO);
+    this.cap = this.fullCaps;
+    this.apply(c, v, 1, NO_STRESS);
+    const i = this.openAt.get(c.w * CELL_KEY + c.slot);
+    if (i !== undefined) this.assign[i] = v;
   }
 
   /** The best valid candidate for a cell against the committed board, or null. */
   bestNow(c: Cell): { v: number; pick: Pick } | null {
-    this.cap = this.full;
-    const m = zeros(NJ);
-    this.spanMaxes(this.board.load, c.w, m);
+    this.cap = this.fullCaps;
+    this.balanceOn = false;
+    const spanMax = zeros(JOINT_COUNT);
+    this.spanMaxes(this.board.load, c.w, spanMax);
     this.lastUses(c.w);
-    const prev = this.board.at(c.w - 1, c.slot) ?? -1;
-    const next = this.board.at(c.w + 1, c.slot) ?? -1;
+    const before = this.board.at(c.w - 1, c.slot) ?? -1;
+    const after = this.board.at(c.w + 1, c.slot) ?? -1;
+    this.scoreCell(c, before, after);
     let best: { v: number; pick: Pick; s: number } | null = null;
-    for (let i = 0; i < c.dom.length; i++) {
-      const v = c.dom[i]!;
-      if (!this.valid(v, c.w, m, ZERO)) continue;
-      const s = this.score(c, i, m, ZERO, prev, next);
-      if (!best || s > best.s)
-        best = { v, pick: { famGap: this.famGap, leastFam: false, varGap: this.varGap, leastVar: false }, s };
+    for (let i = 0; i < c.domain.length; i++) {
+      const v = c.domain[i]!;
+      if (!this.valid(v, c.w, spanMax, NO_STRESS)) continue;
+      const s = this.score(c, i, spanMax, NO_STRESS);
+      if (!best || s > best.s) {
+        const pick: Pick = {
+          familyGap: this.familyGap,
+          leastRecentFamily: false,
+          variantGap: this.variantGap,
+          decided: null,
+          runnerUp: -1,
+          candidates: 0,
+        };
+        best = { v, pick, s };
+      }
     }
     return best;
   }
@@ -408,7 +572,7 @@ export class Search {
       assign: this.assign.slice(),
       picks: this.picks.slice(),
       peak: this.peakNow(),
-      empties: this.empties + this.n - this.order.length,
+      empties: this.empties + this.cellCount - this.order.length,
     };
   }
 
@@ -420,86 +584,92 @@ export class Search {
   /** The best peak any complete plan could reach: fixed load plus each open cell's least stress. */
   lowerBound(order: number[]): number {
     this.order = order;
-    this.resetLb(true);
+    this.resetBound(true);
     let peak = 0;
+    const span = this.ctx.jointWindow;
     for (const k of this.ctx.budgeted) {
-      for (let st = this.first - this.ctx.J + 1; st <= this.last; st++) {
+      for (let start = this.first - span + 1; start <= this.last; start++) {
         let s = 0;
-        for (let x = st; x < st + this.ctx.J; x++) s += this.lbAt(k, x);
+        for (let x = start; x < start + span; x++) s += this.boundAt(k, x);
         peak = Math.max(peak, ratioOf(s, this.ctx.budget[k]!));
       }
     }
     return peak;
   }
 
-  private lbAt(k: number, x: number): number {
-    const a = this.lb[k]!;
-    const i = x - this.board.lo;
+  private boundAt(k: number, x: number): number {
+    const a = this.boundLoad[k]!;
+    const i = x - this.board.first;
     return i >= 0 && i < a.length ? a[i]! : 0;
   }
 
-  private resetLb(withMin: boolean): void {
+  private resetBound(withMinStress: boolean): void {
     for (const k of this.ctx.budgeted) {
-      const to = this.lb[k]!;
+      const to = this.boundLoad[k]!;
       const from = this.board.load[k]!;
       for (let i = 0; i < from.length; i++) to[i] = from[i]!;
-      if (!withMin) continue;
-      for (const i of this.order) this.lb[k]![this.cells[i]!.w - this.board.lo]! += this.cells[i]!.minS[k]!;
+      if (!withMinStress) continue;
+      for (const i of this.order) to[this.cells[i]!.w - this.board.first]! += this.cells[i]!.minStress[k]!;
     }
   }
 
   /**
-   * One bounded search over the cells in `order` (the others stay empty). The board is left as it
-   * was (fixed entries only); `aborted` tells whether the effort ran out.
+   * One bounded search over the cells in `order` (the others stay empty), within the joint caps `cap`
+   * and, with `balance`, the lift-balance goal. The board is left as it was (fixed entries only);
+   * `aborted` tells whether the effort ran out.
    */
-  run(cap: number[], partial: boolean, limit: number, order = this.searchOrder): boolean {
+  run(cap: number[], balance: boolean, partial: boolean, limit: number, order = this.searchOrder): boolean {
     this.order = order;
     this.cap = cap;
+    this.balanceOn = balance;
     this.partial = partial;
-    this.useMin = !partial;
+    this.useMinStress = !partial;
     this.aborted = false;
     this.empties = 0;
     this.bestEmpties = partial ? Infinity : 0;
     this.limit = this.work + limit;
-    this.resetLb(this.useMin);
+    this.resetBound(this.useMinStress);
     const before = this.best;
     if (!partial) this.best = null;
     // Forward checking keeps every open cell alive from here on; start from a state where they all are.
     const dead = partial ? undefined : this.order.find((i) => !this.alive(this.cells[i]!));
-    if (dead !== undefined) this.wipe[dead]! += this.n;
+    if (dead !== undefined) this.wipe[dead]! += this.cellCount;
+    const started = this.work;
     const found = dead === undefined && this.rec(0);
-    const mn = (c: Cell) => (this.useMin ? c.minS : ZERO);
-    for (let k = 0; k < this.n; k++) {
+    this.lastRunWork = this.work - started;
+    for (let k = 0; k < this.cellCount; k++) {
       const v = this.assign[k]!;
-      if (v >= 0) this.apply(this.cells[k]!, v, -1, mn(this.cells[k]!));
+      const c = this.cells[k]!;
+      if (v >= 0) this.apply(c, v, -1, this.useMinStress ? c.minStress : NO_STRESS);
       this.assign[k] = -1;
       this.picks[k] = undefined;
     }
+    this.balanceOn = false;
     const got = this.best !== null && (partial || found);
     if (!got) this.best = before;
     return got;
   }
 }
 
-interface NodeBuf {
-  cand: Int32Array;
+interface NodeBuffer {
+  index: Int32Array;
   score: Float64Array;
-  fam: Float64Array;
-  vari: Float64Array;
+  familyGap: Float64Array;
+  variantGap: Float64Array;
 }
 /** Candidate scratch per search depth, shared by all searches (they run one at a time, to the end). */
-const NODE_BUFS: NodeBuf[] = [];
-function nodeBuf(depth: number, n: number): NodeBuf {
-  let b = NODE_BUFS[depth];
-  if (!b || b.cand.length < n) {
+const NODE_BUFFERS: NodeBuffer[] = [];
+function nodeBuffer(depth: number, n: number): NodeBuffer {
+  let b = NODE_BUFFERS[depth];
+  if (!b || b.index.length < n) {
     const size = Math.max(n, 64);
     b = {
-      cand: new Int32Array(size),
+      index: new Int32Array(size),
       score: new Float64Array(size),
-      fam: new Float64Array(size),
-      vari: new Float64Array(size),
+      familyGap: new Float64Array(size),
+      variantGap: new Float64Array(size),
     };
-    NODE_BUFS[depth] = b;
+    NODE_BUFFERS[depth] = b;
   }
   return b;
 }
@@ -530,58 +700,85 @@ export function ratioOf(load: number, budget: number): number {
 export function peakOf(ctx: Ctx, board: Board, first: number, last: number): number {
   let peak = 0;
   for (const k of ctx.budgeted) {
-    for (let st = first - ctx.J + 1; st <= last; st++) {
-      peak = Math.max(peak, ratioOf(board.spanLoad(k, st), ctx.budget[k]!));
+    for (let start = first - ctx.jointWindow + 1; start <= last; start++) {
+      peak = Math.max(peak, ratioOf(board.spanLoad(k, start), ctx.budget[k]!));
     }
   }
   return peak;
 }
 
 /**
- * Plans the open cells: a complete plan within the budgets if the search finds one (else one for as
- * many cells as it can manage), then tighter peaks (first straight at the lower bound, then by
- * bisection) while effort lasts.
+ * Plans the open cells. In order: a complete plan under the comfort line with lift balance; under the
+ * comfort line without it; within the budgets with lift balance; within the budgets (else one for as
+ * many cells as the search can manage). Above the comfort line, tighter peaks follow (first straight at
+ * the comfort line or the lower bound, then by bisection) while effort lasts.
  */
-export function solve(search: Search): Solution | null {
-  const full = search.budgetCaps(1, false);
-  const size = search.cells.reduce((n, c) => n + c.dom.length, 0);
+export function solve(search: Search, ctx: Ctx): { solution: Solution | null; kept: GoalsKept } {
+  const full = budgetCaps(ctx, 1);
+  const size = search.cells.reduce((n, c) => n + c.domain.length, 0);
   const complete = Math.min(EFFORT.complete, Math.max(EFFORT.completeMin, 40 * size));
+  const balance = search.hasBalance;
+  const comfortCaps = budgetCaps(ctx, ctx.comfortRatio);
+  const bound = search.lowerBound(search.searchOrder);
+  const comfortPossible = bound <= ctx.comfortRatio + EPS;
+  if (comfortPossible) {
+    if (balance && search.run(comfortCaps, true, false, complete))
+      return { solution: search.best, kept: { comfort: true, balance: true } };
+    if (search.run(comfortCaps, false, false, complete))
+      return { solution: search.best, kept: { comfort: true, balance: false } };
+  }
+  const floor = comfortPossible ? ctx.comfortRatio : bound;
+  if (balance && search.run(full, true, false, complete)) {
+    tighten(search, ctx, floor, true, search.searchOrder);
+    return { solution: search.best, kept: { comfort: false, balance: true } };
+  }
   // Without a complete plan, give up the cell the search most often found stuck and try again, so
   // the cells that can be filled together still get a complete, tightened plan.
   let order = search.searchOrder;
   const stopDropping = search.work + EFFORT.dropRounds * complete;
-  let before = search.work;
-  while (!search.run(full, false, Math.min(complete, Math.max(1, stopDropping - search.work)), order)) {
-    before = search.work;
+  while (!search.run(full, false, false, Math.min(complete, Math.max(1, stopDropping - search.work)), order)) {
     if (order.length <= 1 || search.work >= stopDropping) {
-      search.run(full, true, Math.min(EFFORT.partial, Math.max(EFFORT.partialMin, 2 * size)));
-      return search.best;
+      search.run(full, false, true, Math.min(EFFORT.partial, Math.max(EFFORT.partialMin, 2 * size)));
+      return { solution: search.best, kept: { comfort: false, balance: false } };
     }
     const worst = order.reduce((a, b) => (search.wipe[b]! > search.wipe[a]! ? b : a));
     order = order.filter((i) => i !== worst);
   }
-  const dive = search.work - before;
+  const dive = search.lastRunWork;
   // A cell given up early may fit after all once others went: try each back in, keeping what works.
   const inOrder = new Set(order);
   for (const i of search.searchOrder) {
     if (inOrder.has(i) || search.work >= stopDropping + complete) continue;
     const wider = search.searchOrder.filter((q) => inOrder.has(q) || q === i);
-    if (search.run(full, false, Math.max(EFFORT.completeMin, complete >> 2), wider)) {
+    if (search.run(full, false, false, Math.max(EFFORT.completeMin, complete >> 2), wider)) {
       inOrder.add(i);
       order = wider;
     }
   }
-  // Feasibility only gets easier as the caps rise, so bisect on the cap between the lower bound and
-  // the best peak found; a run that gives up counts as infeasible. Failed runs get a small effort
-  // bound scaled to the size of one dive, as most of the effort would be spent proving infeasibility.
-  let lo = search.lowerBound(order);
+  tighten(search, ctx, Math.max(floor, search.lowerBound(order)), false, order, dive);
+  return { solution: search.best, kept: { comfort: false, balance: false } };
+}
+
+/**
+ * Above the comfort line, lower peaks: feasibility only gets easier as the caps rise, so bisect on the
+ * cap between `floor` and the best peak found; a run that gives up counts as infeasible. Runs get a
+ * small effort bound, as most of a failing run's effort would go into proving infeasibility.
+ */
+function tighten(
+  search: Search,
+  ctx: Ctx,
+  floor: number,
+  balance: boolean,
+  order: number[],
+  dive = search.lastRunWork,
+): void {
+  let lo = floor;
   const each = Math.min(EFFORT.tighten, Math.max(EFFORT.tightenMin, EFFORT.tightenPerDive * dive));
   const stop = search.work + Math.max(EFFORT.tightenFloor, EFFORT.tightenTotalPerDive * dive);
   for (let t = 0; t < EFFORT.tightenTries && search.work < stop; t++) {
     const hi = search.best!.peak;
     if (!Number.isFinite(hi) || hi <= lo + 1e-9 || hi - lo <= EFFORT.resolution * hi) break;
     const mid = t === 0 ? lo : (lo + hi) / 2;
-    if (!search.run(search.budgetCaps(mid, false), false, Math.min(each, stop - search.work), order)) lo = mid;
+    if (!search.run(budgetCaps(ctx, mid), balance, false, Math.min(each, stop - search.work), order)) lo = mid;
   }
-  return search.best;
 }

@@ -1,13 +1,90 @@
 // Exhaustive reference planner for small cases (one athlete, a few variants, weeks and slots): tries
-// every assignment with plain loops, to check the engine's completeness and its peak load ratio.
+// every assignment with plain loops, to check the engine's completeness, its peak load ratio and the
+// version-2 goals (comfort, lift balance), written here again from the rules' plain definitions.
 
-import { JOINTS, type PlanRequest, type Variant } from '../../../shared/engine/types';
-import { weeksBetween } from '../../../shared/engine/weeks';
+import {
+  JOINTS,
+  type AthleteInput,
+  type PlanEntry,
+  type PlanRequest,
+  type Variant,
+} from '../../../shared/engine/types';
+import { weekNumber, weeksBetween } from '../../../shared/engine/weeks';
 
 export interface ExhaustiveResult {
   feasible: boolean; // some complete plan breaks no rule
   bestPeak: number; // lowest peak load ratio over those plans (Infinity when none)
   nodes: number;
+  /** Some complete rule-clean plan keeps every joint at or under the comfort ratio. */
+  comfortable: boolean;
+  /** Some complete rule-clean plan is in lift balance, and comfortable too when any plan can be. */
+  balanced: boolean;
+}
+
+/** Whether a restriction (version 2: joint cap, emphases, families, weeks) rules variant v out in `week`. */
+export function restricts(a: AthleteInput, v: Variant, week: string): boolean {
+  return a.restrictions.some((r) => {
+    if (r.fromWeek && weekNumber(week) < weekNumber(r.fromWeek)) return false;
+    if (r.toWeek && weekNumber(week) > weekNumber(r.toWeek)) return false;
+    if (r.joint !== undefined && r.maxStress !== undefined && (v.stress[r.joint] ?? 0) > r.maxStress) return true;
+    if (r.emphasis && v.emphasis && r.emphasis.includes(v.emphasis)) return true;
+    return !!r.families?.includes(v.family);
+  });
+}
+
+/** Whether the cell rules (everything but windows and budgets) let variant v into `week` for athlete a. */
+export function cellAllows(req: PlanRequest, a: AthleteInput, v: Variant, week: string): boolean {
+  if (!v.equipment.every((e) => a.equipment.includes(e))) return false;
+  if (restricts(a, v, week)) return false;
+  if (v.archived) return false;
+  if (a.maxRisk !== undefined && v.risk > a.maxRisk) return false;
+  if (a.restWeeks?.includes(week)) return false;
+  const d = a.meetWeek ? weeksBetween(week, a.meetWeek) : undefined;
+  if (v.meetPhaseWeeks !== undefined && (d === undefined || d < 0 || d > v.meetPhaseWeeks)) return false;
+  if (d !== undefined) {
+    for (const t of req.rules.taper) {
+      if (d < 0 || d > t.weeksOut) continue;
+      if (v.risk > t.maxRisk) return false;
+      if (t.minSpecificity !== undefined && v.specificity < t.minSpecificity) return false;
+    }
+  }
+  return true;
+}
+
+/**
+ * Lift balance, from its definition: for each slot with several lifts, every span of liftBalanceWeeks
+ * weeks ending in a planned week holds each required lift (the slot's lifts the athlete has an eligible
+ * variant for in some planned week), unless the span has fewer cells (entries in history, planned
+ * weeks that are not rest weeks) than required lifts.
+ */
+export function isBalanced(req: PlanRequest, entries: PlanEntry[]): boolean {
+  const n = req.rules.liftBalanceWeeks;
+  if (!n) return true;
+  const a = req.athletes[0]!;
+  const byId = new Map(req.variants.map((v) => [v.id, v]));
+  const first = req.weeks[0]!;
+  const at = (e: PlanEntry) => weeksBetween(first, e.week);
+  for (const slot of req.slots) {
+    const required = new Set(
+      slot.lifts.filter((l) =>
+        req.variants.some((v) => v.lift === l && req.weeks.some((w) => cellAllows(req, a, v, w))),
+      ),
+    );
+    if (required.size < 2) continue;
+    const own = [...a.history, ...entries].filter((e) => e.slotId === slot.id && byId.has(e.variantId));
+    for (let end = 0; end < req.weeks.length; end++) {
+      const start = end - n + 1;
+      let cells = 0;
+      for (let x = start; x <= end; x++) {
+        const planned = x >= 0 && !a.restWeeks?.includes(req.weeks[x]!);
+        if (planned || own.some((e) => at(e) === x)) cells++;
+      }
+      if (cells < required.size) continue;
+      const lifts = new Set(own.filter((e) => at(e) >= start && at(e) <= end).map((e) => byId.get(e.variantId)!.lift));
+      for (const l of required) if (!lifts.has(l)) return false;
+    }
+  }
+  return true;
 }
 
 interface Placed {
@@ -16,16 +93,22 @@ interface Placed {
   id: string;
 }
 
-export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000): ExhaustiveResult {
-  return search(req, nodeLimit, false);
+/** With `goals`, every complete plan is visited to settle comfort and balance (slower); else the best peak. */
+export function exhaustive(req: PlanRequest, nodeLimit = 5_000_000, goals = false): ExhaustiveResult {
+  return search(req, nodeLimit, false, goals);
 }
 
 /** The most cells any rule-clean plan fills (cells may stay empty). */
 export function mostFilled(req: PlanRequest, nodeLimit = 5_000_000): number {
-  return search(req, nodeLimit, true).filled;
+  return search(req, nodeLimit, true, false).filled;
 }
 
-function search(req: PlanRequest, nodeLimit: number, allowEmpty: boolean): ExhaustiveResult & { filled: number } {
+function search(
+  req: PlanRequest,
+  nodeLimit: number,
+  allowEmpty: boolean,
+  goals: boolean,
+): ExhaustiveResult & { filled: number } {
   const athlete = req.athletes[0]!;
   const rules = req.rules;
   const first = req.weeks[0]!;
@@ -39,31 +122,18 @@ function search(req: PlanRequest, nodeLimit: number, allowEmpty: boolean): Exhau
   const stressOf = (v: Variant | undefined, j: (typeof JOINTS)[number]) => (v ? (v.stress[j] ?? 0) : 0);
   const budgets = JOINTS.filter((j) => rules.jointBudget[j] !== undefined);
 
-  const cells: { at: number; options: Variant[] }[] = [];
+  const cells: { at: number; week: string; slotId: string; options: Variant[] }[] = [];
   req.weeks.forEach((week, at) => {
+    if (athlete.restWeeks?.includes(week)) return; // rest weeks hold no pick
     for (const slot of req.slots) {
-      const options = req.variants.filter((v) => {
-        if (!slot.lifts.includes(v.lift)) return false;
-        if (!v.equipment.every((e) => athlete.equipment.includes(e))) return false;
-        if (
-          athlete.restrictions.some(
-            (r) => r.joint !== undefined && (v.stress[r.joint] ?? 0) > (r.maxStress ?? Infinity),
-          )
-        )
-          return false;
-        if (athlete.meetWeek) {
-          const d = weeksBetween(week, athlete.meetWeek);
-          for (const t of rules.taper) {
-            if (d < 0 || d > t.weeksOut) continue;
-            if (v.risk > t.maxRisk) return false;
-            if (t.minSpecificity !== undefined && v.specificity < t.minSpecificity) return false;
-          }
-        }
-        return true;
-      });
-      cells.push({ at, options });
+      const options = req.variants.filter((v) => slot.lifts.includes(v.lift) && cellAllows(req, athlete, v, week));
+      cells.push({ at, week, slotId: slot.id, options });
     }
   });
+  const comfort = rules.comfortRatio ?? 0.8;
+  const chosen: PlanEntry[] = [];
+  let comfortable = false;
+  let balanced = false;
 
   const spanLoad = (j: (typeof JOINTS)[number], start: number) => {
     let s = 0;
@@ -121,20 +191,26 @@ function search(req: PlanRequest, nodeLimit: number, allowEmpty: boolean): Exhau
       return;
     }
     const now = peak();
-    if (feasible && now >= bestPeak - 1e-12) return;
+    if (!goals && feasible && now >= bestPeak - 1e-12) return;
     if (k === cells.length) {
       feasible = true;
-      bestPeak = now;
+      bestPeak = Math.min(bestPeak, now);
+      const cozy = now <= comfort + 1e-9;
+      if (cozy && !comfortable) balanced = false; // balance now counts only among comfortable plans
+      if (cozy) comfortable = true;
+      if ((cozy || !comfortable) && isBalanced(req, chosen)) balanced = true;
       return;
     }
     const cell = cells[k]!;
     for (const v of cell.options) {
       if (!fits(v, cell.at)) continue;
       placed.push({ at: cell.at, v, id: v.id });
+      chosen.push({ athleteId: athlete.id, week: cell.week, slotId: cell.slotId, variantId: v.id });
       go(k + 1);
+      chosen.pop();
       placed.pop();
     }
   };
   go(0);
-  return { feasible, bestPeak, nodes, filled: most };
+  return { feasible, bestPeak, nodes, filled: most, comfortable, balanced };
 }

@@ -140,10 +140,13 @@ describe('reasons', () => {
     });
     const lower = generatePlan(req).entries.find((e) => e.slotId === 'lower')!;
     expect(lower.variantId).toBe('box-low');
+    // The first line names the goal that decided against the runner-up (the pause squat).
     expect(lower.reasons).toEqual([
+      'chosen for variety: the box-squat family was used less recently than pause-squat',
       'least recently used box-squat family (7 weeks ago)',
       'Box squat, low box last done 7 weeks ago',
       'lower-back load 5 of 8 in 2027-W07…2027-W10 (63%)',
+      'comfort: every joint stays at or under 80% of its budget',
     ]);
   });
 

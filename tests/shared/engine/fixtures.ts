@@ -158,6 +158,52 @@ export interface RequestOptions {
   pinned?: number; // share of board entries that are pinned
   restrictions?: boolean;
   lifts?: Lift[];
+  /** Add version-2 inputs: archived and meet-phase variants, dated restrictions of every kind, risk ceilings, rest weeks, comfort ratio, lift balance. */
+  version2?: boolean;
+}
+
+/**
+ * Adds random version-2 inputs to a request, from a stream of its own (so the version-1 parts of the
+ * request stay what they were for the same seed).
+ */
+export function withVersion2(req: PlanRequest, seed: number): PlanRequest {
+  const r = mulberry32(seed ^ 0x5eed_2222);
+  const families = [...new Set(req.variants.map((v) => v.family))];
+  const variants = req.variants.map((v) => ({
+    ...v,
+    ...(chance(r, 0.1) ? { archived: true } : {}),
+    ...(chance(r, 0.12) ? { meetPhaseWeeks: int(r, 0, 4) } : {}),
+  }));
+  const weeks = req.weeks;
+  const someWeek = (): string => addWeeks(weeks[0]!, int(r, -2, weeks.length + 1));
+  const athletes = req.athletes.map((a) => {
+    const restrictions = [...a.restrictions];
+    if (chance(r, 0.5)) {
+      const from = chance(r, 0.7) ? someWeek() : undefined;
+      const to = chance(r, 0.6) ? addWeeks(from ?? weeks[0]!, int(r, 0, 4)) : undefined;
+      const kind = int(r, 0, 2);
+      restrictions.push({
+        ...(kind === 0 ? { joint: pick(r, JOINTS), maxStress: int(r, 0, 2) } : {}),
+        ...(kind === 1 ? { emphasis: [pick(r, EMPHASES)] } : {}),
+        ...(kind === 2 ? { families: [pick(r, families)] } : {}),
+        ...(from ? { fromWeek: from } : {}),
+        ...(to ? { toWeek: to } : {}),
+      });
+    }
+    const restWeeks = weeks.filter(() => chance(r, 0.15));
+    return {
+      ...a,
+      restrictions,
+      ...(chance(r, 0.3) ? { maxRisk: int(r, 1, 3) as 1 | 2 | 3 } : {}),
+      ...(restWeeks.length ? { restWeeks } : {}),
+    };
+  });
+  const rules = {
+    ...req.rules,
+    ...(chance(r, 0.5) ? { comfortRatio: Math.round((0.5 + 0.45 * r()) * 100) / 100 } : {}),
+    ...(chance(r, 0.6) ? { liftBalanceWeeks: int(r, 1, 3) } : {}),
+  };
+  return { ...req, variants, athletes, rules };
 }
 
 export function randomAthlete(
@@ -206,14 +252,15 @@ export function randomRequest(seed: number, opts: RequestOptions = {}): PlanRequ
   }
   if (planned.length && chance(r, 0.2))
     planned.push({ ...planned[0]!, variantId: 'no-such-variant', pinned: false, week: weeks[weeks.length - 1]! });
-  return { variants, slots, athletes, rules: randomRules(r, `s${seed}`), weeks, planned };
+  const req = { variants, slots, athletes, rules: randomRules(r, `s${seed}`), weeks, planned };
+  return opts.version2 ? withVersion2(req, seed) : req;
 }
 
 /**
  * A small single-athlete case the exhaustive planner can settle: 3–8 variants, 1–5 weeks, 1–2 slots,
  * budgets on the joints the variants load, sized so that they often bind.
  */
-export function smallCase(seed: number): PlanRequest {
+export function smallCase(seed: number, opts: { version2?: boolean } = {}): PlanRequest {
   const r = mulberry32(seed);
   const slots = chance(r, 0.5) ? TWO_SLOTS : [TWO_SLOTS[0]!];
   const n = int(r, slots.length === 2 ? 5 : 3, 8);
@@ -234,7 +281,8 @@ export function smallCase(seed: number): PlanRequest {
   };
   const athlete = randomAthlete(r, 'a0', weeks, slots, variants, int(r, 0, 4), chance(r, 0.3));
   athlete.equipment = [...EQUIPMENT];
-  return { variants, slots, athletes: [athlete], rules, weeks, planned: [] };
+  const req = { variants, slots, athletes: [athlete], rules, weeks, planned: [] };
+  return opts.version2 ? withVersion2(req, seed) : req;
 }
 
 /** A small invented library with the trade's ordinary exercise names, for worked examples. */

@@ -1,7 +1,8 @@
-// Properties of the engine over random libraries, slots, rules, histories, boards and meets, checked
-// against a deliberately naive rule checker written here from the rules' plain definitions.
+// Properties of the engine over random libraries, slots, rules, histories, boards and meets (with and
+// without the version-2 inputs), checked against a deliberately naive rule checker written here from
+// the rules' plain definitions.
 import fc from 'fast-check';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import {
   JOINTS,
   RULE_IDS,
@@ -15,7 +16,8 @@ import {
   type RuleId,
   type Variant,
 } from '../../../shared/engine/index';
-import { randomRequest } from './fixtures';
+import { restricts } from './exhaustive';
+import { randomRequest as randomOf, type RequestOptions } from './fixtures';
 
 /**
  * Every (entry, rule) pair broken on the board history ∪ entries, straight from the definitions:
@@ -34,10 +36,16 @@ function naiveBreaks(req: PlanRequest, entries: PlanEntry[]): Set<string> {
       continue;
     }
     const slot = req.slots.find((s) => s.id === e.slotId);
+    if (v.archived) key('archived');
+    if (a.restWeeks?.includes(e.week)) key('restWeek');
     if (!slot || !slot.lifts.includes(v.lift)) key('liftMismatch');
     if (v.equipment.some((x) => !a.equipment.includes(x))) key('equipment');
-    if (a.restrictions.some((x) => x.joint !== undefined && (v.stress[x.joint] ?? 0) > (x.maxStress ?? Infinity)))
-      key('restriction');
+    if (restricts(a, v, e.week)) key('restriction');
+    if (a.maxRisk !== undefined && v.risk > a.maxRisk) key('riskCeiling');
+    if (v.meetPhaseWeeks !== undefined) {
+      const d = a.meetWeek ? weeksBetween(e.week, a.meetWeek) : -1;
+      if (d < 0 || d > v.meetPhaseWeeks) key('meetPhase');
+    }
     if (a.meetWeek) {
       const d = weeksBetween(e.week, a.meetWeek);
       for (const t of r.taper) {
@@ -78,10 +86,17 @@ const cellKey = (e: { athleteId: string; week: string; slotId: string }) => `${e
 const strip = (entries: (PlanEntry & { reasons?: string[] })[]): PlanEntry[] =>
   entries.map(({ reasons: _r, ...e }) => e);
 
+// Each property runs a few hundred plans: allow for a busy machine (speed lives in the benchmarks).
+vi.setConfig({ testTimeout: 60_000 });
+
 const seeds = fc.integer({ min: 0, max: 2 ** 31 - 1 });
 const RUNS = { numRuns: 150 };
 
-describe('engine properties', () => {
+describe.each([
+  ['version-1 requests', false],
+  ['requests with version-2 inputs', true],
+])('engine properties, %s', (_name, version2) => {
+  const randomRequest = (seed: number, opts: RequestOptions = {}) => randomOf(seed, { version2, ...opts });
   it('checkPlan finds exactly the breaks the naive checker finds, on random boards', () => {
     fc.assert(
       fc.property(seeds, (seed) => {
@@ -102,10 +117,21 @@ describe('engine properties', () => {
         expect(broken(keysOf(req, res.entries))).toEqual([]);
         expect(broken(naiveBreaks(req, res.entries))).toEqual([]);
         const seen = [...res.entries, ...res.unfilled].map(cellKey).sort();
+        // Rest-week cells are neither filled nor unfilled, unless a pinned entry holds them.
         const cells = req.athletes
-          .flatMap((a) => req.weeks.flatMap((w) => req.slots.map((s) => `${a.id}|${w}|${s.id}`)))
+          .flatMap((a) =>
+            req.weeks.flatMap((w) =>
+              req.slots.map((s) => `${a.id}|${w}|${s.id}`).filter((k) => !a.restWeeks?.includes(w) || pinned.has(k)),
+            ),
+          )
           .sort();
         expect(seen).toEqual(cells);
+        for (const c of res.cleared) {
+          expect(req.athletes.find((a) => a.id === c.athleteId)?.restWeeks).toContain(c.week);
+          expect(req.planned?.some((e) => cellKey(e) === cellKey(c) && !e.pinned && e.variantId === c.variantId)).toBe(
+            true,
+          );
+        }
       }),
       RUNS,
     );
@@ -246,6 +272,20 @@ describe('engine properties', () => {
           case 'jointBudget':
             plant.stress = { wrist: 3 };
             r = { ...r, rules: { ...r.rules, jointBudget: { ...r.rules.jointBudget, wrist: 2 } } };
+            break;
+          case 'archived':
+            plant.archived = true;
+            break;
+          case 'riskCeiling':
+            plant.risk = 3;
+            r = { ...r, athletes: [{ ...a, maxRisk: 2 }] };
+            break;
+          case 'meetPhase':
+            plant.meetPhaseWeeks = 2;
+            r = { ...r, athletes: [{ ...a, meetWeek: addWeeks(week, 5) }] };
+            break;
+          case 'restWeek':
+            r = { ...r, athletes: [{ ...a, restWeeks: [week] }] };
             break;
         }
         const at = board.findIndex((e) => e.week === week && e.slotId === slot.id);
