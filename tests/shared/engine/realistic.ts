@@ -666,12 +666,15 @@ export const REALISTIC_SLOTS: SlotDef[] = [
   { id: 'upper', lifts: ['bench'] },
 ];
 
-/** Team rules as a coach might set them (invented numbers). */
+/**
+ * Team rules as a coach might set them (invented numbers): budgets sized so that an ordinary four-week
+ * rotation of a healthy athlete (three or four lower-back-heavy picks) sits under the 80% comfort line.
+ */
 export const REALISTIC_RULES: Rules = {
   repeatWindowWeeks: 6,
   familyWindowWeeks: 2,
   jointWindowWeeks: 4,
-  jointBudget: { lowerBack: 14, hip: 14, knee: 12, shoulder: 12, elbow: 12, wrist: 12 },
+  jointBudget: { lowerBack: 16, hip: 16, knee: 12, shoulder: 12, elbow: 12, wrist: 12 },
   taper: [
     { weeksOut: 3, maxRisk: 2 },
     { weeksOut: 1, maxRisk: 1, minSpecificity: 0.8 },
