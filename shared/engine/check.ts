@@ -23,8 +23,8 @@ export function checkPlan(req: PlanRequest, entries: PlanEntry[]): Violation[] {
     const input = ctx.athletes.get(athleteId)!;
     const ath = buildAth(ctx, input);
     const own = idxs.map((i) => entries[i]!);
-    const [lo, hi] = rangeOf(ctx.req.weeks.map(weekNum), input.history, own);
-    const board = new Board(ctx, lo, hi);
+    const [from, to] = rangeOf(ctx.req.weeks.map(weekNum), input.history, own);
+    const board = new Board(ctx, from, to);
     addAll(ctx, board, input.history);
     addAll(ctx, board, own);
     for (const i of idxs) {

@@ -15,8 +15,8 @@ export interface JointLoadPoint {
 function boardOf(ctx: Ctx, athleteId: string, weekNums: number[], entries: PlanEntry[]): Board {
   const history = ctx.athletes.get(athleteId)?.history ?? [];
   const own = entriesOf(entries, athleteId);
-  const [lo, hi] = rangeOf(weekNums, history, own);
-  const board = new Board(ctx, lo, hi);
+  const [from, to] = rangeOf(weekNums, history, own);
+  const board = new Board(ctx, from, to);
   addAll(ctx, board, history);
   addAll(ctx, board, own);
   return board;

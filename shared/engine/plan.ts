@@ -48,18 +48,18 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
   const atCell: (PlanEntry | undefined)[] = new Array(weeks.length * slotCount);
   const context: PlanEntry[] = [];
   for (const e of planned) {
-    const wi = weekIdx.get(e.week);
+    const weekIndex = weekIdx.get(e.week);
     const slot = ctx.slots.get(e.slotId);
-    if (wi === undefined || !slot) {
+    if (weekIndex === undefined || !slot) {
       context.push(e);
       continue;
     }
-    const i = wi * slotCount + slot.index;
+    const i = weekIndex * slotCount + slot.index;
     const cur = atCell[i];
     if (!cur || (!cur.pinned && e.pinned)) atCell[i] = e;
   }
-  const [lo, hi] = rangeOf(nums, input.history, planned);
-  const board = new Board(ctx, lo, hi);
+  const [from, to] = rangeOf(nums, input.history, planned);
+  const board = new Board(ctx, from, to);
   addAll(ctx, board, input.history);
   addAll(ctx, board, context);
   const pinned = atCell.filter((e): e is PlanEntry => !!e?.pinned);
@@ -99,8 +99,14 @@ function planAthlete(ctx: Ctx, input: AthleteInput, weeks: string[], result: Pla
   const open: OpenCell[] = [];
   for (let i = 0; i < weeks.length * slotCount; i++) {
     if (kind[i] !== 'open') continue;
-    const wi = Math.floor(i / slotCount);
-    open.push({ at: i, w: nums[wi]!, week: weeks[wi]!, slot: i % slotCount, slotId: slots[i % slotCount]!.id });
+    const weekIndex = Math.floor(i / slotCount);
+    open.push({
+      at: i,
+      w: nums[weekIndex]!,
+      week: weeks[weekIndex]!,
+      slot: i % slotCount,
+      slotId: slots[i % slotCount]!.id,
+    });
   }
   const rng = athleteRng(ctx.req.rules.seed, input.id);
   const search = new Search(ctx, ath, board, open, Math.min(...nums), Math.max(...nums), rng);

@@ -423,8 +423,8 @@ export class Search {
       this.aborted = true;
       return false;
     }
-    const ci = this.order[k]!;
-    const c = this.cells[ci]!;
+    const cellIndex = this.order[k]!;
+    const c = this.cells[cellIndex]!;
     const spanMax = this.spanBuffers[k]!;
     this.spanMaxes(this.boundLoad, c.w, spanMax);
     const minStress = this.useMinStress ? c.minStress : NO_STRESS;
@@ -434,70 +434,70 @@ export class Search {
     const lifts = this.liftsAllowed(c);
     this.scoreCell(c, before, after);
     const domain = c.domain;
-    const nb = nodeBuffer(k, domain.length);
+    const buffer = nodeBuffer(k, domain.length);
     let count = 0;
     let mostFamilyGap = -1;
     for (let i = 0; i < domain.length; i++) {
       const v = domain[i]!;
       if (!(this.ctx.liftBit[v]! & lifts) || !this.valid(v, c.w, spanMax, minStress)) continue;
-      nb.score[count] = this.score(c, i, spanMax, minStress);
-      nb.index[count] = i;
-      nb.familyGap[count] = this.familyGap;
-      nb.variantGap[count] = this.variantGap;
+      buffer.score[count] = this.score(c, i, spanMax, minStress);
+      buffer.index[count] = i;
+      buffer.familyGap[count] = this.familyGap;
+      buffer.variantGap[count] = this.variantGap;
       if (this.familyGap > mostFamilyGap) mostFamilyGap = this.familyGap;
       count++;
     }
     this.work += domain.length;
-    const scores = nb.score;
+    const scores = buffer.score;
     // Without a complete plan, picks that leave a nearby cell with nothing are tried last: first every
     // candidate that costs no other cell (best score first), then the deferred ones in score order.
     const deadBefore = this.partial ? this.forward(k) : 0;
     const deferred: number[] = [];
     let late = -1;
     for (;;) {
-      let bi = -1;
+      let bestIndex = -1;
       let second = -1;
       if (late < 0) {
-        let bs = -Infinity;
-        let ss = -Infinity;
+        let bestScore = -Infinity;
+        let secondScore = -Infinity;
         for (let j = 0; j < count; j++) {
           const s = scores[j]!;
-          if (s > bs) {
-            ss = bs;
-            second = bi;
-            bs = s;
-            bi = j;
-          } else if (s > ss) {
-            ss = s;
+          if (s > bestScore) {
+            secondScore = bestScore;
+            second = bestIndex;
+            bestScore = s;
+            bestIndex = j;
+          } else if (s > secondScore) {
+            secondScore = s;
             second = j;
           }
         }
-        if (bi >= 0) scores[bi] = -Infinity;
+        if (bestIndex >= 0) scores[bestIndex] = -Infinity;
         else late = 0;
       }
       if (late >= 0) {
         if (late >= deferred.length) break;
-        bi = deferred[late++]!;
+        bestIndex = deferred[late++]!;
         second = -1;
       }
-      const i = nb.index[bi]!;
+      const i = buffer.index[bestIndex]!;
       const v = domain[i]!;
-      const pick = this.describePick(c, i, second >= 0 ? nb.index[second]! : -1, spanMax, minStress);
-      pick.familyGap = nb.familyGap[bi]!;
-      pick.variantGap = nb.variantGap[bi]!;
-      pick.leastRecentFamily = nb.familyGap[bi]! >= mostFamilyGap;
+      const pick = this.describePick(c, i, second >= 0 ? buffer.index[second]! : -1, spanMax, minStress);
+      pick.familyGap = buffer.familyGap[bestIndex]!;
+      pick.variantGap = buffer.variantGap[bestIndex]!;
+      pick.leastRecentFamily = buffer.familyGap[bestIndex]! >= mostFamilyGap;
       pick.candidates = count;
       this.apply(c, v, 1, minStress);
-      this.assign[ci] = v;
-      this.picks[ci] = pick;
+      this.assign[cellIndex] = v;
+      this.picks[cellIndex] = pick;
       const dead = this.forward(k);
-      if (this.partial && late < 0 && dead > deadBefore) deferred.push(bi);
+      if (this.partial && late < 0 && dead > deadBefore) deferred.push(bestIndex);
       else if (this.partial ? this.empties + dead < this.bestEmpties : dead === 0) {
         if (this.rec(k + 1)) return true;
       }
       this.apply(c, v, -1, minStress);
-      this.assign[ci] = -1;
-      this.picks[ci] = undefined;
+      this.assign[cellIndex] = -1;
+      this.picks[cellIndex] = undefined;
       if (this.aborted) return false;
     }
     if (this.partial && this.empties + 1 < this.bestEmpties) {
@@ -772,13 +772,19 @@ function tighten(
   order: number[],
   dive = search.lastRunWork,
 ): void {
-  let lo = floor;
+  let infeasibleAt = floor;
   const each = Math.min(EFFORT.tighten, Math.max(EFFORT.tightenMin, EFFORT.tightenPerDive * dive));
   const stop = search.work + Math.max(EFFORT.tightenFloor, EFFORT.tightenTotalPerDive * dive);
   for (let t = 0; t < EFFORT.tightenTries && search.work < stop; t++) {
-    const hi = search.best!.peak;
-    if (!Number.isFinite(hi) || hi <= lo + 1e-9 || hi - lo <= EFFORT.resolution * hi) break;
-    const mid = t === 0 ? lo : (lo + hi) / 2;
-    if (!search.run(budgetCaps(ctx, mid), balance, false, Math.min(each, stop - search.work), order)) lo = mid;
+    const bestPeak = search.best!.peak;
+    if (
+      !Number.isFinite(bestPeak) ||
+      bestPeak <= infeasibleAt + 1e-9 ||
+      bestPeak - infeasibleAt <= EFFORT.resolution * bestPeak
+    )
+      break;
+    const mid = t === 0 ? infeasibleAt : (infeasibleAt + bestPeak) / 2;
+    if (!search.run(budgetCaps(ctx, mid), balance, false, Math.min(each, stop - search.work), order))
+      infeasibleAt = mid;
   }
 }
