@@ -15,15 +15,7 @@ import {
   weekNum,
   type Ath,
 } from './core';
-import {
-  TERM_COUNT,
-  balancedLifts,
-  bitCount,
-  fairShareOf,
-  newPreferenceInput,
-  preference,
-  type BalanceView,
-} from './goals';
+import { balancedLifts, bitCount, fairShareOf, newPreferenceInput, preference, type BalanceView } from './goals';
 import { blockedIn, breaksAt, isRestWeek, ruleWarnings } from './rules/index';
 import { LIFTS, type PlanEntry, type PlanRequest, type Violation } from './types';
 import * as W from './words';
@@ -211,7 +203,6 @@ export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
   };
 
   const input = newPreferenceInput();
-  const terms = new Float64Array(TERM_COUNT);
   /** The last cell scored: its family counts and specificity surplus, computed once for all variants. */
   let scoredCell: { athleteId: string; key: string; familyPicks: Map<number, number>; surplus: number } | null = null;
   const cellTotals = (x: AthleteIndex, athleteId: string, key: string, w: number, slot: number, facts: SlotFacts) => {
@@ -263,7 +254,7 @@ export function prepareCandidateChecks(req: PlanRequest): CandidateChecks {
       input.barBefore = before < 0 ? -1 : ctx.bar[before]!;
       input.barAfter = after < 0 ? -1 : ctx.bar[after]!;
       input.noise = 0;
-      return -preference(input, terms);
+      return -preference(input);
     });
   };
 

@@ -100,27 +100,35 @@ function differs(a: number, b: number, full: number): number {
   return a === b ? 0 : full;
 }
 
-/** Fills `terms` (length TERM_COUNT) with the parts of the candidate's score and returns their sum. */
-export function preference(p: PreferenceInput, terms: Float64Array): number {
+/** The candidate's score; with `terms` (length TERM_COUNT), also its parts, for saying which goal decided. */
+export function preference(p: PreferenceInput, terms?: Float64Array): number {
   // Comfort: nothing under the line (a lighter variant is not preferred there), the excess above it.
-  terms[TERM.comfort] = -WEIGHTS.comfortExcess * Math.max(0, p.loadRatio - p.comfortRatio);
-  terms[TERM.fairShare] = p.familyPicks >= p.fairShare ? -WEIGHTS.fairShare : 0;
-  terms[TERM.familyRecency] = WEIGHTS.familyRecency * Math.min(p.familyGap, RECENCY_CAP + 1);
-  terms[TERM.variantRecency] = WEIGHTS.variantRecency * Math.min(p.variantGap, RECENCY_CAP + 1);
-  if (p.taper) terms[TERM.specificity] = WEIGHTS.taperSpecificity * p.specificity;
+  const comfort = -WEIGHTS.comfortExcess * Math.max(0, p.loadRatio - p.comfortRatio);
+  const fairShare = p.familyPicks >= p.fairShare ? -WEIGHTS.fairShare : 0;
+  const familyRecency = WEIGHTS.familyRecency * Math.min(p.familyGap, RECENCY_CAP + 1);
+  const variantRecency = WEIGHTS.variantRecency * Math.min(p.variantGap, RECENCY_CAP + 1);
+  let specificity: number;
+  if (p.taper) specificity = WEIGHTS.taperSpecificity * p.specificity;
   else {
     const above = p.specificity - p.eligibleMean;
-    terms[TERM.specificity] = WEIGHTS.specificity * above + WEIGHTS.specificityDeficit * Math.min(0, p.surplus + above);
+    specificity = WEIGHTS.specificity * above + WEIGHTS.specificityDeficit * Math.min(0, p.surplus + above);
   }
-  terms[TERM.vary] =
+  const vary =
     differs(p.emphasis, p.emphasisBefore, WEIGHTS.emphasisAfter) +
     differs(p.emphasis, p.emphasisAfter, WEIGHTS.emphasisBefore) +
     differs(p.bar, p.barBefore, WEIGHTS.barAfter) +
     differs(p.bar, p.barAfter, WEIGHTS.barBefore);
-  terms[TERM.tieBreak] = WEIGHTS.tieBreak * p.noise;
-  let sum = 0;
-  for (let i = 0; i < TERM_COUNT; i++) sum += terms[i]!;
-  return sum;
+  const tieBreak = WEIGHTS.tieBreak * p.noise;
+  if (terms) {
+    terms[TERM.comfort] = comfort;
+    terms[TERM.fairShare] = fairShare;
+    terms[TERM.familyRecency] = familyRecency;
+    terms[TERM.variantRecency] = variantRecency;
+    terms[TERM.specificity] = specificity;
+    terms[TERM.vary] = vary;
+    terms[TERM.tieBreak] = tieBreak;
+  }
+  return comfort + fairShare + familyRecency + variantRecency + specificity + vary + tieBreak;
 }
 
 /** The first term, in priority order, on which `chosen` beats `other` (null: none does). */

@@ -348,7 +348,7 @@ export class Search {
    * Soft-goal score of a valid candidate (higher is better), after scoreCell() for its cell; leaves its
    * recency in familyGap/variantGap.
    */
-  private score(c: Cell, i: number, spanMax: number[], minStress: number[], terms = this.terms): number {
+  private score(c: Cell, i: number, spanMax: number[], minStress: number[], terms?: Float64Array): number {
     const ctx = this.ctx;
     const v = c.domain[i]!;
     const p = this.input;
