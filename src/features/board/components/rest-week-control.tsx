@@ -44,11 +44,12 @@ export function RestWeekControl({
     );
   }
   if (!editable) return null;
+  // Shown while the pointer is over the week or the button has focus, so forty rows do not all say it.
   return (
     <div className="text-right">
       <button
         type="button"
-        className="min-h-6 rounded px-1 text-[11px] font-semibold text-ink-600 opacity-70 hover:text-rust-600 hover:opacity-100 focus:opacity-100 disabled:opacity-40"
+        className="min-h-6 rounded px-1 text-[11px] font-semibold text-ink-600 opacity-0 hover:text-rust-600 focus:opacity-100 disabled:opacity-40 [td:hover_&]:opacity-100"
         aria-label={`${athlete.name} · ${week}: make it a rest week`}
         disabled={save.isPending}
         onClick={toggle}

@@ -221,7 +221,12 @@ function RestrictionForm({
             control={form.control}
             name="families"
             render={({ field }) => (
-              <CheckboxGroup<string> options={familyChoices} value={field.value ?? []} onChange={field.onChange} />
+              <CheckboxGroup<string>
+                options={familyChoices}
+                value={field.value ?? []}
+                onChange={field.onChange}
+                className="flex max-h-48 flex-wrap gap-x-4 gap-y-1 overflow-y-auto rounded border border-chalk-300 bg-chalk-50 p-2"
+              />
             )}
           />
         ) : (
