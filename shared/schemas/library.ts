@@ -81,9 +81,17 @@ export const variantFields = {
     .transform((n) => Math.round(n * 100) / 100),
   scheme: schemeSchema,
   notes: optionalText(2000),
+  /** Only for the last N weeks before an athlete's meet (openers, meet rehearsals); null: any week. */
+  meetPhaseWeeks: z
+    .number({ message: 'Enter a number of weeks' })
+    .int('Use whole weeks')
+    .min(1, 'Use 1 to 16 weeks')
+    .max(16, 'Use 1 to 16 weeks')
+    .nullish()
+    .transform((v) => v ?? null),
 };
 
-export const variantBody = z.object(variantFields);
+export const variantBody = z.object({ ...variantFields, meetPhaseWeeks: variantFields.meetPhaseWeeks.optional() });
 export type VariantBody = z.input<typeof variantBody>;
 export type VariantValues = z.output<typeof variantBody>;
 
@@ -132,6 +140,7 @@ export const libraryVariantSchema = z.object({
   specificity: z.number(),
   scheme: schemeSchema,
   notes: z.string().nullable(),
+  meetPhaseWeeks: z.number().nullable(),
   archived: z.boolean(),
   /** Used by a plan entry or a top set: deleting it archives it instead. */
   inHistory: z.boolean(),
@@ -170,6 +179,7 @@ export const LIBRARY_CSV_COLUMNS = [
   'top_set',
   'notes',
   'archived',
+  'meet_phase_weeks',
 ] as const;
 export type LibraryCsvColumn = (typeof LIBRARY_CSV_COLUMNS)[number];
 export const LIBRARY_CSV_REQUIRED: readonly LibraryCsvColumn[] = [
@@ -270,6 +280,7 @@ function columnOf(path: readonly PropertyKey[]): string {
   const [head, sub] = path;
   if (head === 'stress' && typeof sub === 'string' && sub in STRESS_COLUMN) return STRESS_COLUMN[sub as Joint];
   if (head === 'scheme') return 'top_set';
+  if (head === 'meetPhaseWeeks') return 'meet_phase_weeks';
   return String(head ?? 'row');
 }
 
@@ -306,6 +317,9 @@ export function parseLibraryCsvRow(
     specificity: csvNumber(cell('specificity'), undefined),
     scheme: schemeRaw === '' ? 'single' : schemeRaw,
     notes: cell('notes'),
+    // Blank: any week; a file without the column leaves the stored value alone.
+    meetPhaseWeeks:
+      record.meet_phase_weeks === undefined ? undefined : (csvNumber(cell('meet_phase_weeks'), undefined) ?? null),
   };
   const parsed = variantBody.safeParse(candidate);
   if (!parsed.success) {
@@ -329,6 +343,8 @@ function csvMessage(field: string, issue: z.core.$ZodIssue): string {
       return 'Use single, triple or five';
     case 'risk':
       return 'Use risk 1, 2 or 3';
+    case 'meet_phase_weeks':
+      return 'Use 1 to 16 weeks, or leave it blank for any week';
     default:
       return issue.message;
   }
@@ -348,6 +364,7 @@ export function variantToCsvRecord(v: {
   scheme: Scheme;
   notes: string | null;
   archived: boolean;
+  meetPhaseWeeks?: number | null | undefined;
 }): Record<LibraryCsvColumn, string> {
   const stress = (j: Joint) => String(v.stress[j] ?? 0);
   const rec: Record<LibraryCsvColumn, string> = {
@@ -368,6 +385,7 @@ export function variantToCsvRecord(v: {
     top_set: v.scheme,
     notes: v.notes ?? '',
     archived: v.archived ? 'yes' : 'no',
+    meet_phase_weeks: v.meetPhaseWeeks == null ? '' : String(v.meetPhaseWeeks),
   };
   for (const k of LIBRARY_CSV_COLUMNS) rec[k] = escapeCsvCell(rec[k]);
   return rec;

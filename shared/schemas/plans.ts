@@ -1,7 +1,7 @@
 // Contracts of the plan and board API: one plan entry per athlete × ISO week × max-effort slot, its change
-// history, plan generation and the board's snapshot, plus the mapping of stored rows onto the engine's types.
+// history, plan generation and the board's snapshot.
 import { z } from 'zod';
-import type { Joint, PlanEntry, RuleId, Variant } from '../engine/types';
+import type { Emphasis, Joint, RiskTier, RuleId } from '../engine/types';
 import { weeksBetween } from '../engine/weeks';
 import { idParam, isoWeek, listQuery, type ListResponse } from './common';
 import type { AthleteRuleOverrides, TeamRules } from './rules';
@@ -170,12 +170,17 @@ export interface BoardVariant {
   risk: 1 | 2 | 3;
   specificity: number;
   scheme: 'single' | 'triple' | 'five';
+  /** Only for the last N weeks before a meet; null: any week. */
+  meetPhaseWeeks: number | null;
   archived: boolean;
 }
 
 export interface BoardRestriction {
-  joint: Joint;
-  maxStress: number;
+  /** A joint and its cap, or both null for a restriction by emphasis or family only. */
+  joint: Joint | null;
+  maxStress: number | null;
+  emphasis: Emphasis[];
+  families: string[];
   fromDate: string;
   toDate: string | null;
   note: string | null;
@@ -189,6 +194,10 @@ export interface BoardAthlete {
   restrictions: BoardRestriction[];
   meet: { id: number; name: string; date: string; week: string } | null;
   ruleOverrides: AthleteRuleOverrides;
+  /** The heaviest risk tier the planner may pick; null: no ceiling. */
+  maxRisk: RiskTier | null;
+  /** Rest or deload weeks (ISO weeks, oldest first): no max-effort pick. */
+  restWeeks: string[];
 }
 
 /** A plan entry outside the board's weeks, as the engine needs it. */
@@ -245,50 +254,4 @@ export interface GenerateResult {
   }[];
   /** Athletes left out, and why (no meet ahead for "Plan to meet"). */
   skipped: { athleteId: number; reason: string }[];
-}
-
-// ---- stored rows → engine ----
-
-/**
- * Archived variants stay in the engine's library so past picks still count toward windows and budgets,
- * but carry an equipment tag nobody owns, so the engine never picks them again.
- */
-export const ARCHIVED_TAG = 'archived in the library';
-
-export function toEngineVariant(v: BoardVariant): Variant {
-  return {
-    id: String(v.id),
-    name: v.name,
-    lift: v.lift,
-    family: v.family,
-    risk: v.risk,
-    specificity: v.specificity,
-    stress: v.stress,
-    equipment: v.archived ? [...v.equipment, ARCHIVED_TAG] : v.equipment,
-    emphasis: v.emphasis,
-    bar: v.bar,
-  };
-}
-
-export function toEnginePlanEntry(e: {
-  athleteId: number;
-  week: string;
-  slotId: string;
-  variantId: number;
-  pinned: boolean;
-}): PlanEntry {
-  return {
-    athleteId: String(e.athleteId),
-    week: e.week,
-    slotId: e.slotId,
-    variantId: String(e.variantId),
-    pinned: e.pinned,
-  };
-}
-
-/** The engine's equipment message for an archived variant, said plainly. */
-export function plainViolationMessage(message: string, variantName: string | undefined, archived: boolean): string {
-  return archived && message.includes(ARCHIVED_TAG)
-    ? `${variantName ?? 'This variant'} is archived in the library`
-    : message;
 }

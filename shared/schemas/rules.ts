@@ -1,7 +1,6 @@
 // Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
 import { z } from 'zod';
 import { DEFAULT_TISSUE_RULES } from '../engine/tissue';
-import type { Rules as EngineRules, SlotDef } from '../engine/types';
 
 export const liftSchema = z.enum(['squat', 'bench', 'deadlift']);
 export const jointSchema = z.enum(['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee']);
@@ -34,26 +33,45 @@ export const tissueSettingsSchema = z.object({
 });
 export type TissueSettings = z.infer<typeof tissueSettingsSchema>;
 
-export const teamRulesSchema = z
-  .object({
-    slots: z.array(slotSchema).min(1, 'Keep at least one max-effort slot').max(4),
-    repeatWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
-    familyWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
-    jointWindowWeeks: z.number().int().min(1, 'At least 1 week').max(12),
-    jointBudget: jointBudgetSchema,
-    taper: z.array(taperStepSchema).max(8),
-    /** Bodyweight gained over the last 7 days before a meet that earns a caution, in kg (common practice). */
-    bodyweightGainCautionKg: z.number().min(0.1).max(10),
-    tissue: tissueSettingsSchema,
-  })
-  .superRefine((r, ctx) => {
-    const ids = new Set<string>();
-    r.slots.forEach((s, i) => {
-      if (ids.has(s.id))
-        ctx.addIssue({ code: 'custom', path: ['slots', i, 'id'], message: 'Slot ids must be different' });
-      ids.add(s.id);
-    });
+const teamRulesShape = {
+  slots: z.array(slotSchema).min(1, 'Keep at least one max-effort slot').max(4),
+  repeatWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
+  familyWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
+  jointWindowWeeks: z.number().int().min(1, 'At least 1 week').max(12),
+  jointBudget: jointBudgetSchema,
+  taper: z.array(taperStepSchema).max(8),
+  /** Share of a joint's budget the planner treats as comfortable and keeps under whenever it can. */
+  comfortRatio: z
+    .number({ message: 'Enter a share from 0.5 to 1' })
+    .min(0.5, 'Use 0.5 to 1')
+    .max(1, 'Use 0.5 to 1')
+    .refine((n) => Math.abs(n * 100 - Math.round(n * 100)) < 1e-6, 'Use at most two decimals'),
+  /** A slot with several lifts holds each of them at least once in any span of this many weeks. */
+  liftBalanceWeeks: z
+    .number({ message: 'Enter a number of weeks' })
+    .int('Use whole weeks')
+    .min(2, 'At least 2 weeks')
+    .max(12),
+  /** Bodyweight gained over the last 7 days before a meet that earns a caution, in kg (common practice). */
+  bodyweightGainCautionKg: z.number().min(0.1).max(10),
+  tissue: tissueSettingsSchema,
+};
+
+function distinctSlots(r: { slots: { id: string }[] }, ctx: z.RefinementCtx) {
+  const ids = new Set<string>();
+  r.slots.forEach((s, i) => {
+    if (ids.has(s.id))
+      ctx.addIssue({ code: 'custom', path: ['slots', i, 'id'], message: 'Slot ids must be different' });
+    ids.add(s.id);
   });
+}
+
+/** The rules a coach sends: a field the product does not know is refused, not silently dropped. */
+export const teamRulesSchema = z
+  .strictObject({ ...teamRulesShape, tissue: tissueSettingsSchema.strict() })
+  .superRefine(distinctSlots);
+/** Stored rules are read forgivingly: a field left from an older version is ignored. */
+const storedTeamRulesSchema = z.object(teamRulesShape).superRefine(distinctSlots);
 export type TeamRules = z.infer<typeof teamRulesSchema>;
 
 export const equipmentListSchema = z
@@ -74,6 +92,10 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
     { weeksOut: 3, maxRisk: 2 },
     { weeksOut: 1, maxRisk: 1, minSpecificity: 0.8 },
   ],
+  // Common practice, no published source: keep a joint at or under four fifths of its budget when the
+  // library allows, and rotate a squat-or-pull slot so each lift comes up at least every three weeks.
+  comfortRatio: 0.8,
+  liftBalanceWeeks: 3,
   bodyweightGainCautionKg: 2,
   tissue: {
     maxConsecutiveWeeks: DEFAULT_TISSUE_RULES.maxConsecutiveWeeks,
@@ -89,7 +111,7 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
  */
 export function readTeamRules(stored: unknown): TeamRules {
   const merged = { ...DEFAULT_TEAM_RULES, ...(typeof stored === 'object' && stored ? stored : {}) };
-  const parsed = teamRulesSchema.safeParse(merged);
+  const parsed = storedTeamRulesSchema.safeParse(merged);
   return parsed.success ? parsed.data : DEFAULT_TEAM_RULES;
 }
 
@@ -108,25 +130,6 @@ export type AthleteRuleOverrides = z.infer<typeof athleteRuleOverridesSchema>;
 export function readRuleOverrides(stored: unknown): AthleteRuleOverrides {
   const parsed = athleteRuleOverridesSchema.safeParse(stored ?? {});
   return parsed.success ? parsed.data : {};
-}
-
-/**
- * The engine's view of the rules for one athlete: team rules with the athlete's overrides on top
- * (joint budgets merge per joint), and the team's plan seed.
- */
-export function toEngineRules(team: TeamRules, seed: string, overrides: AthleteRuleOverrides = {}): EngineRules {
-  return {
-    repeatWindowWeeks: overrides.repeatWindowWeeks ?? team.repeatWindowWeeks,
-    familyWindowWeeks: overrides.familyWindowWeeks ?? team.familyWindowWeeks,
-    jointWindowWeeks: overrides.jointWindowWeeks ?? team.jointWindowWeeks,
-    jointBudget: { ...team.jointBudget, ...(overrides.jointBudget ?? {}) },
-    taper: team.taper.map((t) => ({ ...t })),
-    seed,
-  };
-}
-
-export function toEngineSlots(team: TeamRules): SlotDef[] {
-  return team.slots.map((s) => ({ id: s.id, lifts: [...s.lifts] }));
 }
 
 /** `PUT /api/rules`: the whole rules document and the gym's equipment, with the version that was read (0: none yet). */

@@ -13,7 +13,8 @@ import mysql from 'mysql2/promise';
 import { chromium, type Page } from 'playwright-core';
 import { BIN, ROOT, startMariaDb } from '../../scripts/lib.mjs';
 import { addWeeks, generatePlan, mondayOf, weekOfDate, weekRange, type AthleteInput } from '../../shared/engine';
-import { DEFAULT_TEAM_RULES, toEngineRules, toEngineSlots } from '../../shared/schemas/rules';
+import { engineRules, engineSlots } from '../../shared/planning';
+import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import type { BoardData } from '../../shared/schemas';
 import { buildBoardModel, rateTargets } from '../../src/features/board/model/board-model';
 import { createApp } from '../../server/app';
@@ -160,9 +161,9 @@ async function seed(url: string): Promise<void> {
         emphasis: v.emphasis,
         bar: v.bar,
       })),
-      slots: toEngineSlots(DEFAULT_TEAM_RULES),
+      slots: engineSlots(DEFAULT_TEAM_RULES.slots),
       athletes: inputs,
-      rules: toEngineRules(DEFAULT_TEAM_RULES, 'bench'),
+      rules: engineRules(DEFAULT_TEAM_RULES, 'bench'),
       weeks: weekRange(addWeeks(thisWeek, -HISTORY_WEEKS), addWeeks(thisWeek, AHEAD_WEEKS)),
     });
     for (let i = 0; i < plan.entries.length; i += 500) {

@@ -78,12 +78,12 @@ describe('POST /api/athletes', () => {
       sex: 'X',
       birthYear: 1800,
       division: 'masters',
-      level: 'legend',
+      maxRisk: 7,
       ruleOverrides: { repeatWindowWeeks: 0, taper: [] },
     });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual(
-      expect.arrayContaining(['name', 'sex', 'birthYear', 'division', 'level', 'ruleOverrides.repeatWindowWeeks']),
+      expect.arrayContaining(['name', 'sex', 'birthYear', 'division', 'maxRisk', 'ruleOverrides.repeatWindowWeeks']),
     );
     expect(Object.keys(res.body.error.fields).some((k) => k.startsWith('ruleOverrides'))).toBe(true);
   });
@@ -110,7 +110,7 @@ describe('POST /api/athletes', () => {
 describe('GET /api/athletes and /api/athletes/accounts', () => {
   it('lists the team’s athletes with restrictions, meets and latest bodyweight', async () => {
     const db = t.ctx.database.db;
-    const id = await createAthlete(db, team.teamId, { name: 'Aaron Listed', level: 'novice' });
+    const id = await createAthlete(db, team.teamId, { name: 'Aaron Listed', maxRisk: 2 });
     await createRestriction(db, team.teamId, id, { joint: 'knee', maxStress: 2, fromDate: '2020-01-06' });
     await createRestriction(db, team.teamId, id, { joint: 'hip', fromDate: '2020-01-06', toDate: '2020-02-01' });
     const meet = await createMeet(db, team.teamId, { name: 'Spring Open', date: '2031-04-05' });
@@ -135,17 +135,22 @@ describe('GET /api/athletes and /api/athletes/accounts', () => {
     expect(res.body.items.map((a: { name: string }) => a.name)).not.toContain(other.name);
   });
 
-  it('filters by name and level, sorts, and pages', async () => {
+  it('filters by name, sorts by the heaviest risk allowed, and pages', async () => {
     const byName = await coach.get('/api/athletes?q=aaron');
-    expect(byName.body.items.map((a: { name: string }) => a.name)).toEqual(['Aaron Listed']);
-    const novices = await coach.get('/api/athletes?level=novice');
-    expect(novices.body.items.every((a: { level: string }) => a.level === 'novice')).toBe(true);
+    expect(byName.body.items.map((a: { name: string; maxRisk: number | null }) => [a.name, a.maxRisk])).toEqual([
+      ['Aaron Listed', 2],
+    ]);
+    // Strictest ceiling first; athletes with no ceiling come last.
+    const byRisk = await coach.get('/api/athletes?sort=maxRisk');
+    const ceilings = byRisk.body.items.map((a: { maxRisk: number | null }) => a.maxRisk ?? 4);
+    expect(ceilings).toEqual([...ceilings].sort((a, b) => a - b));
+    expect(ceilings[0]).toBe(2);
     const desc = await coach.get('/api/athletes?sort=-name&limit=1');
     expect(desc.body.items).toHaveLength(1);
     expect(desc.body.total).toBeGreaterThan(1);
-    const bad = await coach.get('/api/athletes?sort=shoe&level=god');
+    const bad = await coach.get('/api/athletes?sort=level');
     expect(bad.status).toBe(400);
-    expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['query.sort', 'query.level']));
+    expect(Object.keys(bad.body.error.fields)).toEqual(['query.sort']);
   });
 
   it('lists the athlete accounts a roster entry can be linked to', async () => {

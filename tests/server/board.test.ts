@@ -91,11 +91,21 @@ describe('GET /api/board', () => {
     expect(board.athletes.map((a) => a.name)).toEqual(['Ada Second', 'Linked Athlete']);
   });
 
-  it('gives each athlete the equipment the gym has, the restrictions in force and the next meet', () => {
+  it('gives each athlete the equipment the gym has, the restrictions not yet ended and the next meet', () => {
     const ada = board.athletes.find((a) => a.id === ids.second)!;
     expect(ada.equipment).toEqual(['box', 'bands']);
     expect(ada.restrictions).toEqual([
-      { joint: 'knee', maxStress: 1, fromDate: day(wk(-2)), toDate: null, note: 'sore knee' },
+      {
+        joint: 'knee',
+        maxStress: 1,
+        emphasis: [],
+        families: [],
+        fromDate: day(wk(-2)),
+        toDate: null,
+        note: 'sore knee',
+      },
+      // Dated ahead: the request builder gives it to the engine with its own weeks.
+      { joint: 'wrist', maxStress: 0, emphasis: [], families: [], fromDate: day(wk(30)), toDate: null, note: null },
     ]);
     expect(ada.meet).toMatchObject({ name: 'Soon meet', date: day(wk(5), 5), week: wk(5) });
     expect(ada.ruleOverrides).toEqual({ repeatWindowWeeks: 3, jointBudget: { knee: 4 } });

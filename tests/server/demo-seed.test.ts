@@ -5,13 +5,13 @@ import {
   addWeeks,
   checkPlan,
   generatePlan,
+  mondayOf,
   weekOfDate,
   weekRange,
   type PlanEntry,
-  type Variant,
 } from '../../shared/engine';
-import { readTeamRules, toEngineRules, toEngineSlots } from '../../shared/schemas/rules';
-import { toEngineVariant } from '../../shared/schemas/plans';
+import { buildAthleteRequest, buildPlanRequests } from '../../shared/planning';
+import { readTeamRules } from '../../shared/schemas/rules';
 import { createDatabase, type Database } from '../../server/db/client';
 import {
   athletes,
@@ -19,6 +19,7 @@ import {
   meetEntries,
   meets,
   planEntries,
+  restWeeks,
   restrictions,
   teamRules,
   teams,
@@ -27,6 +28,7 @@ import {
   variants,
 } from '../../server/db/schema';
 import { seedDemoIfEmpty } from '../../server/db/seed/demo';
+import { loadPlanning, today as todayOf } from '../../server/modules/plans/plans.context';
 import { verifyPassword } from '../../server/lib/passwords';
 import { recreateDatabase } from '../support/integration-setup';
 
@@ -66,20 +68,25 @@ describe('demo seed', () => {
     expect(roster.length).toBeGreaterThanOrEqual(10);
     const library = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
     expect(library.length).toBeGreaterThanOrEqual(60);
-    const joints = (await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id))).map(
-      (r) => r.joint,
-    );
+    const limits = await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id));
+    const joints = limits.map((r) => r.joint).filter((j) => j !== null);
     expect(joints.sort()).toEqual(['elbow', 'lowerBack']);
+    // A restriction by emphasis and family over a range of weeks, so the Athlete page and the board show one.
+    const dated = limits.find((r) => r.joint === null)!;
+    expect(dated).toMatchObject({ emphasis: ['bottom'], families: ['good morning'] });
+    expect(dated.toDate).not.toBeNull();
+    // A newer lifter with a ceiling of risk 2, and a planned rest week.
+    expect(roster.filter((a) => a.maxRisk === 2).length).toBeGreaterThan(0);
+    const rests = await database.db.select().from(restWeeks).where(eq(restWeeks.teamId, club!.id));
+    expect(rests.map((r) => r.week)).toEqual([addWeeks(thisWeek, 2)]);
   });
 
   it('plans twelve past weeks and the current one for everyone, within the rules', async () => {
     const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
     const [stored] = await database.db.select().from(teamRules).where(eq(teamRules.teamId, club!.id));
     const rules = readTeamRules(stored!.rules);
-    const lib = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
     const roster = await database.db.select().from(athletes).where(eq(athletes.teamId, club!.id));
     const rows = await database.db.select().from(planEntries).where(eq(planEntries.teamId, club!.id));
-    const limits = await database.db.select().from(restrictions).where(eq(restrictions.teamId, club!.id));
 
     const weeks = Array.from({ length: 13 }, (_, i) => addWeeks(thisWeek, i - 12));
     expect([...new Set(rows.map((r) => r.week))].sort()).toEqual(weeks);
@@ -91,25 +98,14 @@ describe('demo seed', () => {
       slotId: r.slotId,
       variantId: String(r.variantId),
     }));
-    const engineVariants: Variant[] = lib.map((v) =>
-      toEngineVariant({ ...v, risk: v.risk as 1 | 2 | 3, archived: false }),
-    );
-    const violations = checkPlan(
-      {
-        variants: engineVariants,
-        slots: toEngineSlots(rules),
-        rules: toEngineRules(rules, stored!.seed),
-        weeks,
-        athletes: roster.map((a) => ({
-          id: String(a.id),
-          equipment: a.equipment,
-          restrictions: limits
-            .filter((l) => l.athleteId === a.id)
-            .map((l) => ({ joint: l.joint, maxStress: l.maxStress })),
-          history: [],
-        })),
-      },
-      entries,
+    // The stored facts, read and turned into requests the way the plan services do.
+    // Restrictions from the history's first week on (the services read them from this week on).
+    const planning = await loadPlanning(database.db, club!.id, { today: todayOf(new Date(mondayOf(weeks[0]!))) });
+    const violations = buildPlanRequests(planning, { weeks, entries: [] }).flatMap((g) =>
+      checkPlan(
+        g.request,
+        entries.filter((e) => g.athleteIds.includes(Number(e.athleteId))),
+      ),
     );
     expect(violations).toEqual([]);
   });
@@ -134,7 +130,6 @@ describe('demo seed', () => {
     const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
     const [stored] = await database.db.select().from(teamRules).where(eq(teamRules.teamId, club!.id));
     const rules = readTeamRules(stored!.rules);
-    const lib = await database.db.select().from(variants).where(eq(variants.teamId, club!.id));
     const rows = await database.db.select().from(planEntries).where(eq(planEntries.teamId, club!.id));
     const entered = await database.db
       .select({ athleteId: meetEntries.athleteId, date: meets.date })
@@ -142,34 +137,17 @@ describe('demo seed', () => {
       .innerJoin(meets, eq(meets.id, meetEntries.meetId))
       .where(eq(meets.teamId, club!.id));
     expect(entered.length).toBe(2);
-    const roster = await database.db.select().from(athletes).where(eq(athletes.teamId, club!.id));
     for (const entry of entered) {
-      const a = roster.find((r) => r.id === entry.athleteId)!;
       const meetWeek = weekOfDate(new Date(`${entry.date}T12:00:00Z`));
       const weeks = weekRange(addWeeks(thisWeek, 1), meetWeek);
-      const plan = generatePlan({
-        variants: lib.map((v) => toEngineVariant({ ...v, risk: v.risk as 1 | 2 | 3, archived: false })),
-        slots: toEngineSlots(rules),
-        rules: toEngineRules(rules, stored!.seed),
+      const planning = await loadPlanning(database.db, club!.id, { today: todayOf(today) });
+      const request = buildAthleteRequest(planning, entry.athleteId, {
         weeks,
-        athletes: [
-          {
-            id: String(a.id),
-            equipment: a.equipment,
-            restrictions: [],
-            meetWeek,
-            history: rows
-              .filter((r) => r.athleteId === a.id)
-              .map((r) => ({
-                athleteId: String(r.athleteId),
-                week: r.week,
-                slotId: r.slotId,
-                variantId: String(r.variantId),
-              })),
-          },
-        ],
-      });
-      expect(plan.unfilled, a.name).toEqual([]);
+        entries: rows.filter((r) => r.athleteId === entry.athleteId),
+      })!;
+      expect(request.athletes[0]!.meetWeek).toBe(meetWeek);
+      const plan = generatePlan(request);
+      expect(plan.unfilled, String(entry.athleteId)).toEqual([]);
       expect(plan.entries.length).toBe(weeks.length * rules.slots.length);
     }
   });

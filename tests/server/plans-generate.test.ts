@@ -5,7 +5,8 @@ import type request from 'supertest';
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import { checkPlan } from '../../shared/engine';
 import { addWeeks, mondayOf, weekOfDate, weekRange } from '../../shared/engine/weeks';
-import { DEFAULT_TEAM_RULES, toEngineRules, toEngineSlots } from '../../shared/schemas/rules';
+import { engineRules, engineSlots } from '../../shared/planning';
+import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import type { GenerateResult } from '../../shared/schemas';
 import {
   meetEntries,
@@ -125,7 +126,7 @@ describe('POST /api/plans/generate', () => {
           stress: v.stress,
           equipment: v.equipment,
         })),
-        slots: toEngineSlots(DEFAULT_TEAM_RULES),
+        slots: engineSlots(DEFAULT_TEAM_RULES.slots),
         athletes: [
           {
             id: String(h.ids[0]),
@@ -135,7 +136,7 @@ describe('POST /api/plans/generate', () => {
             history: [],
           },
         ],
-        rules: toEngineRules(DEFAULT_TEAM_RULES, 'x'),
+        rules: engineRules(DEFAULT_TEAM_RULES, 'x'),
         weeks: weekRange(wk(1), wk(4)),
       },
       rows.map((r) => ({

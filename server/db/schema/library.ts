@@ -32,6 +32,8 @@ export const variants = mysqlTable(
     specificity: decimal('specificity', { precision: 3, scale: 2, mode: 'number' }).notNull(),
     scheme: mysqlEnum('scheme', ['single', 'triple', 'five']).notNull().default('single'),
     notes: text('notes'),
+    /** Only for the last N weeks before an athlete's meet (openers, meet rehearsals); null: any week. */
+    meetPhaseWeeks: tinyint('meet_phase_weeks', { unsigned: true }),
     archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
     version: version(),
     createdAt: createdAt(),

@@ -27,7 +27,8 @@ export const athletes = mysqlTable(
     sex: mysqlEnum('sex', ['M', 'F']).notNull(),
     birthYear: smallint('birth_year', { unsigned: true }),
     division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
-    level: mysqlEnum('level', ['novice', 'intermediate', 'advanced', 'elite']).notNull().default('intermediate'),
+    /** The heaviest risk tier (1–3) the engine may pick for this athlete; null: no ceiling. */
+    maxRisk: tinyint('max_risk', { unsigned: true }),
     equipment: json('equipment').$type<string[]>().notNull(),
     ruleOverrides: json('rule_overrides').$type<Record<string, unknown>>().notNull(),
     notes: text('notes'),
@@ -51,8 +52,13 @@ export const restrictions = mysqlTable(
     id: id(),
     teamId: teamRef(),
     athleteId: athleteRef(),
-    joint: mysqlEnum('joint', joints).notNull(),
-    maxStress: tinyint('max_stress', { unsigned: true }).notNull(),
+    /** A joint and its stress cap, or null when the restriction is by emphasis or family only. */
+    joint: mysqlEnum('joint', joints),
+    maxStress: tinyint('max_stress', { unsigned: true }),
+    /** Emphases no pick may have while the restriction is in force. */
+    emphasis: json('emphasis').$type<('bottom' | 'midRange' | 'lockout')[]>().notNull().default([]),
+    /** Families no pick may belong to while the restriction is in force. */
+    families: json('families').$type<string[]>().notNull().default([]),
     fromDate: date('from_date', { mode: 'string' }).notNull(),
     toDate: date('to_date', { mode: 'string' }),
     note: varchar('note', { length: 500 }),
@@ -62,6 +68,20 @@ export const restrictions = mysqlTable(
     updatedAt: updatedAt(),
   },
   (t) => [index('restrictions_athlete_idx').on(t.athleteId)],
+);
+
+/** Rest or deload weeks: the athlete gets no max-effort pick in that ISO week. */
+export const restWeeks = mysqlTable(
+  'rest_weeks',
+  {
+    id: id(),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
+    week: varchar('week', { length: 8 }).notNull(),
+    createdBy: ref('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('rest_weeks_athlete_week_uq').on(t.athleteId, t.week), index('rest_weeks_team_idx').on(t.teamId)],
 );
 
 /** One row per team: rotation windows, joint budgets, taper rules, slots, gym equipment and the plan seed. */

@@ -4,9 +4,10 @@
 import { eq } from 'drizzle-orm';
 import seedrandom from 'seedrandom';
 import { estimateOneRepMax } from '../../../shared/calc';
-import { addWeeks, generatePlan, mondayOf, weekOfDate, type AthleteInput, type Variant } from '../../../shared/engine';
-import { readTeamRules, toEngineRules, toEngineSlots } from '../../../shared/schemas/rules';
-import { toEngineVariant } from '../../../shared/schemas/plans';
+import { addWeeks, generatePlan, mondayOf, weekOfDate, type PlanResult } from '../../../shared/engine';
+import { buildPlanRequests, type PlanningFacts } from '../../../shared/planning';
+import { readTeamRules } from '../../../shared/schemas/rules';
+import type { BoardAthlete, BoardVariant } from '../../../shared/schemas/plans';
 import type { Tx } from '../client';
 import { bodyweights, planEntries, planEntryHistory, teamRules, topSets } from '../schema';
 import { DEMO_EQUIPMENT, DEMO_LIBRARY, type DemoVariant } from './demo-library';
@@ -47,26 +48,47 @@ export async function seedDemoHistory(tx: Tx, ctx: HistoryContext): Promise<void
   const [stored] = await tx.select().from(teamRules).where(eq(teamRules.teamId, ctx.teamId));
   const rules = readTeamRules(stored?.rules);
   const byId = new Map<string, DemoVariant>();
-  const variants: Variant[] = DEMO_LIBRARY.map((v) => {
-    const variant = toEngineVariant({ ...v, id: ctx.variantIds.get(v.name)!, archived: false });
-    byId.set(variant.id, v);
-    return variant;
+  const variants: BoardVariant[] = DEMO_LIBRARY.map((v) => {
+    const id = ctx.variantIds.get(v.name)!;
+    byId.set(String(id), v);
+    return { ...v, id, meetPhaseWeeks: v.meetPhaseWeeks ?? null, archived: false };
   });
-
-  const athletes: AthleteInput[] = DEMO_ATHLETES.map((a) => ({
-    id: String(ctx.athleteIds.get(a.key)),
+  const sunday = (week: string) => isoDay(mondayOf(week).getTime() + 6 * DAY_MS);
+  const athletes: BoardAthlete[] = DEMO_ATHLETES.map((a) => ({
+    id: ctx.athleteIds.get(a.key)!,
+    name: a.name,
     equipment: DEMO_EQUIPMENT.filter((e) => !a.lacks?.includes(e)),
-    restrictions: a.restriction ? [{ joint: a.restriction.joint, maxStress: a.restriction.maxStress }] : [],
-    ...(a.meetInWeeks ? { meetWeek: addWeeks(thisWeek, a.meetInWeeks) } : {}),
-    history: [],
+    restrictions: (a.restrictions ?? []).map((r) => ({
+      joint: r.joint ?? null,
+      maxStress: r.maxStress ?? null,
+      emphasis: r.emphasis ?? [],
+      families: r.families ?? [],
+      fromDate: isoDay(mondayOf(addWeeks(thisWeek, r.fromInWeeks)).getTime()),
+      toDate: r.toInWeeks === undefined ? null : sunday(addWeeks(thisWeek, r.toInWeeks)),
+      note: r.note,
+    })),
+    meet: a.meetInWeeks
+      ? {
+          id: 0,
+          name: 'meet',
+          date: sunday(addWeeks(thisWeek, a.meetInWeeks)),
+          week: addWeeks(thisWeek, a.meetInWeeks),
+        }
+      : null,
+    ruleOverrides: {},
+    maxRisk: a.maxRisk ?? null,
+    restWeeks: (a.restInWeeks ?? []).map((w) => addWeeks(thisWeek, w)),
   }));
-  const plan = generatePlan({
+  // The same request builder as the board and the server, over the stored shapes of the demo's facts.
+  const facts: PlanningFacts = {
+    rules,
+    seed: stored?.seed ?? 'demo',
+    slots: rules.slots,
     variants,
-    slots: toEngineSlots(rules),
     athletes,
-    rules: toEngineRules(rules, stored?.seed ?? 'demo'),
-    weeks,
-  });
+  };
+  const results: PlanResult[] = buildPlanRequests(facts, { weeks, entries: [] }).map((g) => generatePlan(g.request));
+  const plan = { entries: results.flatMap((r) => r.entries) };
 
   const people = new Map(DEMO_ATHLETES.map((a) => [String(ctx.athleteIds.get(a.key)), a]));
   for (const e of plan.entries) {

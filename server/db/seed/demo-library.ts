@@ -1,5 +1,15 @@
 // The invented demo library: ordinary exercise names of the trade, tagged with our own values for
 // family, equipment, emphasis, joint stress (0–3), risk (1–3) and specificity (0–1). Demo data only.
+//
+// The basis of the tags is common coaching practice, with no published source behind the numbers
+// (they are our own, from memory of how coaches talk about these lifts):
+// - A straight bar on the back is held with the hands behind the shoulders, which loads the shoulders,
+//   elbows and wrists; the safety squat bar and the cambered bar are held in front or by handles, and
+//   are chosen to spare those joints. So straight-bar squats carry 1 on each, the special bars 0.
+// - Pulls from above the knee take more than a full deadlift, so they are not risk 1; heavy pulls are
+//   usually done with a mixed grip, whose under-hand arm loads the elbow (biceps), so they carry elbow 1.
+// - Reverse bands unload the bottom of the bench and leave the most load at the top: lockout emphasis.
+// - Opener singles rehearse the first attempt and belong to the last weeks before a meet: meetPhaseWeeks 3.
 import type { StressMap } from '../schema';
 
 export interface DemoVariant {
@@ -14,6 +24,8 @@ export interface DemoVariant {
   specificity: number;
   scheme: 'single' | 'triple' | 'five';
   notes?: string;
+  /** Only for the last N weeks before a meet. */
+  meetPhaseWeeks?: number;
 }
 
 export const DEMO_EQUIPMENT = [
@@ -51,7 +63,7 @@ const squat: Row[] = [
     'straight',
     ['box'],
     'bottom',
-    { lowerBack: 2, hip: 2, knee: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 1 },
     2,
     0.6,
     'single',
@@ -63,7 +75,7 @@ const squat: Row[] = [
     'straight',
     ['box'],
     'bottom',
-    { lowerBack: 2, hip: 3, knee: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 3, knee: 1 },
     2,
     0.5,
     'single',
@@ -74,7 +86,7 @@ const squat: Row[] = [
     'straight',
     ['box'],
     'lockout',
-    { lowerBack: 2, hip: 1, knee: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 1, knee: 1 },
     1,
     0.5,
     'triple',
@@ -118,7 +130,7 @@ const squat: Row[] = [
     'straight',
     ['box', 'bands'],
     'lockout',
-    { lowerBack: 2, hip: 2, knee: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 1 },
     2,
     0.55,
     'single',
@@ -129,7 +141,7 @@ const squat: Row[] = [
     'straight',
     ['box', 'chains'],
     'lockout',
-    { lowerBack: 2, hip: 2, knee: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 1 },
     2,
     0.55,
     'single',
@@ -140,7 +152,7 @@ const squat: Row[] = [
     'straight',
     [],
     'bottom',
-    { lowerBack: 2, hip: 2, knee: 2 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 2 },
     2,
     0.9,
     'triple',
@@ -163,7 +175,7 @@ const squat: Row[] = [
     'straight',
     ['rack pins'],
     'bottom',
-    { lowerBack: 2, hip: 2, knee: 2 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 2 },
     2,
     0.7,
     'single',
@@ -174,7 +186,7 @@ const squat: Row[] = [
     'straight',
     ['rack pins'],
     'midRange',
-    { lowerBack: 2, hip: 2, knee: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 1 },
     2,
     0.7,
     'single',
@@ -185,7 +197,7 @@ const squat: Row[] = [
     'straight',
     ['rack pins'],
     'bottom',
-    { lowerBack: 2, hip: 2, knee: 2 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 2 },
     2,
     0.6,
     'single',
@@ -274,7 +286,7 @@ const squat: Row[] = [
     'straight',
     [],
     'midRange',
-    { lowerBack: 2, hip: 2, knee: 2, shoulder: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 2 },
     1,
     1,
     'single',
@@ -286,7 +298,7 @@ const squat: Row[] = [
     'straight',
     [],
     'midRange',
-    { lowerBack: 2, hip: 2, knee: 2, shoulder: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 2 },
     2,
     1,
     'single',
@@ -298,7 +310,7 @@ const squat: Row[] = [
     'straight',
     ['chains'],
     'lockout',
-    { lowerBack: 2, hip: 2, knee: 2, shoulder: 1 },
+    { shoulder: 1, elbow: 1, wrist: 1, lowerBack: 2, hip: 2, knee: 2 },
     2,
     0.85,
     'single',
@@ -369,25 +381,55 @@ const hinge: Row[] = [
     'straight',
     ['rack pins'],
     'midRange',
-    { lowerBack: 2, hip: 1 },
+    { elbow: 1, lowerBack: 2, hip: 1 },
     2,
     0.6,
     'single',
   ],
-  ['Rack pull, at knee', 'rack pull', 'straight', ['rack pins'], 'lockout', { lowerBack: 2, hip: 1 }, 2, 0.5, 'single'],
+  [
+    'Rack pull, at knee',
+    'rack pull',
+    'straight',
+    ['rack pins'],
+    'lockout',
+    { elbow: 1, lowerBack: 2, hip: 1 },
+    2,
+    0.5,
+    'single',
+  ],
   [
     'Rack pull, above knee',
     'rack pull',
     'straight',
     ['rack pins'],
     'lockout',
-    { lowerBack: 2, hip: 1 },
-    1,
+    { elbow: 1, lowerBack: 2, hip: 1 },
+    2,
     0.4,
     'single',
   ],
-  ['Block pull, 5 cm', 'block pull', 'straight', ['blocks'], 'midRange', { lowerBack: 2, hip: 2 }, 2, 0.8, 'single'],
-  ['Block pull, 10 cm', 'block pull', 'straight', ['blocks'], 'lockout', { lowerBack: 2, hip: 1 }, 2, 0.7, 'single'],
+  [
+    'Block pull, 5 cm',
+    'block pull',
+    'straight',
+    ['blocks'],
+    'midRange',
+    { elbow: 1, lowerBack: 2, hip: 2 },
+    2,
+    0.8,
+    'single',
+  ],
+  [
+    'Block pull, 10 cm',
+    'block pull',
+    'straight',
+    ['blocks'],
+    'lockout',
+    { elbow: 1, lowerBack: 2, hip: 1 },
+    2,
+    0.7,
+    'single',
+  ],
   [
     'Deficit deadlift, 5 cm',
     'deficit pull',
@@ -427,7 +469,7 @@ const hinge: Row[] = [
     'straight',
     ['bands'],
     'lockout',
-    { lowerBack: 2, hip: 2 },
+    { elbow: 1, lowerBack: 2, hip: 2 },
     2,
     0.8,
     'single',
@@ -438,7 +480,7 @@ const hinge: Row[] = [
     'straight',
     ['chains'],
     'lockout',
-    { lowerBack: 2, hip: 2 },
+    { elbow: 1, lowerBack: 2, hip: 2 },
     2,
     0.8,
     'single',
@@ -496,7 +538,7 @@ const hinge: Row[] = [
     'straight',
     [],
     'midRange',
-    { lowerBack: 2, hip: 2, knee: 1 },
+    { elbow: 1, lowerBack: 2, hip: 2, knee: 1 },
     1,
     1,
     'single',
@@ -508,7 +550,7 @@ const hinge: Row[] = [
     'straight',
     [],
     'midRange',
-    { lowerBack: 2, hip: 2, knee: 1 },
+    { elbow: 1, lowerBack: 2, hip: 2, knee: 1 },
     2,
     1,
     'single',
@@ -691,7 +733,7 @@ const press: Row[] = [
     'accommodated press',
     'straight',
     ['bands'],
-    'midRange',
+    'lockout',
     { shoulder: 1, elbow: 2, wrist: 2 },
     2,
     0.7,
@@ -767,6 +809,13 @@ const press: Row[] = [
   ],
 ];
 
+/** Meet rehearsals: picked only this many weeks before a meet or closer (common practice: the last three). */
+const MEET_PHASE_WEEKS: Record<string, number> = {
+  'Competition squat, opener single': 3,
+  'Competition deadlift, opener single': 3,
+  'Competition bench press, opener single': 3,
+};
+
 const toVariant =
   (lift: DemoVariant['lift']) =>
   ([name, family, bar, equipment, emphasis, stress, risk, specificity, scheme, notes]: Row): DemoVariant => ({
@@ -781,6 +830,7 @@ const toVariant =
     specificity,
     scheme,
     ...(notes ? { notes } : {}),
+    ...(MEET_PHASE_WEEKS[name] ? { meetPhaseWeeks: MEET_PHASE_WEEKS[name] } : {}),
   });
 
 // Good mornings and pulls fill the lower slot as hinge work, so they are tagged with the deadlift.

@@ -7,7 +7,8 @@ export interface DemoAthlete {
   sex: 'M' | 'F';
   birthYear: number;
   division: 'open' | 'junior' | 'subjunior';
-  level: 'novice' | 'intermediate' | 'advanced' | 'elite';
+  /** The heaviest risk tier the planner may pick; absent: no ceiling. */
+  maxRisk?: 1 | 2 | 3;
   email?: string;
   unit?: 'kg' | 'lb';
   /** Invented starting estimated maxes (kg) and bodyweight (kg) for the history. */
@@ -15,8 +16,22 @@ export interface DemoAthlete {
   bodyweight: number;
   /** Equipment the athlete cannot use (the rest of the gym's list applies). */
   lacks?: string[];
-  restriction?: { joint: 'elbow' | 'lowerBack' | 'shoulder' | 'knee'; maxStress: number; note: string };
+  restrictions?: DemoRestriction[];
+  /** Rest or deload weeks, in weeks from the current one. */
+  restInWeeks?: number[];
   meetInWeeks?: number;
+}
+
+/** A restriction, dated in weeks from the current one (the first from its Monday, the last to its Sunday). */
+export interface DemoRestriction {
+  joint?: 'elbow' | 'lowerBack' | 'shoulder' | 'knee';
+  maxStress?: number;
+  emphasis?: ('bottom' | 'midRange' | 'lockout')[];
+  families?: string[];
+  fromInWeeks: number;
+  /** Absent: no end set. */
+  toInWeeks?: number;
+  note: string;
 }
 
 export const DEMO_TEAM = { name: 'Copperkettle Barbell Club', unit: 'kg' as const, currency: 'EUR' };
@@ -33,7 +48,6 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'F',
     birthYear: 1998,
     division: 'open',
-    level: 'intermediate',
     email: 'athlete@rackturn.test',
     maxes: { squat: 132.5, bench: 72.5, deadlift: 160 },
     bodyweight: 61.8,
@@ -45,15 +59,18 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'M',
     birthYear: 1991,
     division: 'open',
-    level: 'advanced',
     email: 'dario@rackturn.test',
     maxes: { squat: 235, bench: 157.5, deadlift: 272.5 },
     bodyweight: 91.4,
-    restriction: {
-      joint: 'elbow',
-      maxStress: 1,
-      note: 'Irritated left elbow since the last block; no heavy lockout work.',
-    },
+    restrictions: [
+      {
+        joint: 'elbow',
+        maxStress: 1,
+        emphasis: ['lockout'],
+        fromInWeeks: -3,
+        note: 'Irritated left elbow since the last block; no heavy lockout work.',
+      },
+    ],
   },
   {
     key: 'keisha',
@@ -61,16 +78,18 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'F',
     birthYear: 1995,
     division: 'open',
-    level: 'advanced',
     email: 'keisha@rackturn.test',
     unit: 'lb',
     maxes: { squat: 167.5, bench: 95, deadlift: 195 },
     bodyweight: 75.2,
-    restriction: {
-      joint: 'lowerBack',
-      maxStress: 1,
-      note: 'Cranky lower back; keep spinal loading light until it settles.',
-    },
+    restrictions: [
+      {
+        joint: 'lowerBack',
+        maxStress: 1,
+        fromInWeeks: -3,
+        note: 'Cranky lower back; keep spinal loading light until it settles.',
+      },
+    ],
   },
   {
     key: 'jonas',
@@ -78,7 +97,6 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'M',
     birthYear: 1997,
     division: 'open',
-    level: 'intermediate',
     maxes: { squat: 195, bench: 130, deadlift: 230 },
     bodyweight: 82.1,
     meetInWeeks: 9,
@@ -89,7 +107,7 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'M',
     birthYear: 2004,
     division: 'junior',
-    level: 'novice',
+    maxRisk: 2,
     maxes: { squat: 140, bench: 95, deadlift: 170 },
     bodyweight: 77.6,
     lacks: ['cambered bar'],
@@ -100,7 +118,6 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'F',
     birthYear: 1993,
     division: 'open',
-    level: 'advanced',
     maxes: { squat: 150, bench: 85, deadlift: 182.5 },
     bodyweight: 68.3,
   },
@@ -110,9 +127,17 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'F',
     birthYear: 2006,
     division: 'junior',
-    level: 'intermediate',
     maxes: { squat: 110, bench: 60, deadlift: 135 },
     bodyweight: 56.4,
+    restrictions: [
+      {
+        emphasis: ['bottom'],
+        families: ['good morning'],
+        fromInWeeks: 2,
+        toInWeeks: 5,
+        note: 'Hamstring strain on the mend (invented): no bottom-position work or good mornings for four weeks.',
+      },
+    ],
   },
   {
     key: 'tomasz',
@@ -120,9 +145,9 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'M',
     birthYear: 1988,
     division: 'open',
-    level: 'elite',
     maxes: { squat: 300, bench: 200, deadlift: 325 },
     bodyweight: 118.7,
+    restInWeeks: [2],
   },
   {
     key: 'lucia',
@@ -130,7 +155,6 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'F',
     birthYear: 1999,
     division: 'open',
-    level: 'intermediate',
     maxes: { squat: 120, bench: 67.5, deadlift: 145 },
     bodyweight: 66.9,
   },
@@ -140,7 +164,6 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'M',
     birthYear: 2000,
     division: 'open',
-    level: 'intermediate',
     maxes: { squat: 180, bench: 125, deadlift: 215 },
     bodyweight: 88.5,
     lacks: ['chains'],
@@ -151,7 +174,7 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'F',
     birthYear: 2008,
     division: 'subjunior',
-    level: 'novice',
+    maxRisk: 2,
     maxes: { squat: 85, bench: 47.5, deadlift: 105 },
     bodyweight: 52.2,
   },
@@ -161,7 +184,6 @@ export const DEMO_ATHLETES: DemoAthlete[] = [
     sex: 'M',
     birthYear: 1994,
     division: 'open',
-    level: 'advanced',
     maxes: { squat: 250, bench: 165, deadlift: 280 },
     bodyweight: 104.3,
   },

@@ -7,7 +7,18 @@ import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
 import { suggestAttempts } from '../../../shared/schemas/meets';
 import type { Db, Tx } from '../client';
 import { hashPassword } from '../../lib/passwords';
-import { athletes, meetEntries, meets, memberships, restrictions, teamRules, teams, users, variants } from '../schema';
+import {
+  athletes,
+  meetEntries,
+  meets,
+  memberships,
+  restWeeks,
+  restrictions,
+  teamRules,
+  teams,
+  users,
+  variants,
+} from '../schema';
 import { DEMO_EQUIPMENT, DEMO_LIBRARY, OTHER_TEAM_LIBRARY, type DemoVariant } from './demo-library';
 import { DEMO_ATHLETES, DEMO_COACHES, DEMO_MEETS, DEMO_PASSWORD, DEMO_TEAM, OTHER_TEAM } from './demo-people';
 import { seedDemoHistory } from './demo-history';
@@ -50,6 +61,7 @@ async function insertLibrary(tx: Tx, teamId: number, library: DemoVariant[]): Pr
       specificity: v.specificity,
       scheme: v.scheme,
       notes: v.notes ?? null,
+      meetPhaseWeeks: v.meetPhaseWeeks ?? null,
     })),
   );
   const rows = await tx
@@ -103,22 +115,33 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
           sex: a.sex,
           birthYear: a.birthYear,
           division: a.division,
-          level: a.level,
+          maxRisk: a.maxRisk ?? null,
           equipment: DEMO_EQUIPMENT.filter((e) => !a.lacks?.includes(e)),
           ruleOverrides: {},
         })
         .$returningId();
       athleteIds.set(a.key, row!.id);
-      if (a.restriction) {
+      for (const r of a.restrictions ?? []) {
         await tx.insert(restrictions).values({
           teamId,
           athleteId: row!.id,
-          joint: a.restriction.joint,
-          maxStress: a.restriction.maxStress,
-          fromDate: isoDay(mondayOf(addWeeks(thisWeek, -3))),
-          note: a.restriction.note,
+          joint: r.joint ?? null,
+          maxStress: r.maxStress ?? null,
+          emphasis: r.emphasis ?? [],
+          families: r.families ?? [],
+          fromDate: isoDay(mondayOf(addWeeks(thisWeek, r.fromInWeeks))),
+          toDate:
+            r.toInWeeks === undefined
+              ? null
+              : isoDay(new Date(mondayOf(addWeeks(thisWeek, r.toInWeeks)).getTime() + 6 * 86_400_000)),
+          note: r.note,
           createdBy: staffIds[0] ?? null,
         });
+      }
+      for (const w of a.restInWeeks ?? []) {
+        await tx
+          .insert(restWeeks)
+          .values({ teamId, athleteId: row!.id, week: addWeeks(thisWeek, w), createdBy: staffIds[0] ?? null });
       }
     }
 

@@ -8,6 +8,7 @@ import {
   meets,
   memberships,
   planEntries,
+  restWeeks,
   restrictions,
   teamRules,
   topSets,
@@ -39,7 +40,7 @@ const athleteColumns = {
   sex: athletes.sex,
   birthYear: athletes.birthYear,
   division: athletes.division,
-  level: athletes.level,
+  maxRisk: athletes.maxRisk,
   equipment: athletes.equipment,
   ruleOverrides: athletes.ruleOverrides,
   notes: athletes.notes,
@@ -53,7 +54,8 @@ const athleteColumns = {
 
 const SORT: Record<(typeof athleteSortKeys)[number], SQL | AnyColumn> = {
   name: athletes.name,
-  level: sql`field(${athletes.level}, 'novice', 'intermediate', 'advanced', 'elite')`,
+  // No ceiling sorts after the highest one.
+  maxRisk: sql`coalesce(${athletes.maxRisk}, 4)`,
   division: athletes.division,
   createdAt: athletes.createdAt,
 };
@@ -63,7 +65,6 @@ export async function listAthletes(
   teamId: number,
   f: {
     q?: string | undefined;
-    level?: string | undefined;
     includeArchived: boolean;
     sort: Parameters<typeof readSort>[0];
     limit: number;
@@ -72,7 +73,6 @@ export async function listAthletes(
 ) {
   const where: (SQL | undefined)[] = [eq(athletes.teamId, teamId)];
   if (!f.includeArchived) where.push(isNull(athletes.archivedAt));
-  if (f.level) where.push(eq(athletes.level, f.level as 'novice'));
   if (f.q) where.push(like(athletes.name, containsPattern(f.q)));
   const cond = and(...where);
   const { key, desc: down } = readSort(f.sort as (typeof athleteSortKeys)[number]);
@@ -222,7 +222,9 @@ export async function updateRestriction(
   teamId: number,
   id: number,
   version: number,
-  values: Partial<Pick<RestrictionRow, 'joint' | 'maxStress' | 'fromDate' | 'toDate' | 'note'>>,
+  values: Partial<
+    Pick<RestrictionRow, 'joint' | 'maxStress' | 'emphasis' | 'families' | 'fromDate' | 'toDate' | 'note'>
+  >,
 ): Promise<boolean> {
   const [res] = await db
     .update(restrictions)
@@ -235,6 +237,33 @@ export async function deleteRestriction(db: Queryable, teamId: number, athleteId
   const [res] = await db
     .delete(restrictions)
     .where(and(eq(restrictions.teamId, teamId), eq(restrictions.athleteId, athleteId), eq(restrictions.id, id)));
+  return res.affectedRows > 0;
+}
+
+export async function findRestWeek(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const [row] = await db
+    .select({ athleteId: restWeeks.athleteId, week: restWeeks.week, createdAt: restWeeks.createdAt })
+    .from(restWeeks)
+    .where(and(eq(restWeeks.teamId, teamId), eq(restWeeks.athleteId, athleteId), eq(restWeeks.week, week)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Marks the week; a second mark of it (even a concurrent one) leaves the one row the unique key allows. */
+export async function insertRestWeek(
+  db: Queryable,
+  values: { teamId: number; athleteId: number; week: string; createdBy: number },
+): Promise<void> {
+  await db
+    .insert(restWeeks)
+    .values(values)
+    .onDuplicateKeyUpdate({ set: { week: sql`${restWeeks.week}` } });
+}
+
+export async function deleteRestWeek(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const [res] = await db
+    .delete(restWeeks)
+    .where(and(eq(restWeeks.teamId, teamId), eq(restWeeks.athleteId, athleteId), eq(restWeeks.week, week)));
   return res.affectedRows > 0;
 }
 

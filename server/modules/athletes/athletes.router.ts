@@ -9,6 +9,7 @@ import {
   restrictionBody,
   restrictionParams,
   restrictionPatchBody,
+  restWeekParams,
 } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
@@ -91,6 +92,25 @@ export function athletesRouter(ctx: AppContext): Router {
     staff,
     validate({ params: restrictionParams }, async ({ params }, req, res) => {
       await service.removeRestriction(ctx, authOf(req).teamId, params.id, params.restrictionId);
+      res.status(204).end();
+    }),
+  );
+
+  // A rest or deload week: the planner leaves the athlete's max-effort slots of that week empty.
+  router.put(
+    '/athletes/:athleteId/rest-weeks/:week',
+    staff,
+    validate({ params: restWeekParams }, async ({ params }, req, res) => {
+      const { created, item } = await service.markRestWeek(ctx, authOf(req), params.athleteId, params.week);
+      res.status(created ? 201 : 200).json(item);
+    }),
+  );
+
+  router.delete(
+    '/athletes/:athleteId/rest-weeks/:week',
+    staff,
+    validate({ params: restWeekParams }, async ({ params }, req, res) => {
+      await service.unmarkRestWeek(ctx, authOf(req).teamId, params.athleteId, params.week);
       res.status(204).end();
     }),
   );

@@ -1,12 +1,16 @@
 // The roster's rules: an athlete links to at most one athlete account of the same team, equipment
 // defaults to the gym's, athletes are archived (their history stays), and restrictions are versioned.
+import { weekOfDate } from '../../../shared/engine/weeks';
+import { dayWeek } from '../../../shared/planning';
 import {
   readRuleOverrides,
+  restrictionProblems,
   type Athlete,
   type AthleteHistory,
   type LinkableAccount,
   type ListResponse,
   type Restriction,
+  type RestWeek,
 } from '../../../shared/schemas';
 import type { z } from 'zod';
 import type {
@@ -32,8 +36,12 @@ export function toRestrictionDto(r: repo.RestrictionRow, today = todayIso()): Re
     athleteId: r.athleteId,
     joint: r.joint,
     maxStress: r.maxStress,
+    emphasis: r.emphasis,
+    families: r.families,
     fromDate: r.fromDate,
     toDate: r.toDate,
+    fromWeek: dayWeek(r.fromDate),
+    toWeek: r.toDate === null ? null : dayWeek(r.toDate),
     note: r.note,
     active: r.fromDate <= today && (r.toDate === null || r.toDate >= today),
     version: r.version,
@@ -61,7 +69,7 @@ async function toDtos(db: Queryable, teamId: number, rows: repo.AthleteRow[]): P
     sex: r.sex,
     birthYear: r.birthYear,
     division: r.division,
-    level: r.level,
+    maxRisk: r.maxRisk === null ? null : (r.maxRisk as 1 | 2 | 3),
     equipment: r.equipment,
     ruleOverrides: readRuleOverrides(r.ruleOverrides),
     notes: r.notes,
@@ -146,7 +154,7 @@ export async function createAthlete(ctx: AppContext, auth: AuthContext, body: z.
       sex: body.sex,
       birthYear: body.birthYear,
       division: body.division,
-      level: body.level,
+      maxRisk: body.maxRisk ?? null,
       equipment,
       ruleOverrides: body.ruleOverrides,
       notes: body.notes,
@@ -226,11 +234,17 @@ export async function patchRestriction(
   const current = await mustFindRestriction(db, teamId, athleteId, id);
   if (current.version !== body.version) throw new ConflictError(STALE_RESTRICTION, toRestrictionDto(current));
   const { version, ...fields } = body;
-  const fromDate = fields.fromDate ?? current.fromDate;
-  const toDate = fields.toDate === undefined ? current.toDate : fields.toDate;
-  if (toDate !== null && toDate < fromDate) {
-    throw new ValidationError('Some fields need attention.', { toDate: ['The end cannot be before the start'] });
-  }
+  // The edit is judged as the whole restriction it leaves behind.
+  const merged = {
+    joint: fields.joint === undefined ? current.joint : fields.joint,
+    maxStress: fields.maxStress === undefined ? current.maxStress : fields.maxStress,
+    emphasis: fields.emphasis ?? current.emphasis,
+    families: fields.families ?? current.families,
+    fromDate: fields.fromDate ?? current.fromDate,
+    toDate: fields.toDate === undefined ? current.toDate : fields.toDate,
+  };
+  const problems = restrictionProblems(merged);
+  if (Object.keys(problems).length) throw new ValidationError('Some fields need attention.', problems);
   const ok = await repo.updateRestriction(db, teamId, id, version, fields);
   const after = await mustFindRestriction(db, teamId, athleteId, id);
   if (!ok) throw new ConflictError(STALE_RESTRICTION, toRestrictionDto(after));
@@ -273,4 +287,37 @@ export async function athleteHistory(
     })),
     bodyweights: weights.map((w) => ({ measuredOn: w.measuredOn, weightKg: Number(w.weightKg) })),
   };
+}
+
+/** Rest weeks are planned ahead: a week already over is history. */
+function mustBePlannable(week: string) {
+  const thisWeek = weekOfDate(new Date());
+  if (week < thisWeek) {
+    throw new ValidationError('Some fields need attention.', {
+      week: [`Past weeks are history; use ${thisWeek} or later`],
+    });
+  }
+}
+
+/** Marks a rest or deload week; marking it again changes nothing. */
+export async function markRestWeek(
+  ctx: AppContext,
+  auth: AuthContext,
+  athleteId: number,
+  week: string,
+): Promise<{ created: boolean; item: RestWeek }> {
+  const db = ctx.database.db;
+  await mustFind(db, auth.teamId, athleteId);
+  mustBePlannable(week);
+  const before = await repo.findRestWeek(db, auth.teamId, athleteId, week);
+  if (!before) await repo.insertRestWeek(db, { teamId: auth.teamId, athleteId, week, createdBy: auth.userId });
+  const row = before ?? (await repo.findRestWeek(db, auth.teamId, athleteId, week))!;
+  return { created: !before, item: { athleteId, week, createdAt: row.createdAt.toISOString() } };
+}
+
+export async function unmarkRestWeek(ctx: AppContext, teamId: number, athleteId: number, week: string) {
+  const db = ctx.database.db;
+  await mustFind(db, teamId, athleteId);
+  mustBePlannable(week);
+  if (!(await repo.deleteRestWeek(db, teamId, athleteId, week))) throw new NotFoundError('That rest week');
 }

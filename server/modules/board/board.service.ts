@@ -3,22 +3,17 @@
 import { weekRange } from '../../../shared/engine';
 import type { BoardData, BoardQuery } from '../../../shared/schemas';
 import type { Db } from '../../db/client';
-import { daysOfWeeks, loadPlanning, today } from '../plans/plans.context';
+import { loadPlanning, today } from '../plans/plans.context';
 import { entryDtos } from '../plans/plans.dto';
 import { entriesOfAthletes } from '../plans/plans.repository';
 
 export async function loadBoard(db: Db, teamId: number, q: BoardQuery): Promise<BoardData> {
   const t = today();
-  const [, lastDay] = daysOfWeeks(q.from, q.to);
-  const planning = await loadPlanning(db, teamId, {
-    // Restrictions matter for the weeks still to plan: from today to the board's last day.
-    restrictionDays: [t.day < lastDay ? t.day : lastDay, lastDay],
-    today: t,
-  });
+  const planning = await loadPlanning(db, teamId, { today: t });
   const rows = await entriesOfAthletes(
     db,
     teamId,
-    planning.athletes.map((a) => a.board.id),
+    planning.athletes.map((a) => a.id),
   );
   const visible = rows.filter((r) => r.week >= q.from && r.week <= q.to);
   const context: BoardData['context'] = [];
@@ -36,7 +31,7 @@ export async function loadBoard(db: Db, teamId: number, q: BoardQuery): Promise<
     rulesVersion: planning.rulesVersion,
     slots: planning.slots,
     variants: planning.variants,
-    athletes: planning.athletes.map((a) => a.board),
+    athletes: planning.athletes,
     entries: await entryDtos(db, visible),
     context,
   };

@@ -1,10 +1,11 @@
 // Fill next week, Plan to meet and Reshuffle: gathers the team's planning facts and every athlete's
 // history, runs the engine, and writes what changed, with history rows, in one transaction.
 import { randomBytes } from 'node:crypto';
-import { addWeeks, generatePlan, weekRange, type PlanResult } from '../../../shared/engine';
+import { generatePlan, weekRange, type PlanResult } from '../../../shared/engine';
+import { buildPlanRequests } from '../../../shared/planning';
 import {
   MAX_GENERATE_WEEKS,
-  plainViolationMessage,
+  type BoardAthlete,
   type GenerateChange,
   type GenerateResult,
   type generateBody,
@@ -13,7 +14,7 @@ import type { z } from 'zod';
 import type { Db } from '../../db/client';
 import type { AuthContext } from '../../middleware/auth';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { daysOfWeeks, engineEntries, groupByRules, loadPlanning, today, type PlanningAthlete } from './plans.context';
+import { loadPlanning, today } from './plans.context';
 import { entryDtos } from './plans.dto';
 import {
   appendHistory,
@@ -34,21 +35,21 @@ type Body = z.output<typeof generateBody>;
 const key = (athleteId: number | string, week: string, slotId: string) => `${athleteId}|${week}|${slotId}`;
 
 interface Job {
-  athlete: PlanningAthlete;
+  athlete: BoardAthlete;
   weeks: string[];
 }
 
 /** The weeks each athlete gets filled, or why they are left out. */
 function weeksFor(
   body: Body,
-  athlete: PlanningAthlete,
+  athlete: BoardAthlete,
   rows: EntryRow[],
   next: string,
 ): { weeks: string[] } | { skip: string } {
   const cap = (last: string) => weekRange(next, last).slice(0, MAX_GENERATE_WEEKS);
   if (body.weeks === 'next') return { weeks: [next] };
   if (body.weeks === 'toMeet') {
-    const meet = athlete.board.meet;
+    const meet = athlete.meet;
     if (!meet) return { skip: 'no meet ahead' };
     if (meet.week < next) return { skip: 'the meet is this week' };
     return { weeks: cap(meet.week) };
@@ -83,13 +84,7 @@ export async function generate(db: Db, auth: AuthContext, body: Body): Promise<G
     }
     const ids = athletes.map((a) => a.id);
     const rows = await entriesOfAthletes(tx, teamId, ids, true);
-    const first = typeof body.weeks === 'object' ? body.weeks.from : t.next;
-    const planning = await loadPlanning(tx, teamId, {
-      athletes,
-      restrictionDays: daysOfWeeks(first, addWeeks(first, MAX_GENERATE_WEEKS)),
-      today: t,
-      ...(seed ? { seed } : {}),
-    });
+    const planning = await loadPlanning(tx, teamId, { athletes, today: t, ...(seed ? { seed } : {}) });
 
     const rowsOf = new Map<number, EntryRow[]>();
     for (const r of rows) {
@@ -100,39 +95,28 @@ export async function generate(db: Db, auth: AuthContext, body: Body): Promise<G
     const jobs: Job[] = [];
     const skipped: GenerateResult['skipped'] = [];
     for (const athlete of planning.athletes) {
-      const w = weeksFor(body, athlete, rowsOf.get(athlete.board.id) ?? [], t.next);
-      if ('skip' in w) skipped.push({ athleteId: athlete.board.id, reason: w.skip });
+      const w = weeksFor(body, athlete, rowsOf.get(athlete.id) ?? [], t.next);
+      if ('skip' in w) skipped.push({ athleteId: athlete.id, reason: w.skip });
       else jobs.push({ athlete, weeks: w.weeks });
     }
 
+    // Athletes filled over the same weeks share requests (one per set of effective rules).
+    const byWeeks = new Map<string, Job[]>();
+    for (const j of jobs) {
+      const k = j.weeks.join(',');
+      byWeeks.set(k, [...(byWeeks.get(k) ?? []), j]);
+    }
     const results: PlanResult[] = [];
-    for (const group of groupByRules(jobs, (j) => j.weeks.join(','))) {
+    for (const group of byWeeks.values()) {
       const weeks = group[0]!.weeks;
-      const [fromDay, toDay] = daysOfWeeks(weeks[0]!, weeks[weeks.length - 1]!);
       const inFill = new Set(weeks);
-      const own = group.flatMap((j) => rowsOf.get(j.athlete.board.id) ?? []);
-      const planned = engineEntries(
-        own.filter(
-          (r) => r.week >= weeks[0]! && !(body.reshuffle && inFill.has(r.week) && r.source === 'engine' && !r.pinned),
-        ),
-      );
-      results.push(
-        generatePlan({
-          variants: planning.engineVariants,
-          slots: planning.slots,
-          athletes: group.map((j) => ({
-            ...j.athlete.input,
-            // Restrictions count when in force during the weeks being filled.
-            restrictions: j.athlete.board.restrictions
-              .filter((r) => r.fromDate <= toDay && (r.toDate === null || r.toDate >= fromDay))
-              .map((r) => ({ joint: r.joint, maxStress: r.maxStress })),
-            history: engineEntries((rowsOf.get(j.athlete.board.id) ?? []).filter((r) => r.week < weeks[0]!)),
-          })),
-          rules: group[0]!.athlete.rules,
-          weeks,
-          planned,
-        }),
-      );
+      const athleteIds = group.map((j) => j.athlete.id);
+      // A reshuffle re-picks every unpinned engine pick in the weeks it fills.
+      const entries = athleteIds
+        .flatMap((id) => rowsOf.get(id) ?? [])
+        .filter((r) => !(body.reshuffle && inFill.has(r.week) && r.source === 'engine' && !r.pinned));
+      for (const g of buildPlanRequests(planning, { weeks, entries, athleteIds }))
+        results.push(generatePlan(g.request));
     }
 
     const rowAt = new Map(rows.map((r) => [key(r.athleteId, r.week, r.slotId), r]));
@@ -195,12 +179,7 @@ export async function generate(db: Db, auth: AuthContext, body: Body): Promise<G
         const row = rowAt.get(key(athleteId, u.week, u.slotId));
         let dropped: GenerateResult['unfilled'][number]['dropped'] = null;
         if (u.dropped) {
-          const v = planning.variantById.get(Number(u.dropped.variantId));
-          dropped = {
-            variantId: Number(u.dropped.variantId),
-            rule: u.dropped.rule,
-            message: plainViolationMessage(u.dropped.message, v?.name, !!v?.archived),
-          };
+          dropped = { variantId: Number(u.dropped.variantId), rule: u.dropped.rule, message: u.dropped.message };
         }
         if (dropped && row && row.variantId !== null) {
           // Nothing valid could replace it: the cell is emptied rather than left breaking a rule.
@@ -215,6 +194,20 @@ export async function generate(db: Db, auth: AuthContext, body: Body): Promise<G
           written.push({ ...done, swap: null });
         }
         unfilled.push({ athleteId, week: u.week, slotId: u.slotId, blockedBy: u.blockedBy, dropped });
+      }
+      // A rest week holds no max-effort pick: what the engine took out of one is emptied here.
+      for (const c of result.cleared ?? []) {
+        const row = rowAt.get(key(c.athleteId, c.week, c.slotId));
+        if (!row || row.variantId === null || row.pinned) continue;
+        const done = await write(Number(c.athleteId), c.week, c.slotId, {
+          variantId: null,
+          source: 'engine',
+          pinned: false,
+          reason: null,
+          reasons: ['cleared: rest week'],
+          updatedBy: auth.userId,
+        });
+        written.push({ ...done, swap: null });
       }
     }
     await appendHistory(tx, history);

@@ -1,12 +1,11 @@
 // What planning needs to know about a team, read once per request: rules and seed, the library, and each
-// athlete's equipment, restrictions, next meet and effective rules, in the engine's terms.
-import type { AthleteInput, PlanEntry, Rules, Variant } from '../../../shared/engine';
+// athlete's equipment, restrictions, rest weeks, risk ceiling and next meet, as stored. The engine's
+// requests are built from these facts by the shared request builder, exactly as the board builds them.
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine';
+import type { PlanningFacts } from '../../../shared/planning';
 import {
   readRuleOverrides,
   readTeamRules,
-  toEngineRules,
-  toEngineVariant,
   type AthleteRuleOverrides,
   type BoardAthlete,
   type BoardRestriction,
@@ -18,11 +17,11 @@ import type { Queryable } from '../../db/client';
 import {
   listAthletes,
   readRulesRow,
+  restWeeksFor,
   restrictionsFor,
   teamVariants,
   upcomingMeets,
   type AthleteRow,
-  type EntryRow,
 } from './plans.repository';
 
 const DAY_MS = 86_400_000;
@@ -47,26 +46,16 @@ export function today(now = new Date()): Today {
   return { day: isoDay(now), week, next: addWeeks(week, 1) };
 }
 
-export interface PlanningAthlete {
-  board: BoardAthlete;
-  /** The engine's view, without history (added per request). */
-  input: Omit<AthleteInput, 'history'>;
-  rules: Rules;
-  /** Same string for athletes whose effective rules are the same. */
-  rulesKey: string;
-}
-
-export interface Planning {
+export interface Planning extends PlanningFacts {
   rules: TeamRules;
   seed: string;
   rulesVersion: number;
   gymEquipment: string[];
   slots: BoardSlot[];
   variants: BoardVariant[];
-  engineVariants: Variant[];
   variantById: Map<number, BoardVariant>;
-  athletes: PlanningAthlete[];
-  athleteById: Map<number, PlanningAthlete>;
+  athletes: BoardAthlete[];
+  athleteById: Map<number, BoardAthlete>;
 }
 
 function boardVariant(v: Awaited<ReturnType<typeof teamVariants>>[number]): BoardVariant {
@@ -82,18 +71,20 @@ function boardVariant(v: Awaited<ReturnType<typeof teamVariants>>[number]): Boar
     risk: v.risk as 1 | 2 | 3,
     specificity: Number(v.specificity),
     scheme: v.scheme,
+    meetPhaseWeeks: v.meetPhaseWeeks,
     archived: v.archivedAt !== null,
   };
 }
 
 /**
- * Reads the team's planning facts. `athletes` defaults to everyone on the board; restrictions count when
- * they are in force on some day of `restrictionDays`.
+ * Reads the team's planning facts. `athletes` defaults to everyone on the board. Every restriction that
+ * has not ended before this week is read, whatever weeks the caller plans: the request builder hands each
+ * to the engine with its own weeks, so the board and the server judge a cell from the same facts.
  */
 export async function loadPlanning(
   db: Queryable,
   teamId: number,
-  opts: { athletes?: AthleteRow[]; restrictionDays: [string, string]; today: Today; seed?: string },
+  opts: { athletes?: AthleteRow[]; today: Today; seed?: string },
 ): Promise<Planning> {
   const [rulesRow, variantRows, athleteRows] = await Promise.all([
     readRulesRow(db, teamId),
@@ -101,9 +92,10 @@ export async function loadPlanning(
     opts.athletes ? Promise.resolve(opts.athletes) : listAthletes(db, teamId),
   ]);
   const ids = athleteRows.map((a) => a.id);
-  const [restrictionRows, meetRows] = await Promise.all([
-    restrictionsFor(db, teamId, ids, opts.restrictionDays[0], opts.restrictionDays[1]),
+  const [restrictionRows, meetRows, restRows] = await Promise.all([
+    restrictionsFor(db, teamId, ids, isoDay(mondayOf(opts.today.week))),
     upcomingMeets(db, teamId, ids, opts.today.day),
+    restWeeksFor(db, teamId, ids),
   ]);
 
   const rules = readTeamRules(rulesRow?.rules);
@@ -115,8 +107,22 @@ export async function loadPlanning(
   const restrictionsOf = new Map<number, BoardRestriction[]>();
   for (const r of restrictionRows) {
     const list = restrictionsOf.get(r.athleteId) ?? [];
-    list.push({ joint: r.joint, maxStress: r.maxStress, fromDate: r.fromDate, toDate: r.toDate, note: r.note });
+    list.push({
+      joint: r.joint,
+      maxStress: r.maxStress,
+      emphasis: r.emphasis,
+      families: r.families,
+      fromDate: r.fromDate,
+      toDate: r.toDate,
+      note: r.note,
+    });
     restrictionsOf.set(r.athleteId, list);
+  }
+  const restOf = new Map<number, string[]>();
+  for (const r of restRows) {
+    const list = restOf.get(r.athleteId) ?? [];
+    list.push(r.week);
+    restOf.set(r.athleteId, list);
   }
   const meetOf = new Map<number, BoardAthlete['meet']>();
   for (const m of meetRows) {
@@ -129,29 +135,16 @@ export async function loadPlanning(
     });
   }
 
-  const athletes = athleteRows.map((row): PlanningAthlete => {
-    const ruleOverrides: AthleteRuleOverrides = readRuleOverrides(row.ruleOverrides);
-    const board: BoardAthlete = {
-      id: row.id,
-      name: row.name,
-      equipment: row.equipment.filter((e) => gym.has(e)),
-      restrictions: restrictionsOf.get(row.id) ?? [],
-      meet: meetOf.get(row.id) ?? null,
-      ruleOverrides,
-    };
-    const engineRules = toEngineRules(rules, seed, ruleOverrides);
-    return {
-      board,
-      input: {
-        id: String(row.id),
-        equipment: board.equipment,
-        restrictions: board.restrictions.map((r) => ({ joint: r.joint, maxStress: r.maxStress })),
-        ...(board.meet ? { meetWeek: board.meet.week } : {}),
-      },
-      rules: engineRules,
-      rulesKey: JSON.stringify(engineRules),
-    };
-  });
+  const athletes = athleteRows.map((row): BoardAthlete => ({
+    id: row.id,
+    name: row.name,
+    equipment: row.equipment.filter((e) => gym.has(e)),
+    restrictions: restrictionsOf.get(row.id) ?? [],
+    meet: meetOf.get(row.id) ?? null,
+    ruleOverrides: readRuleOverrides(row.ruleOverrides) satisfies AthleteRuleOverrides,
+    maxRisk: row.maxRisk === null ? null : (Math.min(3, Math.max(1, row.maxRisk)) as 1 | 2 | 3),
+    restWeeks: restOf.get(row.id) ?? [],
+  }));
 
   return {
     rules,
@@ -160,40 +153,8 @@ export async function loadPlanning(
     gymEquipment,
     slots: rules.slots.map((s) => ({ id: s.id, label: s.label, lifts: [...s.lifts] })),
     variants,
-    engineVariants: variants.map(toEngineVariant),
     variantById: new Map(variants.map((v) => [v.id, v])),
     athletes,
-    athleteById: new Map(athletes.map((a) => [a.board.id, a])),
+    athleteById: new Map(athletes.map((a) => [a.id, a])),
   };
-}
-
-/** Entries that hold a variant, in the engine's terms. */
-export function engineEntries(rows: Pick<EntryRow, 'athleteId' | 'week' | 'slotId' | 'variantId' | 'pinned'>[]) {
-  const out: PlanEntry[] = [];
-  for (const r of rows) {
-    if (r.variantId === null) continue;
-    out.push({
-      athleteId: String(r.athleteId),
-      week: r.week,
-      slotId: r.slotId,
-      variantId: String(r.variantId),
-      pinned: r.pinned,
-    });
-  }
-  return out;
-}
-
-/** Athletes with the same effective rules, so one engine request can serve them all. */
-export function groupByRules<T extends { athlete: PlanningAthlete }>(
-  items: T[],
-  extraKey: (t: T) => string = () => '',
-) {
-  const groups = new Map<string, T[]>();
-  for (const item of items) {
-    const key = `${item.athlete.rulesKey}|${extraKey(item)}`;
-    const list = groups.get(key);
-    if (list) list.push(item);
-    else groups.set(key, [item]);
-  }
-  return [...groups.values()];
 }

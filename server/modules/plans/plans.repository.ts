@@ -9,6 +9,7 @@ import {
   meets,
   planEntries,
   planEntryHistory,
+  restWeeks,
   restrictions,
   teamRules,
   users,
@@ -17,13 +18,14 @@ import {
 import type { PlanCell, PlanListQuery } from '../../../shared/schemas';
 
 export type EntryRow = typeof planEntries.$inferSelect;
-export type AthleteRow = Pick<typeof athletes.$inferSelect, 'id' | 'name' | 'equipment' | 'ruleOverrides'>;
+export type AthleteRow = Pick<typeof athletes.$inferSelect, 'id' | 'name' | 'equipment' | 'ruleOverrides' | 'maxRisk'>;
 
 const athleteCols = {
   id: athletes.id,
   name: athletes.name,
   equipment: athletes.equipment,
   ruleOverrides: athletes.ruleOverrides,
+  maxRisk: athletes.maxRisk,
 };
 
 /** The team's athletes on the board (not archived), by name; only `ids` when given. */
@@ -64,14 +66,8 @@ export async function teamVariants(db: Queryable, teamId: number) {
   return db.select().from(variants).where(eq(variants.teamId, teamId)).orderBy(asc(variants.name));
 }
 
-/** Restrictions of these athletes in force on some day of [fromDay, toDay]. */
-export async function restrictionsFor(
-  db: Queryable,
-  teamId: number,
-  athleteIds: number[],
-  fromDay: string,
-  toDay: string,
-) {
+/** Restrictions of these athletes that have not ended before `fromDay`. */
+export async function restrictionsFor(db: Queryable, teamId: number, athleteIds: number[], fromDay: string) {
   if (athleteIds.length === 0) return [];
   return db
     .select()
@@ -80,11 +76,20 @@ export async function restrictionsFor(
       and(
         eq(restrictions.teamId, teamId),
         inArray(restrictions.athleteId, athleteIds),
-        lte(restrictions.fromDate, toDay),
         or(isNull(restrictions.toDate), gte(restrictions.toDate, fromDay)),
       ),
     )
     .orderBy(asc(restrictions.fromDate), asc(restrictions.id));
+}
+
+/** Every rest week of these athletes, oldest first. */
+export async function restWeeksFor(db: Queryable, teamId: number, athleteIds: number[]) {
+  if (athleteIds.length === 0) return [];
+  return db
+    .select({ athleteId: restWeeks.athleteId, week: restWeeks.week })
+    .from(restWeeks)
+    .where(and(eq(restWeeks.teamId, teamId), inArray(restWeeks.athleteId, athleteIds)))
+    .orderBy(asc(restWeeks.athleteId), asc(restWeeks.week));
 }
 
 /** Meets on or after `today` that these athletes are entered in, soonest first. */

@@ -1,14 +1,8 @@
 // Saving plan cells: checks that the athlete, slot and variant are the team's, refuses a stale version,
 // asks for a reason when the pick breaks a rule, and writes each change with its history row in one transaction.
+import { prepareCandidateChecks, weekRange, type CandidateChecks, type Violation } from '../../../shared/engine';
+import { buildPlanRequests, type StoredEntry } from '../../../shared/planning';
 import {
-  prepareCandidateChecks,
-  weekRange,
-  type CandidateChecks,
-  type PlanEntry,
-  type Violation,
-} from '../../../shared/engine';
-import {
-  plainViolationMessage,
   type PlanCell,
   type PlanEntryDto,
   type PlanHistoryList,
@@ -19,7 +13,7 @@ import {
 import type { Db, Queryable } from '../../db/client';
 import type { AuthContext } from '../../middleware/auth';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { daysOfWeeks, engineEntries, groupByRules, loadPlanning, today, type Planning } from './plans.context';
+import { loadPlanning, today, type Planning } from './plans.context';
 import { entryDtos } from './plans.dto';
 import {
   appendHistory,
@@ -87,39 +81,31 @@ function checkInputs(planning: Planning, changes: CellChange[], field: FieldPath
 
 /** Engine checks over the board as it will be once every change is made. */
 function checksAfter(planning: Planning, rows: EntryRow[], changes: CellChange[]): Map<string, CandidateChecks> {
-  const changed = new Map(changes.map((c) => [cellKey(c), c]));
-  const planned: PlanEntry[] = engineEntries(rows.filter((r) => !changed.has(cellKey(r))));
-  for (const c of changes) {
-    if (c.variantId === null) continue;
-    planned.push(...engineEntries([{ ...c, pinned: !!c.pinned }]));
-  }
+  const changed = new Set(changes.map(cellKey));
+  const entries: StoredEntry[] = rows.filter((r) => !changed.has(cellKey(r)));
+  for (const c of changes) entries.push({ ...c, pinned: !!c.pinned });
   const weeks = changes.map((c) => c.week).sort();
-  const span = weekRange(weeks[0]!, weeks[weeks.length - 1]!);
   const out = new Map<string, CandidateChecks>();
-  const items = [...new Set(changes.map((c) => c.athleteId))].map((id) => ({ athlete: planning.athleteById.get(id)! }));
-  for (const group of groupByRules(items)) {
-    const checks = prepareCandidateChecks({
-      variants: planning.engineVariants,
-      slots: planning.slots,
-      athletes: group.map((g) => ({ ...g.athlete.input, history: [] })),
-      rules: group[0]!.athlete.rules,
-      weeks: span,
-      planned,
-    });
-    for (const g of group) out.set(g.athlete.input.id, checks);
+  const groups = buildPlanRequests(planning, {
+    weeks: weekRange(weeks[0]!, weeks[weeks.length - 1]!),
+    entries,
+    athleteIds: [...new Set(changes.map((c) => c.athleteId))],
+  });
+  for (const g of groups) {
+    const checks = prepareCandidateChecks(g.request);
+    for (const id of g.athleteIds) out.set(String(id), checks);
   }
   return out;
 }
 
-function violationDto(planning: Planning, v: Violation) {
-  const variant = planning.variantById.get(Number(v.variantId));
+function violationDto(v: Violation) {
   return {
     rule: v.rule,
     athleteId: Number(v.athleteId),
     week: v.week,
     slotId: v.slotId,
     variantId: Number(v.variantId),
-    message: plainViolationMessage(v.message, variant?.name, !!variant?.archived),
+    message: v.message,
   };
 }
 
@@ -159,12 +145,7 @@ export async function saveChanges(
       const athleteIds = [...new Set(changes.map((c) => c.athleteId))];
       const athletes = await listAthletes(tx, auth.teamId, athleteIds);
       if (athletes.length !== athleteIds.length) throw new NotFoundError('That athlete');
-      const weeks = changes.map((c) => c.week).sort();
-      const planning = await loadPlanning(tx, auth.teamId, {
-        athletes,
-        restrictionDays: daysOfWeeks(weeks[0]!, weeks[weeks.length - 1]!),
-        today: t,
-      });
+      const planning = await loadPlanning(tx, auth.teamId, { athletes, today: t });
       checkInputs(planning, changes, field, t.week);
 
       // One locking read of these athletes' entries: the cells to change, and the rest of their board for
@@ -189,7 +170,7 @@ export async function saveChanges(
         if (!found.length) return;
         breaking.add(i);
         if (!c.reason) {
-          const list = found.map((v) => violationDto(planning, v));
+          const list = found.map(violationDto);
           needReason.push(...list);
           fields[field(i, 'reason')] = [`This pick breaks a rule (${list.map((v) => v.message).join('; ')}): say why`];
         }

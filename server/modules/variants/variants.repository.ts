@@ -28,6 +28,7 @@ function columns() {
     specificity: variants.specificity,
     scheme: variants.scheme,
     notes: variants.notes,
+    meetPhaseWeeks: variants.meetPhaseWeeks,
     archivedAt: variants.archivedAt,
     version: variants.version,
     createdAt: variants.createdAt,

@@ -35,6 +35,7 @@ export function toVariantDto(r: repo.VariantRow): LibraryVariant {
     specificity: Number(r.specificity),
     scheme: r.scheme,
     notes: r.notes,
+    meetPhaseWeeks: r.meetPhaseWeeks,
     archived: r.archivedAt !== null,
     inHistory: r.inHistory,
     version: r.version,
@@ -185,6 +186,7 @@ function unchanged(existing: repo.VariantRow, row: LibraryCsvRow): boolean {
     Number(existing.specificity) === v.specificity &&
     existing.scheme === v.scheme &&
     (existing.notes ?? null) === v.notes &&
+    (v.meetPhaseWeeks === undefined || existing.meetPhaseWeeks === v.meetPhaseWeeks) &&
     (existing.archivedAt !== null) === row.archived
   );
 }

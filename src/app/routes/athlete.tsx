@@ -14,7 +14,7 @@ import { AthleteMeetsPanel } from '../../features/roster/components/athlete-meet
 import { AthleteProfileForm } from '../../features/roster/components/athlete-profile-form';
 import { EquipmentPanel } from '../../features/roster/components/equipment-panel';
 import { HistoryPanel } from '../../features/roster/components/history-panel';
-import { DIVISION_LABEL, LEVEL_LABEL, formatDate } from '../../features/roster/components/labels';
+import { DIVISION_LABEL, formatDate, maxRiskText } from '../../features/roster/components/labels';
 import { OverridesPanel } from '../../features/roster/components/overrides-panel';
 import { Panel } from '../../features/roster/components/panel';
 import { RestrictionsPanel } from '../../features/roster/components/restrictions-panel';
@@ -70,7 +70,7 @@ export function Component() {
       <PageHeader
         title={athlete.name}
         subtitle={[
-          LEVEL_LABEL[athlete.level],
+          `Heaviest risk allowed: ${maxRiskText(athlete.maxRisk).toLowerCase()}`,
           `${DIVISION_LABEL[athlete.division]} · ${athlete.sex === 'F' ? 'women' : 'men'}`,
           age ? `about ${age}` : null,
           athlete.latestBodyweight

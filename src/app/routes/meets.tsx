@@ -13,7 +13,7 @@ import { dateText, meetWhen } from '../../features/meets/components/when';
 import { athleteListOptions } from '../../features/roster/api/queries';
 import type { LoaderMaker } from '../guards';
 
-const ALL_ATHLETES = { q: '', level: '' as const, includeArchived: false, sort: 'name' };
+const ALL_ATHLETES = { q: '', includeArchived: false, sort: 'name' };
 
 export const makeLoader: LoaderMaker =
   (queryClient) =>

@@ -6,11 +6,10 @@ import { useNavigate, useSearchParams } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
 import { Dialog } from '../../components/ui/dialog';
 import { CheckboxField } from '../../components/ui/choices';
-import { SelectField, TextField } from '../../components/ui/field';
+import { TextField } from '../../components/ui/field';
 import { Notice, PageHeader } from '../../components/ui/page';
 import { athleteListOptions, rosterFiltersFromSearch, type RosterFilters } from '../../features/roster/api/queries';
 import { AthleteProfileForm } from '../../features/roster/components/athlete-profile-form';
-import { LEVEL_LABEL } from '../../features/roster/components/labels';
 import { RosterTable } from '../../features/roster/components/roster-table';
 import { rulesOptions } from '../../features/rules/api/queries';
 import { InvitePanel } from '../../features/invitations/components/invite-panel';
@@ -30,7 +29,6 @@ export const makeLoader: LoaderMaker =
 function toSearch(f: RosterFilters) {
   const p = new URLSearchParams();
   if (f.q) p.set('q', f.q);
-  if (f.level) p.set('level', f.level);
   if (f.includeArchived) p.set('archived', 'shown');
   return p;
 }
@@ -68,21 +66,9 @@ export function Component() {
       <div
         role="search"
         aria-label="Filter the roster"
-        className="grid gap-3 rounded-lg border border-chalk-300 bg-chalk-100 p-3 sm:grid-cols-[2fr_1fr_auto] sm:items-end"
+        className="grid gap-3 rounded-lg border border-chalk-300 bg-chalk-100 p-3 sm:grid-cols-[2fr_auto] sm:items-end"
       >
         <TextField label="Search" type="search" placeholder="Name" value={q} onChange={(e) => setQ(e.target.value)} />
-        <SelectField
-          label="Level"
-          value={filters.level}
-          onChange={(e) => set({ level: e.target.value as RosterFilters['level'] })}
-        >
-          <option value="">All levels</option>
-          {(Object.keys(LEVEL_LABEL) as (keyof typeof LEVEL_LABEL)[]).map((l) => (
-            <option key={l} value={l}>
-              {LEVEL_LABEL[l]}
-            </option>
-          ))}
-        </SelectField>
         <CheckboxField
           label="Show archived"
           checked={filters.includeArchived}

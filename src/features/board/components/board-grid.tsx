@@ -5,11 +5,13 @@
 import { memo, useEffect, useLayoutEffect, useMemo, useState, type RefObject } from 'react';
 import { SortableContext } from '@dnd-kit/sortable';
 import { BreakIcon, CleanIcon, WarningIcon } from '../../../components/ui/icons';
+import { restrictionTag } from '../../../../shared/planning/words';
 import { BOARD_DATA_MARK } from '../api/queries';
 import { cellKey, type AthleteView, type BoardModel, type CellKey, type Ratings } from '../model/board-model';
 import { cellDndId } from '../model/dnd';
 import { jointWords, percent, shortWeek, weekStart } from '../model/words';
 import { JointBars, loadState } from './joint-strip';
+import { RestWeekControl } from './rest-week-control';
 import { EditableSlot, PastSlot } from './slot-target';
 
 /** Column widths in px: fixed, so rows line up and the view can be placed without measuring. */
@@ -29,7 +31,7 @@ export const BOARD_PAINT_MEASURE = 'board:paint';
  * Every athlete row has the same height (its slots and the joint strip), so rows far off screen can be
  * left out of the document and replaced by one spacer of the right height.
  */
-export const rowHeight = (slots: number) => 44 + 62 * slots;
+export const rowHeight = (slots: number) => 68 + 62 * slots; // 24 of it for the rest-week line
 const HEAD_HEIGHT = 52;
 /** Rows kept in the document beyond the visible ones, above and below (px). */
 const OVERSCAN = 200;
@@ -230,12 +232,12 @@ const AthleteRow = memo(function AthleteRow({ index, height, view, model, rating
         ) : null}
         {a.restrictions.map((r) => (
           <span
-            key={`${r.joint}${r.fromDate}`}
+            key={`${restrictionTag(r)}${r.fromDate}`}
             className="mr-1 mt-0.5 inline-flex items-center gap-0.5 rounded bg-caution-100 px-1 text-[11px] font-semibold text-caution-700"
             title={r.note ?? undefined}
           >
             <WarningIcon width={11} height={11} />
-            {jointWords(r.joint)} ≤ {r.maxStress}
+            {restrictionTag(r)}
           </span>
         ))}
         <PeakLine view={view} />
@@ -261,6 +263,7 @@ const AthleteRow = memo(function AthleteRow({ index, height, view, model, rating
                   : 'bg-chalk-100'
             }`}
           >
+            <RestWeekControl athlete={a} week={week} editable={!past} />
             {model.slots.map((slot) => {
               const key = cellKey(a.id, week, slot.id);
               const entry = model.entryAt.get(key);

@@ -9,16 +9,10 @@ import {
   type CandidateChecks,
   type JointLoadPoint,
   type PlanEntry,
-  type PlanRequest,
   type Rules,
-  type Variant,
-  type Violation,
 } from '../../../../shared/engine';
+import { buildPlanRequests, type RulesGroup, type StoredEntry } from '../../../../shared/planning';
 import {
-  plainViolationMessage,
-  toEnginePlanEntry,
-  toEngineRules,
-  toEngineVariant,
   type BoardAthlete,
   type BoardData,
   type BoardSlot,
@@ -41,12 +35,7 @@ export function parseCellKey(key: CellKey): CellRef {
   return { athleteId: Number(athleteId), week: week!, slotId: slotId! };
 }
 
-export interface RulesGroup {
-  rules: Rules;
-  athleteIds: number[];
-  /** One engine request for the group over the board's weeks, with every entry on the board. */
-  request: PlanRequest;
-}
+export type { RulesGroup };
 
 export interface AthleteView {
   athlete: BoardAthlete;
@@ -81,28 +70,9 @@ export interface BoardModel {
   facts: ReadonlyMap<number, AthleteFacts>;
 }
 
-function violationText(v: Violation, byId: Map<number, BoardVariant>): string {
-  const variant = byId.get(Number(v.variantId));
-  return plainViolationMessage(v.message, variant?.name, !!variant?.archived);
-}
-
-/** Engine entries of the board: every visible entry with a variant, plus the context around it. */
-function boardEntries(data: BoardData): { history: Map<string, PlanEntry[]>; planned: PlanEntry[] } {
-  const history = new Map<string, PlanEntry[]>();
-  const planned: PlanEntry[] = [];
-  for (const c of data.context) {
-    const e = toEnginePlanEntry(c);
-    if (c.week < data.from) {
-      const list = history.get(e.athleteId);
-      if (list) list.push(e);
-      else history.set(e.athleteId, [e]);
-    } else planned.push(e);
-  }
-  for (const d of data.entries) {
-    if (d.variantId === null) continue;
-    planned.push(toEnginePlanEntry({ ...d, variantId: d.variantId }));
-  }
-  return { history, planned };
+/** Every stored entry the snapshot carries: the board's weeks and the context around them. */
+function storedEntries(data: BoardData): StoredEntry[] {
+  return [...data.context, ...data.entries];
 }
 
 /**
@@ -111,43 +81,11 @@ function boardEntries(data: BoardData): { history: Map<string, PlanEntry[]>; pla
  */
 export function buildBoardModel(data: BoardData, prev?: BoardModel): BoardModel {
   const variantById = new Map(data.variants.map((v) => [v.id, v]));
-  const variants: Variant[] = data.variants.map(toEngineVariant);
-  const { history, planned } = boardEntries(data);
-
-  const byGroup = new Map<string, { rules: Rules; athletes: BoardAthlete[] }>();
-  for (const a of data.athletes) {
-    const rules = toEngineRules(data.rules, data.seed, a.ruleOverrides);
-    const key = JSON.stringify(rules);
-    const g = byGroup.get(key) ?? { rules, athletes: [] };
-    g.athletes.push(a);
-    byGroup.set(key, g);
-  }
-  const groups: RulesGroup[] = [];
+  // One request per rules group over the board's weeks, through the same builder the server uses.
+  const groups = buildPlanRequests(data, { weeks: data.weeks, entries: storedEntries(data) });
   const groupOf = new Map<number, RulesGroup>();
-  for (const g of byGroup.values()) {
-    const ids = new Set(g.athletes.map((a) => String(a.id)));
-    const inputs: AthleteInput[] = g.athletes.map((a) => ({
-      id: String(a.id),
-      equipment: a.equipment,
-      restrictions: a.restrictions.map((r) => ({ joint: r.joint, maxStress: r.maxStress })),
-      ...(a.meet ? { meetWeek: a.meet.week } : {}),
-      history: history.get(String(a.id)) ?? [],
-    }));
-    const group: RulesGroup = {
-      rules: g.rules,
-      athleteIds: g.athletes.map((a) => a.id),
-      request: {
-        variants,
-        slots: data.slots.map((s) => ({ id: s.id, lifts: s.lifts })),
-        athletes: inputs,
-        rules: g.rules,
-        weeks: data.weeks,
-        planned: planned.filter((e) => ids.has(e.athleteId)),
-      },
-    };
-    groups.push(group);
-    for (const a of g.athletes) groupOf.set(a.id, group);
-  }
+  for (const g of groups) for (const id of g.athleteIds) groupOf.set(id, g);
+  const planned = groups.flatMap((g) => g.request.planned ?? []);
 
   const entryAt = new Map<CellKey, PlanEntryDto>();
   for (const e of data.entries) entryAt.set(cellKey(e.athleteId, e.week, e.slotId), e);
@@ -181,7 +119,7 @@ export function buildBoardModel(data: BoardData, prev?: BoardModel): BoardModel 
       const warnings = new Map<CellKey, string[]>();
       for (const v of checkPlan(g.request, own)) {
         const key = cellKey(id, v.week, v.slotId);
-        warnings.set(key, [...(warnings.get(key) ?? []), violationText(v, variantById)]);
+        warnings.set(key, [...(warnings.get(key) ?? []), v.message]);
       }
       made = {
         sig,
@@ -248,6 +186,8 @@ function signature(rules: Rules, input: AthleteInput, own: PlanEntry[], weeks: s
     input.equipment.join(','),
     JSON.stringify(input.restrictions),
     input.meetWeek ?? '',
+    input.maxRisk ?? '',
+    (input.restWeeks ?? []).join(','),
     weeks[0],
     weeks.length,
     entries(input.history),
@@ -324,7 +264,7 @@ export function prepareRatings(model: BoardModel, source: DragSource): Ratings {
     if (r.status === 'clean') return CLEAN;
     return {
       status: r.status,
-      breaks: r.violations.map((v) => violationText(v, model.variantById)),
+      breaks: r.violations.map((v) => v.message),
       warnings: r.warnings,
     };
   };
@@ -377,7 +317,7 @@ export function breaksAfter(
       const key = cellKey(Number(v.athleteId), v.week, v.slotId);
       if (!changed.has(key)) continue;
       const list = out.get(key) ?? [];
-      list.push(violationText(v, model.variantById));
+      list.push(v.message);
       out.set(key, list);
     }
   }

@@ -26,6 +26,7 @@ const blank: VariantBody = {
   specificity: 0.5,
   scheme: 'single',
   notes: '',
+  meetPhaseWeeks: null,
 };
 
 function valuesOf(v: LibraryVariant): VariantBody {
@@ -41,10 +42,12 @@ function valuesOf(v: LibraryVariant): VariantBody {
     specificity: v.specificity,
     scheme: v.scheme,
     notes: v.notes ?? '',
+    meetPhaseWeeks: v.meetPhaseWeeks,
   };
 }
 
 const toNumber = (v: unknown) => (v === '' || v === null || v === undefined ? Number.NaN : Number(v));
+const toOptionalNumber = (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v));
 
 export function VariantForm({
   variant,
@@ -220,6 +223,18 @@ export function VariantForm({
           </p>
         ) : null}
       </fieldset>
+
+      <TextField
+        label="Only within N weeks of a meet (optional)"
+        type="number"
+        inputMode="numeric"
+        min={1}
+        max={16}
+        placeholder="Any week"
+        hint="For openers and meet rehearsals: the board picks it only this many weeks before an athlete's meet, or closer."
+        error={errors.meetPhaseWeeks?.message}
+        {...form.register('meetPhaseWeeks', { setValueAs: toOptionalNumber })}
+      />
 
       <TextAreaField label="Notes" rows={3} error={errors.notes?.message} {...form.register('notes')} />
 

@@ -18,7 +18,7 @@ export function MeetDetail({ meet, onDeleted }: { meet: Meet; onDeleted: () => v
   const [confirmDelete, setConfirmDelete] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
   const [athleteId, setAthleteId] = useState('');
-  const roster = useQuery(athleteListOptions({ q: '', level: '', includeArchived: false, sort: 'name' }));
+  const roster = useQuery(athleteListOptions({ q: '', includeArchived: false, sort: 'name' }));
   const add = useAddEntry(meet.id);
   const remove = useDeleteMeet();
   const entered = new Set(meet.entries.map((e) => e.athlete.id));

@@ -1,12 +1,11 @@
 // The roster's key factory and queries: the athlete list, one athlete, their history, the linkable
 // accounts, and the team rules the overrides are shown against.
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
-import type { Athlete, AthleteHistory, LinkableAccount, ListResponse } from '../../../../shared/schemas';
+import type { Athlete, AthleteHistory, LinkableAccount, ListResponse, VariantFacets } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 
 export interface RosterFilters {
   q: string;
-  level: '' | 'novice' | 'intermediate' | 'advanced' | 'elite';
   includeArchived: boolean;
   sort: string;
 }
@@ -20,15 +19,13 @@ export const athleteKeys = {
   histories: () => [...athleteKeys.all, 'history'] as const,
   history: (id: number) => [...athleteKeys.histories(), id] as const,
   accounts: () => [...athleteKeys.all, 'accounts'] as const,
+  /** The library's families, offered by the restrictions form. */
+  families: () => [...athleteKeys.all, 'families'] as const,
 };
 
-const LEVELS = new Set(['novice', 'intermediate', 'advanced', 'elite']);
-
 export function rosterFiltersFromSearch(params: URLSearchParams): RosterFilters {
-  const level = params.get('level') ?? '';
   return {
     q: params.get('q') ?? '',
-    level: LEVELS.has(level) ? (level as RosterFilters['level']) : '',
     includeArchived: params.get('archived') === 'shown',
     sort: params.get('sort') ?? 'name',
   };
@@ -37,7 +34,6 @@ export function rosterFiltersFromSearch(params: URLSearchParams): RosterFilters 
 export const athleteListOptions = (f: RosterFilters) => {
   const p = new URLSearchParams({ sort: f.sort, limit: '500' });
   if (f.q.trim()) p.set('q', f.q.trim());
-  if (f.level) p.set('level', f.level);
   if (f.includeArchived) p.set('includeArchived', 'true');
   return queryOptions({
     queryKey: athleteKeys.list(f),
@@ -62,4 +58,10 @@ export const accountsOptions = () =>
   queryOptions({
     queryKey: athleteKeys.accounts(),
     queryFn: ({ signal }) => api<ListResponse<LinkableAccount>>('/athletes/accounts', { signal }),
+  });
+
+export const familiesOptions = () =>
+  queryOptions({
+    queryKey: athleteKeys.families(),
+    queryFn: async ({ signal }) => (await api<VariantFacets>('/variants/facets', { signal })).families,
   });

@@ -11,7 +11,7 @@ import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { accountsOptions } from '../api/queries';
 import { useCreateAthlete, useUpdateAthlete } from '../api/use-save-athlete';
-import { DIVISION_LABEL, LEVEL_LABEL } from './labels';
+import { DIVISION_LABEL, MAX_RISK_LABEL } from './labels';
 
 const optionalNumber = (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v));
 
@@ -21,7 +21,7 @@ function valuesOf(a: Athlete | null): AthleteBody {
     sex: a?.sex ?? 'F',
     birthYear: a?.birthYear ?? null,
     division: a?.division ?? 'open',
-    level: a?.level ?? 'intermediate',
+    maxRisk: a?.maxRisk ?? null,
     notes: a?.notes ?? '',
     userId: a?.account?.id ?? null,
   };
@@ -91,10 +91,16 @@ export function AthleteProfileForm({
             </option>
           ))}
         </SelectField>
-        <SelectField label="Level" error={errors.level?.message} {...form.register('level')}>
-          {(Object.keys(LEVEL_LABEL) as (keyof typeof LEVEL_LABEL)[]).map((l) => (
-            <option key={l} value={l}>
-              {LEVEL_LABEL[l]}
+        <SelectField
+          label="Heaviest risk allowed"
+          hint="The board never picks a variant of a higher risk tier for this athlete."
+          error={errors.maxRisk?.message}
+          {...form.register('maxRisk', { setValueAs: optionalNumber })}
+        >
+          <option value="">No ceiling</option>
+          {([1, 2, 3] as const).map((r) => (
+            <option key={r} value={r}>
+              {MAX_RISK_LABEL[r]}
             </option>
           ))}
         </SelectField>

@@ -1,26 +1,19 @@
 // How roster values read on screen.
-import type { Restriction } from '../../../../shared/schemas';
 import { weekOfDate, weeksBetween } from '../../../../shared/engine/weeks';
-import { jointName } from '../../../../shared/engine/words';
+export { restrictionText } from '../../../../shared/planning/words';
 
-export const LEVEL_LABEL = {
-  novice: 'Novice',
-  intermediate: 'Intermediate',
-  advanced: 'Advanced',
-  elite: 'Elite',
+/** The heaviest risk tier the planner may pick for an athlete, as the roster reads it. */
+export const MAX_RISK_LABEL = {
+  1: 'Risk 1 · low only',
+  2: 'Up to risk 2 · moderate',
+  3: 'Up to risk 3 · high',
 } as const;
+export const maxRiskText = (m: 1 | 2 | 3 | null) => (m === null ? 'No ceiling' : MAX_RISK_LABEL[m]);
 export const DIVISION_LABEL = { open: 'Open', junior: 'Junior', subjunior: 'Sub-junior' } as const;
 export const SEX_LABEL = { M: 'Men', F: 'Women' } as const;
 export const STRESS_CAP = ['0 · no load at all', '1 · light load only', '2 · up to moderate', '3 · any load'] as const;
 
 export const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
-
-/** "Elbow: light load only (≤ 1)". */
-export function restrictionText(r: Pick<Restriction, 'joint' | 'maxStress'>): string {
-  const what =
-    ['no load', 'light load only', 'up to moderate load', 'any load'][r.maxStress] ?? `at most ${r.maxStress}`;
-  return `${capital(jointName(r.joint))}: ${what} (≤ ${r.maxStress})`;
-}
 
 /** Weeks from this ISO week to the date's, as the board counts "weeks out". */
 export function weeksUntil(date: string, today = new Date()): number {

@@ -1,17 +1,21 @@
-// An athlete's restrictions: a joint whose stress may not pass a level, from one day to another.
-// The board never picks a variant that loads a restricted joint beyond it.
+// An athlete's restrictions, from one day to another: a joint whose stress may not pass a cap, an
+// emphasis or whole families to leave out. The planner applies each to the ISO weeks its dates cover.
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { JOINTS } from '../../../../shared/engine/types';
-import { jointName } from '../../../../shared/engine/words';
+import { Controller, useForm, useWatch } from 'react-hook-form';
+import { JOINTS, type Emphasis } from '../../../../shared/engine/types';
+import { emphasisName, jointName } from '../../../../shared/engine/words';
+import { dayWeek, restrictionName } from '../../../../shared/planning';
 import { restrictionBody, type Athlete, type Restriction, type RestrictionBody } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
+import { CheckboxGroup } from '../../../components/ui/choices';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { CleanIcon, WarningIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { familiesOptions } from '../api/queries';
 import { useAddRestriction, useRemoveRestriction, useUpdateRestriction } from '../api/use-save-restriction';
 import { STRESS_CAP, capital, formatDate, restrictionText } from './labels';
 import { Panel } from './panel';
@@ -68,13 +72,17 @@ export function RestrictionsPanel({ athlete }: { athlete: Athlete }) {
                   {statusOf(r).text} · from {formatDate(r.fromDate)}
                   {r.toDate ? ` to ${formatDate(r.toDate)}` : ', no end set'}
                 </p>
+                <p className="text-sm text-ink-600">
+                  Weeks {r.fromWeek}
+                  {r.toWeek ? ` to ${r.toWeek}` : ' onwards'}
+                </p>
                 {r.note ? <p className="text-sm text-ink-600">{r.note}</p> : null}
               </div>
               <div className="flex gap-1">
                 <Button
                   size="sm"
                   variant="ghost"
-                  aria-label={`Edit ${jointName(r.joint)} restriction`}
+                  aria-label={`Edit ${restrictionName(r)} restriction`}
                   onClick={() => setEditing(r)}
                 >
                   Edit
@@ -91,7 +99,7 @@ export function RestrictionsPanel({ athlete }: { athlete: Athlete }) {
                   <Button
                     size="sm"
                     variant="ghost"
-                    aria-label={`Remove ${jointName(r.joint)} restriction`}
+                    aria-label={`Remove ${restrictionName(r)} restriction`}
                     onClick={() => setConfirming(r.id)}
                   >
                     Remove
@@ -127,17 +135,21 @@ function RestrictionForm({
 }) {
   const add = useAddRestriction(athleteId);
   const update = useUpdateRestriction(athleteId);
+  const families = useQuery(familiesOptions());
   const form = useForm({
     resolver: zodResolver(restrictionBody),
     defaultValues: {
-      joint: restriction?.joint ?? 'elbow',
-      maxStress: restriction?.maxStress ?? 1,
+      joint: restriction ? restriction.joint : 'elbow',
+      maxStress: restriction ? restriction.maxStress : 1,
+      emphasis: restriction?.emphasis ?? [],
+      families: restriction?.families ?? [],
       fromDate: restriction?.fromDate ?? today(),
       toDate: restriction?.toDate ?? '',
       note: restriction?.note ?? '',
     } satisfies RestrictionBody,
   });
   const { errors, isSubmitting } = form.formState;
+  const [fromDate, toDate] = useWatch({ control: form.control, name: ['fromDate', 'toDate'] });
   const onSubmit = form.handleSubmit(async (values) => {
     try {
       if (restriction)
@@ -152,6 +164,7 @@ function RestrictionForm({
       applyFieldErrors(err, form.setError);
     }
   });
+  const familyChoices = [...new Set([...(families.data ?? []), ...(restriction?.families ?? [])])].sort();
   return (
     <form
       onSubmit={onSubmit}
@@ -159,7 +172,15 @@ function RestrictionForm({
       aria-label={restriction ? 'Edit restriction' : 'New restriction'}
       className="mt-2 grid gap-3 rounded-md border border-chalk-300 bg-chalk-100 p-3 sm:grid-cols-2"
     >
-      <SelectField label="Joint" error={errors.joint?.message} {...form.register('joint')}>
+      <p className="text-sm text-ink-700 sm:col-span-2">
+        Restrict a joint, an emphasis, whole families, or any mix of them.
+      </p>
+      <SelectField
+        label="Joint"
+        error={errors.joint?.message}
+        {...form.register('joint', { setValueAs: (v) => (v ? v : null) })}
+      >
+        <option value="">No joint cap</option>
         {JOINTS.map((j) => (
           <option key={j} value={j}>
             {capital(jointName(j))}
@@ -169,14 +190,56 @@ function RestrictionForm({
       <SelectField
         label="Highest stress allowed"
         error={errors.maxStress?.message}
-        {...form.register('maxStress', { setValueAs: Number })}
+        {...form.register('maxStress', { setValueAs: (v) => (v === '' || v === null ? null : Number(v)) })}
       >
+        <option value="">No cap</option>
         {STRESS_CAP.map((label, n) => (
           <option key={n} value={n}>
             {label}
           </option>
         ))}
       </SelectField>
+      <fieldset className="sm:col-span-2">
+        <legend className="text-sm font-semibold text-ink-800">No work with this emphasis</legend>
+        <Controller
+          control={form.control}
+          name="emphasis"
+          render={({ field }) => (
+            <CheckboxGroup<Emphasis>
+              options={EMPHASES}
+              value={field.value ?? []}
+              onChange={field.onChange}
+              label={(e) => capital(emphasisName(e))}
+            />
+          )}
+        />
+      </fieldset>
+      <fieldset className="sm:col-span-2">
+        <legend className="text-sm font-semibold text-ink-800">No variants of these families</legend>
+        {familyChoices.length ? (
+          <Controller
+            control={form.control}
+            name="families"
+            render={({ field }) => (
+              <CheckboxGroup<string>
+                options={familyChoices}
+                value={field.value ?? []}
+                onChange={field.onChange}
+                className="flex max-h-48 flex-wrap gap-x-4 gap-y-1 overflow-y-auto rounded border border-chalk-300 bg-chalk-50 p-2"
+              />
+            )}
+          />
+        ) : (
+          <p className="text-sm text-ink-600">
+            {families.isPending ? 'Loading the library…' : 'The library is empty.'}
+          </p>
+        )}
+        {errors.families?.message ? (
+          <p role="alert" className="text-sm font-medium text-breach-700">
+            {errors.families.message}
+          </p>
+        ) : null}
+      </fieldset>
       <TextField label="From" type="date" error={errors.fromDate?.message} {...form.register('fromDate')} />
       <TextField
         label="To (optional)"
@@ -184,6 +247,9 @@ function RestrictionForm({
         error={errors.toDate?.message}
         {...form.register('toDate', { setValueAs: (v) => (v ? v : null) })}
       />
+      <p className="text-sm text-ink-600 sm:col-span-2" aria-live="polite">
+        {weekSpan(fromDate, toDate)}
+      </p>
       <div className="sm:col-span-2">
         <TextField label="Note" autoComplete="off" error={errors.note?.message} {...form.register('note')} />
       </div>
@@ -197,4 +263,16 @@ function RestrictionForm({
       </div>
     </form>
   );
+}
+
+const EMPHASES: readonly Emphasis[] = ['bottom', 'midRange', 'lockout'];
+const DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+/** "Planned weeks 2027-W03 to 2027-W06": the weeks the board applies it to. */
+function weekSpan(from: string | undefined, to: string | null | undefined): string {
+  if (!from || !DATE.test(from)) return '';
+  const first = dayWeek(from);
+  if (!to || !DATE.test(to)) return `Applies from week ${first} onwards.`;
+  if (to < from) return '';
+  return `Applies to weeks ${first} to ${dayWeek(to)}.`;
 }

@@ -12,10 +12,9 @@ import { Link } from 'react-router-dom';
 import type { Athlete } from '../../../../shared/schemas';
 import { DataTable } from '../../../components/ui/data-table';
 import { WarningIcon } from '../../../components/ui/icons';
-import { DIVISION_LABEL, LEVEL_LABEL, formatDate, restrictionText, whenText } from './labels';
+import { DIVISION_LABEL, formatDate, maxRiskText, restrictionText, whenText } from './labels';
 
 const col = createColumnHelper<Athlete>();
-const LEVEL_ORDER = { novice: 0, intermediate: 1, advanced: 2, elite: 3 } as const;
 
 export function RosterTable({ athletes, gymEquipment }: { athletes: Athlete[]; gymEquipment: string[] }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
@@ -35,10 +34,11 @@ export function RosterTable({ athletes, gymEquipment }: { athletes: Athlete[]; g
           </span>
         ),
       }),
-      col.accessor((a) => LEVEL_ORDER[a.level], {
-        id: 'level',
-        header: 'Level',
-        cell: (c) => LEVEL_LABEL[c.row.original.level],
+      // No ceiling sorts after the highest one.
+      col.accessor((a) => a.maxRisk ?? 4, {
+        id: 'maxRisk',
+        header: 'Heaviest risk allowed',
+        cell: (c) => maxRiskText(c.row.original.maxRisk),
       }),
       col.accessor('division', {
         header: 'Division',

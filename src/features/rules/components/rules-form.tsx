@@ -63,6 +63,7 @@ export function RulesForm({ doc }: { doc: TeamRulesDoc }) {
       <Slots form={form} savedIds={savedSlotIds} />
       <Windows form={form} />
       <Budgets form={form} />
+      <Balance form={form} />
       <Taper form={form} />
       <Bodyweight form={form} />
       <Tissue form={form} />
@@ -262,6 +263,54 @@ function Budgets({ form }: { form: Form }) {
           </RuleRow>
         );
       })}
+    </RuleSection>
+  );
+}
+
+function Balance({ form }: { form: Form }) {
+  const [comfort, balance, slots] = useWatch({
+    control: form.control,
+    name: ['rules.comfortRatio', 'rules.liftBalanceWeeks', 'rules.slots'],
+  });
+  const e = form.formState.errors.rules;
+  const mixed = (slots ?? []).filter((s) => (s?.lifts?.length ?? 0) > 1).map((s) => s?.label || s?.id);
+  return (
+    <RuleSection title="Comfort and lift balance" intro="How the board chooses among picks that keep every rule above.">
+      <RuleRow
+        effect={
+          Number.isFinite(comfort)
+            ? `Whenever the library allows, every joint stays at or under ${Math.round(Number(comfort) * 100)}% of its budget; below that line a lighter variant is not preferred to a heavier one.`
+            : 'Enter a share of the budget from 0.5 to 1.'
+        }
+      >
+        <TextField
+          label="Comfortable share of a joint budget"
+          type="number"
+          min={0.5}
+          max={1}
+          step={0.05}
+          error={e?.comfortRatio?.message}
+          {...form.register('rules.comfortRatio', { setValueAs: num })}
+        />
+      </RuleRow>
+      <RuleRow
+        effect={
+          !Number.isFinite(balance)
+            ? 'Enter a number of weeks.'
+            : mixed.length
+              ? `${mixed.join(' and ')}: each of its lifts comes up at least once in any ${weeks(Number(balance))} in a row, when the athlete has a variant for it.`
+              : `No slot takes several lifts, so this has no effect now; a mixed slot would hold each lift at least once in any ${weeks(Number(balance))} in a row.`
+        }
+      >
+        <TextField
+          label="Each lift of a mixed slot within (weeks)"
+          type="number"
+          min={2}
+          max={12}
+          error={e?.liftBalanceWeeks?.message}
+          {...form.register('rules.liftBalanceWeeks', { setValueAs: num })}
+        />
+      </RuleRow>
     </RuleSection>
   );
 }

@@ -1,0 +1,1 @@
+ALTER TABLE `athletes` DROP COLUMN `level`;
