@@ -41,8 +41,7 @@ const picksOf = async (athleteId: number) =>
     .from(planEntries)
     .where(and(eq(planEntries.teamId, team.teamId), eq(planEntries.athleteId, athleteId)));
 
-// enabled when the version-2 engine lands
-describe.skip('version-2 rules through the API', () => {
+describe('version-2 rules through the API', () => {
   it('a restriction dated W+3..W+6 leaves W+1 free in save and in the board, and holds in W+4', async () => {
     const athleteId = await createAthlete(db(), team.teamId, { name: 'Dated Lockout' });
     const lockout = await createVariant(db(), team.teamId, {
