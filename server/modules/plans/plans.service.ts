@@ -1,5 +1,6 @@
 // Saving plan cells: checks that the athlete, slot and variant are the team's, refuses a stale version,
 // asks for a reason when the pick breaks a rule, and writes each change with its history row in one transaction.
+import { inTransaction } from '../../db/transaction';
 import {
   prepareCandidateChecks,
   weekRange,
@@ -155,7 +156,7 @@ export async function saveChanges(
   const t = today();
   const single = changes.length === 1;
   try {
-    return await db.transaction(async (tx) => {
+    return await inTransaction(db, async (tx) => {
       const athleteIds = [...new Set(changes.map((c) => c.athleteId))];
       const athletes = await listAthletes(tx, auth.teamId, athleteIds);
       if (athletes.length !== athleteIds.length) throw new NotFoundError('That athlete');

@@ -1,0 +1,2 @@
+ALTER TABLE `invitations` ADD `open_email` varchar(254) GENERATED ALWAYS AS ((case when `accepted_at` is null and `revoked_at` is null then `email` end)) STORED;--> statement-breakpoint
+ALTER TABLE `invitations` ADD CONSTRAINT `invitations_team_open_email_uq` UNIQUE(`team_id`,`open_email`);
