@@ -20,6 +20,8 @@ export interface FuzzOptions {
   knownIds: number[];
   /** Sent as X-Forwarded-For (the app trusts one proxy), so sign-in counters stay apart from other callers. */
   address: string;
+  /** Only routes whose "METHOD /path" matches (to chase one failure). */
+  only?: RegExp;
 }
 
 export interface FuzzReport {
@@ -28,7 +30,14 @@ export interface FuzzReport {
   classes: Record<'2xx' | '3xx' | '4xx' | '5xx' | 'no answer', number>;
   byCaller: Record<FuzzCaller, Record<string, number>>;
   /** Every 5xx or unanswered request, for the log. */
-  failures: { caller: FuzzCaller; method: string; route: string; path: string; status: number | string }[];
+  failures: {
+    caller: FuzzCaller;
+    method: string;
+    route: string;
+    path: string;
+    query: Record<string, string>;
+    status: number | string;
+  }[];
 }
 
 const junkText = fc.oneof(
@@ -94,7 +103,9 @@ function classOf(status: number): keyof FuzzReport['classes'] {
 }
 
 export async function fuzzRoutes(opts: FuzzOptions): Promise<FuzzReport> {
-  const routes = listRoutes(opts.app.locals.apiRouter);
+  const routes = listRoutes(opts.app.locals.apiRouter).filter(
+    (r) => !opts.only || opts.only.test(`${r.method} ${r.path}`),
+  );
   const report: FuzzReport = {
     routes: routes.length,
     requests: 0,
@@ -141,7 +152,7 @@ export async function fuzzRoutes(opts: FuzzOptions): Promise<FuzzReport> {
         report.classes[cls]++;
         report.byCaller[caller][cls] = (report.byCaller[caller][cls] ?? 0) + 1;
         if (cls === '5xx' || cls === 'no answer')
-          report.failures.push({ caller, method: route.method, route: route.path, path, status });
+          report.failures.push({ caller, method: route.method, route: route.path, path, query: c.query, status });
       }
       // A route that ends sessions (sign out, sign out everywhere…) is followed by a fresh sign-in.
       if (caller !== 'anonymous' && route.path.startsWith('/api/auth/')) {
