@@ -58,6 +58,11 @@ export function createApp(ctx: AppContext): Express {
   app.use(cookieParser());
 
   const api = express.Router();
+  // Answers are for this caller at this moment: no browser or proxy may keep them.
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   // Signature-checked webhooks read their raw body themselves: the signature covers the exact bytes.
   const json = express.json({ limit: '1mb' });
   api.use((req, res, next) => (ORIGIN_EXEMPT.some((p) => req.path.startsWith(p)) ? next() : json(req, res, next)));

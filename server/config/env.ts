@@ -20,8 +20,15 @@ const schema = z.object({
   DB_MIGRATE: bool,
   SEED_DEMO: bool,
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** Failed sign-ins from one address (any account) before each further one is held back, growing. */
   LOGIN_LIMIT_PER_IP: z.coerce.number().int().positive().default(30),
-  LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(10),
+  /** Failed sign-ins for one account from one address before each further one is held back, growing. */
+  LOGIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+  /** The first hold after the free failures; each further failure doubles it, up to LOGIN_DELAY_MAX_S. */
+  LOGIN_DELAY_BASE_S: z.coerce.number().int().positive().default(2),
+  LOGIN_DELAY_MAX_S: z.coerce.number().int().positive().default(900),
+  /** How long an instance trusts a session it looked up before asking MariaDB again (a revocation elsewhere takes this long). */
+  SESSION_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(3_000),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().default(4400),
   SMTP_SECURE: bool,

@@ -27,3 +27,21 @@ export const meResponse = z.object({
   athleteId: z.number().nullable(),
 });
 export type Me = z.infer<typeof meResponse>;
+
+/** One signed-in browser or device of the caller's account. */
+export const sessionItem = z.object({
+  id: z.number(),
+  /** Browser and system, read from the user agent ("Firefox on Linux"). */
+  device: z.string(),
+  createdAt: z.string(),
+  lastSeenAt: z.string(),
+  /** The session this request came from. */
+  current: z.boolean(),
+});
+export type SessionItem = z.infer<typeof sessionItem>;
+
+export const sessionList = z.object({ items: z.array(sessionItem), total: z.number() });
+export type SessionList = z.infer<typeof sessionList>;
+
+export const signOutEverywhereResponse = z.object({ ok: z.literal(true), ended: z.number() });
+export type SignOutEverywhereResponse = z.infer<typeof signOutEverywhereResponse>;

@@ -2,7 +2,7 @@
 // history, plan generation and the board's snapshot.
 import { z } from 'zod';
 import type { Emphasis, Joint, RiskTier, RuleId } from '../engine/types';
-import { weeksBetween } from '../engine/weeks';
+import { isIsoWeek, weeksBetween } from '../engine/weeks';
 import { idParam, isoWeek, listQuery, type ListResponse } from './common';
 import type { AthleteRuleOverrides, TeamRules } from './rules';
 
@@ -79,7 +79,8 @@ export const planBatchBody = z
 export type PlanBatchBody = z.input<typeof planBatchBody>;
 
 function rangeCheck(r: { from?: string | undefined; to?: string | undefined }, ctx: z.RefinementCtx, max: number) {
-  if (!r.from || !r.to) return;
+  // A malformed week has its own message already; the span is only measured between two real weeks.
+  if (!r.from || !r.to || !isIsoWeek(r.from.trim()) || !isIsoWeek(r.to.trim())) return;
   const span = weeksBetween(r.from, r.to);
   if (span < 0) ctx.addIssue({ code: 'custom', path: ['to'], message: 'Must not be before "from"' });
   else if (span >= max) ctx.addIssue({ code: 'custom', path: ['to'], message: `Ask for at most ${max} weeks` });

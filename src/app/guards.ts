@@ -8,6 +8,7 @@ import { meQueryOptions } from '../features/auth/api/queries';
 export const STAFF: Role[] = ['head_coach', 'coach'];
 export const HEAD_COACH: Role[] = ['head_coach'];
 export const ATHLETE: Role[] = ['athlete'];
+export const ANY_ROLE: Role[] = ['head_coach', 'coach', 'athlete'];
 
 export function homeFor(me: Pick<Me, 'role'>): string {
   return me.role === 'athlete' ? '/my-week' : '/board';

@@ -1,7 +1,7 @@
 // The route table: every screen, its guard and its loader. Pages load on demand.
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
-import { ATHLETE, HEAD_COACH, STAFF, homeFor, requireUser, type LoaderMaker } from './guards';
+import { ANY_ROLE, ATHLETE, HEAD_COACH, STAFF, homeFor, requireUser, type LoaderMaker } from './guards';
 import { AppLayout } from './routes/app-layout';
 import { RouteError } from './routes/route-error';
 import { NotFound } from './routes/not-found';
@@ -61,6 +61,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'my-week', ...page(queryClient, ATHLETE, () => import('./routes/my-week')) },
             { path: 'my-history', ...page(queryClient, ATHLETE, () => import('./routes/my-history')) },
             { path: 'my-fee', ...page(queryClient, ATHLETE, () => import('./routes/my-fee')) },
+            { path: 'devices', ...page(queryClient, ANY_ROLE, () => import('./routes/devices')) },
             { path: '*', element: <NotFound /> },
           ],
         },

@@ -8,6 +8,7 @@ import { inboxClient } from '../../server/standins/smtp';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
 import { useTestApp } from '../support/app';
 import { createAthlete, createTeam, createUser, createVariant, type TestTeam } from '../support/factories';
+import { startSession } from '../../server/modules/auth/sessions.service';
 
 const t = useTestApp();
 const inbox = inboxClient();
@@ -154,7 +155,11 @@ describe('POST /api/weeks/:week/publish', () => {
   });
 
   it('a session token is not an unsubscribe token', async () => {
-    const session = await t.ctx.sessions.sign(team.athleteUser.id, team.teamId);
+    const session = await startSession(
+      t.ctx,
+      { userId: team.athleteUser.id, teamId: team.teamId, role: 'athlete' },
+      'test',
+    );
     const res = await request(t.app).get(`/api/email/unsubscribe?token=${session}`);
     expect(res.status).toBe(400);
   });

@@ -3,6 +3,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import Papa from 'papaparse';
+import seedrandom from 'seedrandom';
 import type request from 'supertest';
 import { JOINTS } from '../../shared/engine/types';
 import { LIBRARY_CSV_COLUMNS, nameKey, variantBody, type VariantBody } from '../../shared/schemas';
@@ -213,9 +214,23 @@ describe('POST /api/variants/import', () => {
     const big = Buffer.alloc(5 * 1024 * 1024 + 1, 'a');
     const res = await upload(coach, big);
     expect(res.status).toBe(413);
-    expect(res.body.error.code).toBe('payload_too_large');
+    expect(res.body.error.code).toBe('file_too_large');
     const wrong = await coach.post('/api/variants/import').attach('csv', Buffer.from(HEADER), 'x.csv');
     expect(wrong.status).toBe(400);
+  });
+
+  it('lists each problem once, even for a file of random text', async () => {
+    // A fixed seed, so the file is the same on every run.
+    const rng = seedrandom('csv-noise');
+    const alphabet = 'ab,,,""\n\r 1.;x';
+    const noise = Array.from({ length: 6000 }, () => alphabet[Math.floor(rng() * alphabet.length)]).join('');
+    const res = await upload(coach, `${HEADER}\n${noise}`);
+    expect(res.status).toBe(422);
+    const keys = res.body.error.rows.map((r: { row: number; field: string; message: string }) =>
+      JSON.stringify([r.row, r.field, r.message]),
+    );
+    expect(keys.length).toBeGreaterThan(10);
+    expect(new Set(keys).size).toBe(keys.length);
   });
 
   it('imports only into the caller’s team', async () => {

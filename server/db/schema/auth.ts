@@ -1,5 +1,16 @@
 // Teams (the tenant), user accounts, their role in a team, invitations and password-reset tokens.
-import { boolean, char, datetime, index, mysqlEnum, mysqlTable, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { sql } from 'drizzle-orm';
+import {
+  boolean,
+  char,
+  datetime,
+  index,
+  int,
+  mysqlEnum,
+  mysqlTable,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt } from './columns';
 
 export const roles = ['head_coach', 'coach', 'athlete'] as const;
@@ -62,10 +73,19 @@ export const invitations = mysqlTable(
     revokedAt: datetime('revoked_at', { mode: 'date', fsp: 3 }),
     invitedBy: ref('invited_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
+    /**
+     * The address while the invitation is open (neither accepted nor revoked), else NULL. A unique index
+     * ignores NULLs, so (team, open address) makes "one open invitation per team and address" a fact.
+     */
+    openEmail: varchar('open_email', { length: 254 }).generatedAlwaysAs(
+      sql`(case when \`accepted_at\` is null and \`revoked_at\` is null then \`email\` end)`,
+      { mode: 'stored' },
+    ),
   },
   (t) => [
     uniqueIndex('invitations_token_uq').on(t.tokenHash),
     index('invitations_team_email_idx').on(t.teamId, t.email),
+    uniqueIndex('invitations_team_open_email_uq').on(t.teamId, t.openEmail),
   ],
 );
 
@@ -82,4 +102,46 @@ export const passwordResets = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('password_resets_token_uq').on(t.tokenHash), index('password_resets_user_idx').on(t.userId)],
+);
+
+/**
+ * Signed-in sessions. The browser holds a random id; only its keyed hash is stored, so a copy of this
+ * table signs nobody in. Deleting a row ends that session on every instance (after their short cache).
+ */
+export const sessions = mysqlTable(
+  'sessions',
+  {
+    id: id(),
+    idHash: char('id_hash', { length: 64 }).notNull(),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    teamId: teamRef(),
+    /** The role the session was granted; a different role in the membership ends the session. */
+    role: mysqlEnum('role', roles).notNull(),
+    userAgent: varchar('user_agent', { length: 255 }),
+    createdAt: createdAt(),
+    lastSeenAt: datetime('last_seen_at', { mode: 'date', fsp: 3 }).notNull(),
+    expiresAt: datetime('expires_at', { mode: 'date', fsp: 3 }).notNull(),
+  },
+  (t) => [
+    uniqueIndex('sessions_id_hash_uq').on(t.idHash),
+    index('sessions_user_idx').on(t.userId),
+    index('sessions_expires_idx').on(t.expiresAt),
+  ],
+);
+
+/**
+ * Failed sign-ins per key (account and address together, or address alone; hashed, so the table holds
+ * no addresses) and until when that key is held back. In MariaDB so every instance counts together.
+ */
+export const signInLimits = mysqlTable(
+  'sign_in_limits',
+  {
+    keyHash: char('key_hash', { length: 64 }).primaryKey(),
+    failures: int('failures', { unsigned: true }).notNull().default(0),
+    lastFailureAt: datetime('last_failure_at', { mode: 'date', fsp: 3 }).notNull(),
+    blockedUntil: datetime('blocked_until', { mode: 'date', fsp: 3 }),
+  },
+  (t) => [index('sign_in_limits_last_failure_idx').on(t.lastFailureAt)],
 );

@@ -1,5 +1,6 @@
 // Seeds the invented demo scenario into an empty database (never twice). Dates are relative to the
 // day of seeding: the history ends last week and the current week is already planned.
+import { inTransaction } from '../transaction';
 import { sql } from 'drizzle-orm';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import { weightClass } from '../../../shared/calc';
@@ -80,7 +81,7 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const thisWeek = weekOfDate(today);
 
-  await db.transaction(async (tx) => {
+  await inTransaction(db, async (tx) => {
     // The demo club.
     const [team] = await tx.insert(teams).values(DEMO_TEAM).$returningId();
     const teamId = team!.id;

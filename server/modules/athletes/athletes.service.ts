@@ -24,7 +24,7 @@ import type { Queryable } from '../../db/client';
 import type { AppContext } from '../../context';
 import type { AuthContext } from '../../middleware/auth';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { isDuplicateKey } from '../variants/mysql-errors';
+import { isDuplicateKey } from '../../db/errors';
 import * as repo from './athletes.repository';
 
 /** Today as the server's calendar sees it (UTC), for "in force" and "upcoming". */

@@ -1,55 +1,76 @@
-// /api/auth: sign in, sign out, who am I.
-import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
-import { loginBody, type Me } from '../../../shared/schemas';
+// /api/auth: sign in, sign out (here or everywhere), who am I, and the account's signed-in sessions.
+import { Router, type Request } from 'express';
+import {
+  idParams,
+  loginBody,
+  type Me,
+  type SessionList,
+  type SignOutEverywhereResponse,
+} from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ANY_ROLE, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { AppError } from '../../lib/errors';
-import { clearSessionCookie, setSessionCookie } from '../../lib/session';
+import { SESSION_COOKIE, clearSessionCookie, setSessionCookie } from '../../lib/session';
 import { signIn } from './auth.service';
+import { endOwnSession, endSession, endUserSessions, listOwnSessions } from './sessions.service';
+import { TooManyAttemptsError } from './sign-in-limits';
 
-function loginLimiters(ctx: AppContext) {
-  const tooMany = () => {
-    throw new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.');
-  };
-  const common = {
-    windowMs: 15 * 60 * 1000,
-    standardHeaders: 'draft-8' as const,
-    legacyHeaders: false,
-    handler: tooMany,
-  };
-  return [
-    rateLimit({ ...common, limit: ctx.env.LOGIN_LIMIT_PER_IP }),
-    rateLimit({
-      ...common,
-      limit: ctx.env.LOGIN_LIMIT_PER_ACCOUNT,
-      // Per account: the typed address, normalised the way sign-in reads it.
-      keyGenerator: (req) =>
-        `account:${String(req.body?.email ?? '')
-          .trim()
-          .toLowerCase()}`,
-    }),
-  ];
-}
+const cookieOf = (req: Request): string | null => {
+  const token: unknown = req.cookies?.[SESSION_COOKIE];
+  return typeof token === 'string' && token !== '' ? token : null;
+};
 
 export function authRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.post(
     '/auth/login',
-    ...loginLimiters(ctx),
     validate({ body: loginBody }, async ({ body }, req, res) => {
-      const session = await signIn(ctx, body.email, body.password);
-      setSessionCookie(req, res, session.token);
-      return { ok: true };
+      try {
+        const session = await signIn(ctx, body.email, body.password, {
+          address: req.ip ?? req.socket.remoteAddress ?? 'unknown',
+          userAgent: req.get('user-agent'),
+        });
+        setSessionCookie(req, res, session.token);
+        return { ok: true };
+      } catch (err) {
+        if (err instanceof TooManyAttemptsError) res.setHeader('Retry-After', String(err.retryAfterSeconds));
+        throw err;
+      }
     }),
   );
 
   router.post(
     '/auth/logout',
-    validate({}, (_input, req, res) => {
+    validate({}, async (_input, req, res) => {
+      const token = cookieOf(req);
+      if (token) await endSession(ctx, token);
       clearSessionCookie(req, res);
+      return { ok: true };
+    }),
+  );
+
+  router.post(
+    '/auth/logout-everywhere',
+    requireRole(ANY_ROLE),
+    validate({}, async (_input, req, res): Promise<SignOutEverywhereResponse> => {
+      const ended = await endUserSessions(ctx, authOf(req).userId);
+      clearSessionCookie(req, res);
+      return { ok: true, ended };
+    }),
+  );
+
+  router.get(
+    '/auth/sessions',
+    requireRole(ANY_ROLE),
+    validate({}, (_input, req): Promise<SessionList> => listOwnSessions(ctx, authOf(req))),
+  );
+
+  router.delete(
+    '/auth/sessions/:id',
+    requireRole(ANY_ROLE),
+    validate({ params: idParams }, async ({ params }, req) => {
+      await endOwnSession(ctx, authOf(req).userId, params.id);
       return { ok: true };
     }),
   );

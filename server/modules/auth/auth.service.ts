@@ -1,17 +1,33 @@
-// Signing in: one answer for an unknown e-mail and a wrong password.
+// Signing in: one answer for an unknown e-mail and a wrong password, held back after repeated failures.
 import type { AppContext } from '../../context';
 import { UnauthorizedError } from '../../lib/errors';
 import { verifyPassword } from '../../lib/passwords';
 import { findDefaultMembership, findUserByEmail } from './auth.repository';
+import { startSession } from './sessions.service';
+import { checkSignInAllowed, recordSignInFailure, recordSignInSuccess } from './sign-in-limits';
 
 export const BAD_CREDENTIALS = 'That e-mail and password do not match an account.';
 
-export async function signIn(ctx: AppContext, email: string, password: string) {
+export interface Caller {
+  /** The client's address as Express sees it (behind TRUST_PROXY hops). */
+  address: string;
+  userAgent: string | undefined;
+}
+
+export async function signIn(ctx: AppContext, email: string, password: string, caller: Caller) {
+  await checkSignInAllowed(ctx, email, caller.address);
   const user = await findUserByEmail(ctx.database.db, email);
   const ok = await verifyPassword(password, user?.passwordHash ?? null);
-  if (!user || !ok) throw new UnauthorizedError(BAD_CREDENTIALS, 'invalid_credentials');
-  const membership = await findDefaultMembership(ctx.database.db, user.id);
-  if (!membership) throw new UnauthorizedError(BAD_CREDENTIALS, 'invalid_credentials');
-  const token = await ctx.sessions.sign(user.id, membership.teamId);
+  const membership = user && ok ? await findDefaultMembership(ctx.database.db, user.id) : null;
+  if (!user || !membership) {
+    await recordSignInFailure(ctx, email, caller.address);
+    throw new UnauthorizedError(BAD_CREDENTIALS, 'invalid_credentials');
+  }
+  await recordSignInSuccess(ctx, email, caller.address);
+  const token = await startSession(
+    ctx,
+    { userId: user.id, teamId: membership.teamId, role: membership.role },
+    caller.userAgent,
+  );
   return { token, userId: user.id, teamId: membership.teamId };
 }

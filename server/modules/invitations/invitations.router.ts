@@ -14,6 +14,7 @@ import { HEAD_COACH, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { AppError } from '../../lib/errors';
 import { setSessionCookie } from '../../lib/session';
+import { startSession } from '../auth/sessions.service';
 import {
   acceptInvitation,
   createInvitation,
@@ -82,7 +83,7 @@ export function invitationsRouter(ctx: AppContext): Router {
     acceptLimit,
     validate({ body: acceptInvitationBody }, async ({ body }, req, res) => {
       const accepted = await acceptInvitation(ctx, body);
-      setSessionCookie(req, res, await ctx.sessions.sign(accepted.userId, accepted.teamId));
+      setSessionCookie(req, res, await startSession(ctx, accepted, req.get('user-agent')));
       return { ok: true, role: accepted.role };
     }),
   );

@@ -1,5 +1,6 @@
 // Invitations: invite by e-mail (the mail is queued in the same transaction), resend with a fresh token,
 // revoke, and accept — which creates the account or adds a membership and signs the invitee in.
+import { inTransaction } from '../../db/transaction';
 import type {
   CreateInvitationBody,
   Invitation,
@@ -12,6 +13,7 @@ import type { z } from 'zod';
 import type { AppContext } from '../../context';
 import type { AuthContext } from '../../middleware/auth';
 import { fieldErrors } from '../../middleware/validate';
+import { isDuplicateKey } from '../../db/errors';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { hashPassword, verifyPassword } from '../../lib/passwords';
 import { invitationMail } from '../../services/mail/templates';
@@ -75,19 +77,17 @@ async function queueInvitationMail(
   });
 }
 
+const alreadyInvited = () =>
+  new AppError(409, 'already_invited', 'That address already has an open invitation: resend it from the list instead.');
+
 export async function createInvitation(ctx: AppContext, auth: AuthContext, body: CreateInvitationBody) {
   const now = new Date();
   const expiresAt = new Date(now.getTime() + INVITATION_TTL_MS);
   const { token, hash } = newLinkToken();
-  const id = await ctx.database.db.transaction(async (tx) => {
+  const id = await inTransaction(ctx.database.db, async (tx) => {
     if (await repo.isMemberByEmail(tx, auth.teamId, body.email))
       throw new AppError(409, 'already_member', 'That address already belongs to someone in this team.');
-    if (await repo.findPendingForEmail(tx, auth.teamId, body.email, now))
-      throw new AppError(
-        409,
-        'already_invited',
-        'That address already has an open invitation: resend it from the list instead.',
-      );
+    if (await repo.findPendingForEmail(tx, auth.teamId, body.email, now)) throw alreadyInvited();
     let athleteId: number | null = null;
     if (body.role === 'athlete') {
       if (body.athleteId !== null) {
@@ -103,15 +103,21 @@ export async function createInvitation(ctx: AppContext, auth: AuthContext, body:
       }
     }
     await repo.revokeExpiredForEmail(tx, auth.teamId, body.email, now);
-    const invitationId = await repo.insertInvitation(tx, {
-      teamId: auth.teamId,
-      email: body.email,
-      role: body.role,
-      athleteId,
-      tokenHash: hash,
-      expiresAt,
-      invitedBy: auth.userId,
-    });
+    const invitationId = await repo
+      .insertInvitation(tx, {
+        teamId: auth.teamId,
+        email: body.email,
+        role: body.role,
+        athleteId,
+        tokenHash: hash,
+        expiresAt,
+        invitedBy: auth.userId,
+      })
+      .catch((err: unknown) => {
+        // Another request opened one for this address a moment ago: the unique key said no, and
+        // throwing here rolls back the roster entry made for it above.
+        throw isDuplicateKey(err) ? alreadyInvited() : err;
+      });
     await queueInvitationMail(
       ctx,
       tx,
@@ -129,7 +135,7 @@ export async function createInvitation(ctx: AppContext, auth: AuthContext, body:
 /** A fresh token and expiry; the old link stops working at once. */
 export async function resendInvitation(ctx: AppContext, auth: AuthContext, id: number) {
   const { token, hash } = newLinkToken();
-  await ctx.database.db.transaction(async (tx) => {
+  await inTransaction(ctx.database.db, async (tx) => {
     const row = await repo.findInvitation(tx, auth.teamId, id);
     if (!row) throw new NotFoundError('That invitation');
     const status = statusOf(row);
@@ -202,7 +208,7 @@ function parseOrThrow<T extends z.ZodType>(schema: T, value: unknown): z.output<
  */
 export async function acceptInvitation(ctx: AppContext, body: z.output<typeof acceptInvitationBody>) {
   const hash = hashLinkToken(body.token);
-  return ctx.database.db.transaction(async (tx) => {
+  return inTransaction(ctx.database.db, async (tx) => {
     const row = await repo.findByTokenHash(tx, hash, true);
     if (!row) throw UNKNOWN();
     refuseUnusable(statusOf(row));

@@ -24,7 +24,7 @@ import type { AppContext } from '../../context';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { findAthlete, latestBodyweights } from '../athletes/athletes.repository';
 import { todayIso } from '../athletes/athletes.service';
-import { isDuplicateKey } from '../variants/mysql-errors';
+import { isDuplicateKey } from '../../db/errors';
 import * as repo from './meets.repository';
 
 type Division = 'open' | 'junior' | 'subjunior';

@@ -6,6 +6,7 @@ import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { AppError } from '../../lib/errors';
 import { setSessionCookie } from '../../lib/session';
+import { startSession } from '../auth/sessions.service';
 import { RESET_REQUESTED, checkResetToken, completeReset, requestReset } from './password-reset.service';
 
 /** Every request answers after at least this long, so its timing does not tell whether the address is known. */
@@ -58,7 +59,10 @@ export function passwordResetRouter(ctx: AppContext): Router {
     '/auth/password-reset/complete',
     validate({ body: resetPasswordBody }, async ({ body }, req, res) => {
       const done = await completeReset(ctx, body.token, body.password);
-      if (done.membership) setSessionCookie(req, res, await ctx.sessions.sign(done.userId, done.membership.teamId));
+      if (done.membership) {
+        const who = { userId: done.userId, ...done.membership };
+        setSessionCookie(req, res, await startSession(ctx, who, req.get('user-agent')));
+      }
       return { ok: true, signedIn: Boolean(done.membership) };
     }),
   );

@@ -1,11 +1,13 @@
 // Password reset: a request answers the same whether or not the address has an account; a known address
 // gets a single-use link valid for an hour. Using it sets the new password, ends every other session
-// (through password_changed_at) and every other outstanding reset link of that account.
+// (their rows are deleted at once) and every other outstanding reset link of that account.
+import { inTransaction } from '../../db/transaction';
 import type { AppContext } from '../../context';
 import { AppError } from '../../lib/errors';
 import { hashPassword } from '../../lib/passwords';
 import { passwordChangedMail, passwordResetMail } from '../../services/mail/templates';
 import { findDefaultMembership, findUserByEmail } from '../auth/auth.repository';
+import { endUserSessions } from '../auth/sessions.service';
 import { appLink, hashLinkToken, newLinkToken } from '../email/link-tokens';
 import * as repo from './password-reset.repository';
 
@@ -18,7 +20,7 @@ export async function requestReset(ctx: AppContext, email: string): Promise<void
   const user = await findUserByEmail(ctx.database.db, email);
   if (!user) return;
   const { token, hash } = newLinkToken();
-  await ctx.database.db.transaction(async (tx) => {
+  await inTransaction(ctx.database.db, async (tx) => {
     await repo.insertReset(tx, user.id, hash, new Date(Date.now() + RESET_TTL_MS));
     const mail = passwordResetMail({
       url: appLink(ctx.env.APP_ORIGIN, '/reset-password', { token }),
@@ -58,11 +60,12 @@ export async function checkResetToken(ctx: AppContext, token: string) {
 /** Sets the new password; returns the session to start (the account's default team). */
 export async function completeReset(ctx: AppContext, token: string, password: string) {
   const passwordHash = await hashPassword(password);
-  const result = await ctx.database.db.transaction(async (tx) => {
+  const result = await inTransaction(ctx.database.db, async (tx) => {
     const row = usable(await repo.findReset(tx, hashLinkToken(token), true));
     const now = new Date();
     await repo.setPassword(tx, row.userId, passwordHash, now);
     await repo.useAllResets(tx, row.userId, now);
+    await endUserSessions(ctx, row.userId, { db: tx });
     const mail = passwordChangedMail({ forgotUrl: appLink(ctx.env.APP_ORIGIN, '/forgot-password'), when: now });
     await ctx.services.mail.enqueue(tx, {
       kind: 'password_changed',

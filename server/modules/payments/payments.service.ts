@@ -1,6 +1,7 @@
 // Paying a fee: a provider customer per athlete, a provider price per plan version, and a hosted
 // checkout session in subscription mode; and cancelling, which ends the subscription at once. What
 // the athlete's status becomes after paying is decided by the provider's webhook events, not here.
+import { inTransaction } from '../../db/transaction';
 import type { AthleteFee, CheckoutStart } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { AppError, NotFoundError, ValidationError } from '../../lib/errors';
@@ -108,7 +109,7 @@ export async function cancelFee(ctx: AppContext, teamId: number, athleteId: numb
   if (billing.providerSubscriptionId) {
     await ctx.services.payments.cancelSubscription(billing.providerSubscriptionId);
   }
-  await db.transaction(async (tx) => {
+  await inTransaction(db, async (tx) => {
     const row = await repo.findBilling(tx, teamId, athleteId, { lock: true });
     if (row && row.status !== 'cancelled' && row.providerSubscriptionId === billing.providerSubscriptionId) {
       await repo.updateBilling(tx, athleteId, { status: 'cancelled' });

@@ -1,5 +1,6 @@
 // Fill next week, Plan to meet and Reshuffle: gathers the team's planning facts and every athlete's
 // history, runs the engine, and writes what changed, with history rows, in one transaction.
+import { inTransaction } from '../../db/transaction';
 import { randomBytes } from 'node:crypto';
 import { generatePlan, weekRange, type PlanResult } from '../../../shared/engine';
 import { buildPlanRequests } from '../../../shared/planning';
@@ -71,7 +72,7 @@ export async function generate(db: Db, auth: AuthContext, body: Body): Promise<G
   }
   const teamId = auth.teamId;
 
-  return db.transaction(async (tx) => {
+  return inTransaction(db, async (tx) => {
     const athletes = await listAthletes(tx, teamId, body.athleteIds);
     if (body.athleteIds && athletes.length !== new Set(body.athleteIds).size) throw new NotFoundError('That athlete');
     let seed: string | undefined;

@@ -2,6 +2,7 @@
 // asks for a reason when the pick breaks a rule, and writes each change with its history row in one transaction.
 import { prepareCandidateChecks, weekRange, type CandidateChecks, type Violation } from '../../../shared/engine';
 import { buildPlanRequests, type StoredEntry } from '../../../shared/planning';
+import { inTransaction } from '../../db/transaction';
 import {
   type PlanCell,
   type PlanEntryDto,
@@ -141,7 +142,7 @@ export async function saveChanges(
   const t = today();
   const single = changes.length === 1;
   try {
-    return await db.transaction(async (tx) => {
+    return await inTransaction(db, async (tx) => {
       const athleteIds = [...new Set(changes.map((c) => c.athleteId))];
       const athletes = await listAthletes(tx, auth.teamId, athleteIds);
       if (athletes.length !== athleteIds.length) throw new NotFoundError('That athlete');

@@ -2,7 +2,7 @@
 // far the e-mails of a publication have got.
 import { and, asc, eq, inArray, isNull, like, sql } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
-import { isDuplicateKey } from '../../services/mail/outbox';
+import { isDuplicateKey } from '../../db/errors';
 import {
   athletes,
   memberships,

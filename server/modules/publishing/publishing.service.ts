@@ -1,5 +1,6 @@
 // Publishing a week: records it once per team and week and, in the same transaction, queues one e-mail
 // per athlete with their max-effort picks and connective-tissue work. Publishing again sends nothing.
+import { inTransaction } from '../../db/transaction';
 import { readTeamRules, type Publication } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
@@ -76,7 +77,7 @@ async function queueWeekMails(ctx: AppContext, tx: Queryable, auth: AuthContext,
 
 /** `created` is false when the week had been published before; nothing is queued then. */
 export async function publishWeek(ctx: AppContext, auth: AuthContext, week: string) {
-  const created = await ctx.database.db.transaction(async (tx) => {
+  const created = await inTransaction(ctx.database.db, async (tx) => {
     if (!(await repo.insertPublication(tx, auth.teamId, week, auth.userId))) return false;
     await queueWeekMails(ctx, tx, auth, week);
     return true;

@@ -5,7 +5,7 @@ import { DEFAULT_TEAM_RULES, readTeamRules, type TeamRules, type TeamRulesDoc } 
 import type { AppContext } from '../../context';
 import type { AuthContext } from '../../middleware/auth';
 import { ConflictError } from '../../lib/errors';
-import { isDuplicateKey } from '../variants/mysql-errors';
+import { isDuplicateKey } from '../../db/errors';
 import * as repo from './rules.repository';
 
 export async function getRules(ctx: AppContext, teamId: number): Promise<TeamRulesDoc> {

@@ -1,5 +1,6 @@
 // Connective-tissue work per athlete and week: generated once from the team's settings and the
 // athlete's past work and check-ins, then stored so the week never changes under the athlete's feet.
+import { inTransaction } from '../../db/transaction';
 import {
   DEFAULT_TISSUE_RULES,
   jointLoadOf,
@@ -165,7 +166,7 @@ export async function recordCheckin(
     });
   }
   const kind = work.kind;
-  return ctx.database.db.transaction(async (tx) => {
+  return inTransaction(ctx.database.db, async (tx) => {
     const saved = await insertCheckin(tx, {
       teamId,
       athleteId,

@@ -1,4 +1,5 @@
 // Logging top sets against this week's plan entries, with the e1RM worked out here and records marked.
+import { inTransaction } from '../../db/transaction';
 import { toKg } from '../../../shared/calc';
 import { mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import type { LogTopSetInput, LoggedTopSet, TopSet } from '../../../shared/schemas';
@@ -40,7 +41,7 @@ export async function logTopSet(
   const weightKg = Math.round(toKg(body.weight, body.unit) * 100) / 100;
   const e1rmKg = topSetE1rmKg(weightKg, body.reps);
   const variantId = entry.variantId;
-  return ctx.database.db.transaction(async (tx) => {
+  return inTransaction(ctx.database.db, async (tx) => {
     const id = await insertTopSet(tx, {
       teamId,
       athleteId,

@@ -1,6 +1,5 @@
 // /api/variants: the team's exercise library, its CSV export and all-or-nothing import.
 import { Router } from 'express';
-import multer from 'multer';
 import {
   LIBRARY_CSV_MAX_BYTES,
   idParams,
@@ -10,16 +9,20 @@ import {
 } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
+import { megabytes, receiveFile } from '../../middleware/upload';
 import { validate } from '../../middleware/validate';
 import { ValidationError } from '../../lib/errors';
 import * as service from './variants.service';
 
 export function variantsRouter(ctx: AppContext): Router {
   const router = Router();
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: LIBRARY_CSV_MAX_BYTES, files: 1, fields: 4 },
-  }).single('file');
+  const upload = receiveFile({
+    field: 'file',
+    maxBytes: LIBRARY_CSV_MAX_BYTES,
+    storage: 'memory',
+    tooLarge: `That file is larger than the ${megabytes(LIBRARY_CSV_MAX_BYTES)} limit. Import the library in parts.`,
+    oneFile: 'Send one CSV file in the “file” field',
+  });
 
   router.get(
     '/variants',
@@ -44,7 +47,6 @@ export function variantsRouter(ctx: AppContext): Router {
         .status(200)
         .type('text/csv; charset=utf-8')
         .set('Content-Disposition', `attachment; filename="rackturn-library-${day}.csv"`)
-        .set('Cache-Control', 'no-store')
         .send(csv);
     }),
   );

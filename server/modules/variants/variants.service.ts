@@ -1,5 +1,6 @@
 // The library's rules: unique names per team, versioned edits, archive instead of delete once a
 // variant is in someone's history, and the all-or-nothing CSV import.
+import { inTransaction } from '../../db/transaction';
 import { fileTypeFromBuffer } from 'file-type';
 import { JOINTS } from '../../../shared/engine/types';
 import {
@@ -18,7 +19,7 @@ import type { Queryable } from '../../db/client';
 import type { AppContext } from '../../context';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { buildLibraryCsv, parseLibraryCsv } from './variants.csv';
-import { driverMessage, isDuplicateKey, isStillReferenced } from './mysql-errors';
+import { driverMessage, isDuplicateKey, isStillReferenced } from '../../db/errors';
 import * as repo from './variants.repository';
 
 export function toVariantDto(r: repo.VariantRow): LibraryVariant {
@@ -114,7 +115,7 @@ export async function patchVariant(
 
 /** Deletes a variant nobody has trained or planned; one in the history is archived and keeps showing there. */
 export async function removeVariant(ctx: AppContext, teamId: number, id: number): Promise<VariantDeleteResult> {
-  return ctx.database.db.transaction(async (tx) => {
+  return inTransaction(ctx.database.db, async (tx) => {
     const current = await mustFind(tx, teamId, id);
     if (!current.inHistory) {
       try {
@@ -157,7 +158,13 @@ async function decodeUpload(buffer: Buffer): Promise<string> {
 
 const MAX_REPORTED_PROBLEMS = 500;
 
-function invalidRows(rows: { row: number; field: string; message: string }[]): AppError {
+function invalidRows(all: { row: number; field: string; message: string }[]): AppError {
+  // One line per distinct problem: a broken row can trip the same check more than once.
+  const seen = new Set<string>();
+  const rows = all.filter((p) => {
+    const key = JSON.stringify([p.row, p.field, p.message]);
+    return seen.has(key) ? false : (seen.add(key), true);
+  });
   const shown = rows.slice(0, MAX_REPORTED_PROBLEMS);
   const rowCount = new Set(rows.map((r) => r.row)).size;
   return new AppError(
@@ -208,7 +215,7 @@ export async function importLibrary(ctx: AppContext, teamId: number, file: Buffe
   );
 
   try {
-    return await ctx.database.db.transaction(async (tx) => {
+    return await inTransaction(ctx.database.db, async (tx) => {
       const existing = new Map((await repo.allVariants(tx, teamId)).map((v) => [nameKey(v.name), v]));
       const now = new Date();
       const fresh: repo.VariantValues[] = [];

@@ -1,49 +1,27 @@
 // /api/top-sets/:id/video (upload), /api/videos/:id (details and comments), /api/videos/:id/content
 // (the video itself, streamed with byte ranges) and /api/videos/:id/comments (coaches).
 import { Router, type RequestHandler } from 'express';
-import multer from 'multer';
 import { unlink } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
 import { pipeline } from 'node:stream/promises';
 import { VIDEO_FIELD, idParams, videoCommentBody } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ANY_ROLE, ATHLETE, STAFF, authOf, requireRole } from '../../middleware/auth';
+import { receiveFile, megabytes } from '../../middleware/upload';
 import { validate } from '../../middleware/validate';
 import { AppError, ValidationError } from '../../lib/errors';
 import { ownAthleteId } from '../my-week/whose';
 import { parseRange } from './range';
 import { addComment, attachVideo, describeVideos, visibleVideo } from './videos.service';
 
-function megabytes(bytes: number): string {
-  const mb = bytes / (1024 * 1024);
-  return mb >= 1 ? `${Math.round(mb * 10) / 10} MB` : `${Math.round(bytes / 1024)} kB`;
-}
-
 /** Receives one file in the `video` field into a temporary file, refusing anything over the limit. */
 function receiveVideo(ctx: AppContext): RequestHandler {
-  const upload = multer({
-    storage: multer.diskStorage({ destination: tmpdir() }),
-    limits: { fileSize: ctx.env.VIDEO_MAX_BYTES, files: 1, fields: 4, parts: 5 },
-  }).single(VIDEO_FIELD);
-  return (req, res, next) => {
-    upload(req, res, (err: unknown) => {
-      if (!err) return next();
-      const code = (err as { code?: string }).code;
-      if (code === 'LIMIT_FILE_SIZE') {
-        return next(
-          new AppError(
-            413,
-            'file_too_large',
-            `That video is larger than the ${megabytes(ctx.env.VIDEO_MAX_BYTES)} limit. Trim it to the top set and try again.`,
-          ),
-        );
-      }
-      if (code === 'LIMIT_UNEXPECTED_FILE' || code === 'LIMIT_FILE_COUNT') {
-        return next(new ValidationError('Some fields need attention.', { [VIDEO_FIELD]: ['Send one video file'] }));
-      }
-      next(err);
-    });
-  };
+  return receiveFile({
+    field: VIDEO_FIELD,
+    maxBytes: ctx.env.VIDEO_MAX_BYTES,
+    storage: 'disk',
+    tooLarge: `That video is larger than the ${megabytes(ctx.env.VIDEO_MAX_BYTES)} limit. Trim it to the top set and try again.`,
+    oneFile: 'Send one video file',
+  });
 }
 
 export function videosRouter(ctx: AppContext): Router {
@@ -91,7 +69,6 @@ export function videosRouter(ctx: AppContext): Router {
       const size = Number(video.sizeBytes);
       const range = parseRange(req.get('range'), size);
       res.setHeader('Accept-Ranges', 'bytes');
-      res.setHeader('Cache-Control', 'private, no-cache');
       if (range === 'unsatisfiable') {
         res.setHeader('Content-Range', `bytes */${size}`);
         throw new AppError(416, 'range_not_satisfiable', 'That part of the video does not exist.');

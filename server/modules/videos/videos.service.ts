@@ -1,5 +1,6 @@
 // Videos of top sets: checked by content, stored in object storage, shown only to the athlete who
 // lifted and the team's coaches, with the coaches' comments.
+import { inTransaction } from '../../db/transaction';
 import { randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { fileTypeFromFile } from 'file-type';
@@ -105,7 +106,7 @@ export async function attachVideo(
   let replaced: VideoRow | null = null;
   let videoId: number;
   try {
-    videoId = await db.transaction(async (tx) => {
+    videoId = await inTransaction(db, async (tx) => {
       replaced = topSet.videoId ? await findVideo(tx, teamId, topSet.videoId) : null;
       const id = await insertVideo(tx, {
         teamId,

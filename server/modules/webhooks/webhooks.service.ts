@@ -1,6 +1,7 @@
 // Turns the provider's (already verified) events into each athlete's fee status. Every event is
 // handled once: its id is stored in the same transaction as the change it causes, so a replay, or
 // two copies arriving together, change nothing the second time.
+import { inTransaction } from '../../db/transaction';
 import type Stripe from 'stripe';
 import type { AppContext } from '../../context';
 import type { Tx } from '../../db/client';
@@ -144,7 +145,7 @@ export async function handlePaymentEvent(ctx: AppContext, event: Stripe.Event): 
   const change = await interpret(ctx, event);
   let queued = false;
   try {
-    const outcome = await db.transaction(async (tx): Promise<Outcome> => {
+    const outcome = await inTransaction(db, async (tx): Promise<Outcome> => {
       await repo.recordEvent(tx, event.id, event.type);
       if (!change) return 'ignored';
       const row = await lockBillingByCustomer(tx, change.customer);

@@ -3,6 +3,8 @@
 import { and, asc, eq, inArray, isNull, lte, sql } from 'drizzle-orm';
 import type { Db, Queryable } from '../../db/client';
 import { outbox } from '../../db/schema';
+import { isDuplicateKey } from '../../db/errors';
+import { inTransaction } from '../../db/transaction';
 
 export type MailKind = 'invitation' | 'password_reset' | 'password_changed' | 'weekly_plan' | 'fee_receipt';
 
@@ -22,19 +24,6 @@ export interface OutgoingMail {
 }
 
 export type OutboxRow = typeof outbox.$inferSelect;
-
-/** Whether a database error (possibly wrapped by drizzle as the `cause`) carries one of these codes. */
-function hasErrorCode(err: unknown, codes: readonly string[]): boolean {
-  for (let e = err as { code?: unknown; cause?: unknown } | undefined, depth = 0; e && depth < 4; depth++) {
-    if (typeof e.code === 'string' && codes.includes(e.code)) return true;
-    e = e.cause as typeof e;
-  }
-  return false;
-}
-
-/** A unique-key clash. */
-export const isDuplicateKey = (err: unknown) => hasErrorCode(err, ['ER_DUP_ENTRY']);
-const isLockConflict = (err: unknown) => hasErrorCode(err, ['ER_LOCK_DEADLOCK', 'ER_LOCK_WAIT_TIMEOUT']);
 
 /** Queues a message; false when a message with that dedupe key already exists. */
 export async function queueMail(db: Queryable, mail: OutgoingMail, now = new Date()): Promise<boolean> {
@@ -66,36 +55,30 @@ export async function queueMail(db: Queryable, mail: OutgoingMail, now = new Dat
 export async function claimDue(db: Db, limit: number, leaseMs: number, now = new Date()): Promise<OutboxRow[]> {
   // Read committed takes no gap locks, so claimers racing on the due index rarely collide; when they
   // still deadlock, the loser simply claims again.
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await db.transaction(
-        async (tx) => {
-          const rows = await tx
-            .select()
-            .from(outbox)
-            .where(and(isNull(outbox.sentAt), lte(outbox.nextAttemptAt, now)))
-            .orderBy(asc(outbox.nextAttemptAt), asc(outbox.id))
-            .limit(limit)
-            .for('update', { skipLocked: true });
-          if (rows.length === 0) return [];
-          await tx
-            .update(outbox)
-            .set({ nextAttemptAt: new Date(now.getTime() + leaseMs) })
-            .where(
-              inArray(
-                outbox.id,
-                rows.map((r) => r.id),
-              ),
-            );
-          return rows;
-        },
-        { isolationLevel: 'read committed' },
-      );
-    } catch (err) {
-      if (attempt >= 5 || !isLockConflict(err)) throw err;
-      await new Promise((r) => setTimeout(r, 10 * attempt + Math.random() * 20));
-    }
-  }
+  return inTransaction(
+    db,
+    async (tx) => {
+      const rows = await tx
+        .select()
+        .from(outbox)
+        .where(and(isNull(outbox.sentAt), lte(outbox.nextAttemptAt, now)))
+        .orderBy(asc(outbox.nextAttemptAt), asc(outbox.id))
+        .limit(limit)
+        .for('update', { skipLocked: true });
+      if (rows.length === 0) return [];
+      await tx
+        .update(outbox)
+        .set({ nextAttemptAt: new Date(now.getTime() + leaseMs) })
+        .where(
+          inArray(
+            outbox.id,
+            rows.map((r) => r.id),
+          ),
+        );
+      return rows;
+    },
+    { isolationLevel: 'read committed' },
+  );
 }
 
 export async function markSent(db: Db, row: Pick<OutboxRow, 'id' | 'kind'>, now = new Date()): Promise<void> {

@@ -3,6 +3,7 @@ import { NavLink, Outlet, useNavigation } from 'react-router-dom';
 import type { Role } from '../../../shared/schemas';
 import { useMe } from '../../features/auth/api/queries';
 import { useSignOut } from '../../features/auth/api/use-sign-out';
+import { AccountMenu } from '../../features/auth/components/account-menu';
 
 const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/board', label: 'Board', roles: ['head_coach', 'coach'] },
@@ -15,8 +16,6 @@ const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/my-history', label: 'My history', roles: ['athlete'] },
   { to: '/my-fee', label: 'Coaching fee', roles: ['athlete'] },
 ];
-
-const ROLE_LABEL: Record<Role, string> = { head_coach: 'Head coach', coach: 'Coach', athlete: 'Athlete' };
 
 export function AppLayout() {
   const { data: me } = useMe();
@@ -54,12 +53,7 @@ export function AppLayout() {
             </ul>
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
-            <span className="hidden text-right leading-tight sm:block">
-              <span className="block font-semibold text-chalk-50">{me.name}</span>
-              <span className="text-ink-300">
-                {ROLE_LABEL[me.role]} · {me.teamName}
-              </span>
-            </span>
+            <AccountMenu me={me} />
             <button
               type="button"
               onClick={() => signOut.mutate()}

@@ -32,8 +32,9 @@ export const matrix: MatrixModule = {
   cases: {
     'POST /api/top-sets/:id/video': {
       path: (f) => `/api/top-sets/${f.ids.matrixTopSet}/video`,
+      // A JSON body where a form with a file belongs: the wrong media type.
       invalidBody: {},
-      expect: athleteOnly(400),
+      expect: athleteOnly(415),
     },
     'GET /api/videos/:id': { path: (f) => `/api/videos/${f.ids.matrixVideo}`, expect: signedIn(200, 404) },
     'GET /api/videos/:id/content': {
