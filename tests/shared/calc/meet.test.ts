@@ -12,6 +12,9 @@ import {
   glPoints,
   isLoadable,
   nextAttemptOptions,
+  nextOffer,
+  standingOf,
+  dotsScore,
 } from '../../../shared/calc';
 
 describe('nextAttemptOptions', () => {
@@ -182,5 +185,86 @@ describe('class limits and best lifts', () => {
     ).toBe(205);
     expect(bestGood([{ kg: 200, good: false }])).toBeNull();
     expect(bestGood([{ kg: 200, good: null }])).toBeNull();
+  });
+});
+
+describe('nextOffer', () => {
+  it('offers the planned opener, then the usual jump after a good lift, the same weight after a miss', () => {
+    expect(nextOffer([], 200, [10, 7.5])).toEqual({ attemptNo: 1, minKg: null, suggestedKg: 200 });
+    expect(nextOffer([], 201, [10, 7.5])).toEqual({ attemptNo: 1, minKg: null, suggestedKg: null }); // off the grid
+    expect(nextOffer([{ kg: 200, good: true }], 200, [10, 7.5])).toEqual({
+      attemptNo: 2,
+      minKg: 202.5,
+      suggestedKg: 210,
+    });
+    expect(nextOffer([{ kg: 200, good: false }], 200, [10, 7.5])).toEqual({
+      attemptNo: 2,
+      minKg: 200,
+      suggestedKg: 200,
+    });
+    expect(
+      nextOffer(
+        [
+          { kg: 200, good: true },
+          { kg: 210, good: true },
+        ],
+        200,
+        [10, 7.5],
+      ),
+    ).toEqual({ attemptNo: 3, minKg: 212.5, suggestedKg: 217.5 });
+    expect(
+      nextOffer(
+        [{ kg: 1, good: true }].concat([
+          { kg: 2, good: true },
+          { kg: 3, good: true },
+        ]),
+        null,
+        [5, 5],
+      ),
+    ).toBeNull();
+  });
+
+  // Property: whatever the jumps, the offer is allowed by the rules and loadable.
+  it('always offers an allowed, loadable weight', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 10, max: 200 }).map((n) => n * 2.5),
+        fc.boolean(),
+        fc.integer({ min: 1, max: 20 }).map((n) => n * 2.5),
+        (kg, good, jump) => {
+          const offer = nextOffer([{ kg, good }], null, [jump, jump])!;
+          expect(offer.suggestedKg).not.toBeNull();
+          expect(attemptProblem(offer.suggestedKg!, { kg, good })).toBeNull();
+        },
+      ),
+    );
+  });
+});
+
+describe('standingOf', () => {
+  it('adds the best good lift of each and scores the total by DOTS and GL', () => {
+    const s = standingOf(
+      {
+        squat: [
+          { kg: 200, good: true },
+          { kg: 210, good: false },
+        ],
+        bench: [{ kg: 130, good: true }],
+        deadlift: [
+          { kg: 250, good: true },
+          { kg: 260, good: true },
+        ],
+      },
+      90,
+      'M',
+    );
+    expect(s).toMatchObject({ best: { squat: 200, bench: 130, deadlift: 260 }, total: 590, complete: true });
+    expect(s.gl).toBeCloseTo(glPoints(590, 90, 'M'), 2);
+    expect(s.dots).toBeCloseTo(dotsScore(590, 90, 'M'), 2);
+  });
+
+  it('runs a total before every lift is in, and has no points without a weigh-in', () => {
+    const s = standingOf({ squat: [{ kg: 200, good: true }], bench: [], deadlift: [] }, null, 'F');
+    expect(s).toMatchObject({ total: 200, complete: false, dots: null, gl: null });
   });
 });
