@@ -247,6 +247,10 @@ describe('results into history', () => {
     // Twice is refused; marks are closed once the results are in.
     expect((await coach.post(`/api/meets/${meetId}/day/results`)).status).toBe(409);
     expect((await post(3, 215, 'good')).status).toBe(409);
+    const late = await coach
+      .put(`/api/meets/${meetId}/day/entries/${entryId}/weigh-in`)
+      .send({ bodyweightKg: 90, version: 1 });
+    expect(late.status).toBe(409);
   });
 
   it('refuses a meet that has not happened yet', async () => {

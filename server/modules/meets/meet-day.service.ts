@@ -54,10 +54,10 @@ async function mustFindMeet(db: Queryable, teamId: number, id: number) {
 }
 
 async function mustFindEntry(db: Queryable, teamId: number, meetId: number, entryId: number) {
-  await mustFindMeet(db, teamId, meetId);
+  const meet = await mustFindMeet(db, teamId, meetId);
   const entry = await repo.findDayEntry(db, teamId, meetId, entryId);
   if (!entry) throw new NotFoundError('That entry');
-  return entry;
+  return { meet, entry };
 }
 
 export async function getMeetDay(ctx: AppContext, teamId: number, meetId: number): Promise<MeetDay> {
@@ -253,7 +253,10 @@ export async function weighIn(
   body: z.output<typeof weighInBody>,
 ): Promise<MeetDay> {
   const db = ctx.database.db;
-  const entry = await mustFindEntry(db, teamId, meetId, entryId);
+  const { meet, entry } = await mustFindEntry(db, teamId, meetId, entryId);
+  if (meet.resultsSavedAt) {
+    throw new ConflictError('The results of this meet are already in the athletes’ histories; the weigh-in is closed.');
+  }
   if (entry.version !== body.version) {
     throw new ConflictError('Someone else changed this entry since you opened it. Their version is shown.');
   }
@@ -280,7 +283,7 @@ export async function saveJumps(
   body: z.output<typeof jumpsBody>,
 ): Promise<MeetDay> {
   const db = ctx.database.db;
-  const entry = await mustFindEntry(db, teamId, meetId, entryId);
+  const { entry } = await mustFindEntry(db, teamId, meetId, entryId);
   const stale = 'Someone else changed these jumps since you opened them. Their version is shown.';
   if (body.version === null || body.version === undefined) {
     try {

@@ -287,9 +287,11 @@ function WeighIn({ day, view }: { day: MeetDay; view: LifterView }) {
           <CleanIcon className="text-clean-700" width={18} height={18} />
           Weighed in at {kgText(entry.weighInKg)}, within the {entry.weightClass} kg class · flight {entry.flight}
         </span>
-        <Button variant="ghost" size="sm" onClick={() => setOpen(true)}>
-          Change weigh-in
-        </Button>
+        {day.meet.resultsSavedAt === null ? (
+          <Button variant="ghost" size="sm" onClick={() => setOpen(true)}>
+            Change weigh-in
+          </Button>
+        ) : null}
       </p>
     );
   }
