@@ -56,6 +56,8 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'roster', ...page(queryClient, STAFF, () => import('./routes/roster')) },
             { path: 'athletes/:athleteId', ...page(queryClient, STAFF, () => import('./routes/athlete')) },
             { path: 'meets', ...page(queryClient, STAFF, () => import('./routes/meets')) },
+            { path: 'meets/:meetId/day', ...page(queryClient, STAFF, () => import('./routes/meet-day')) },
+            { path: 'meets/:meetId/sheet', ...page(queryClient, STAFF, () => import('./routes/meet-sheet')) },
             { path: 'rules', ...page(queryClient, HEAD_COACH, () => import('./routes/rules')) },
             { path: 'fees', ...page(queryClient, HEAD_COACH, () => import('./routes/fees')) },
             { path: 'my-week', ...page(queryClient, ATHLETE, () => import('./routes/my-week')) },

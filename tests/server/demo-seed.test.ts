@@ -1,6 +1,6 @@
 // The demo scenario: seeded once into an empty database, consistent with the team's own rules.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { eq } from 'drizzle-orm';
+import { and, eq, gte, lt } from 'drizzle-orm';
 import {
   addWeeks,
   checkPlan,
@@ -16,6 +16,7 @@ import { createDatabase, type Database } from '../../server/db/client';
 import {
   athletes,
   bodyweights,
+  meetAttempts,
   meetEntries,
   meets,
   planEntries,
@@ -81,6 +82,31 @@ describe('demo seed', () => {
     expect(rests.map((r) => r.week)).toEqual([addWeeks(thisWeek, 2)]);
   });
 
+  it('has a past meet with nine judged attempts per entrant, its results in their histories, and upcoming meets', async () => {
+    const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
+    const day = today.toISOString().slice(0, 10);
+    const past = await database.db
+      .select()
+      .from(meets)
+      .where(and(eq(meets.teamId, club!.id), lt(meets.date, day)));
+    expect(past).toHaveLength(1);
+    expect(past[0]!.resultsSavedAt).not.toBeNull();
+    const upcoming = await database.db
+      .select()
+      .from(meets)
+      .where(and(eq(meets.teamId, club!.id), gte(meets.date, day)));
+    expect(upcoming.length).toBeGreaterThanOrEqual(1);
+    const entries = await database.db.select().from(meetEntries).where(eq(meetEntries.meetId, past[0]!.id));
+    expect(entries).toHaveLength(2);
+    const judged = await database.db.select().from(meetAttempts).where(eq(meetAttempts.meetId, past[0]!.id));
+    expect(judged).toHaveLength(18);
+    const results = await database.db
+      .select()
+      .from(topSets)
+      .where(and(eq(topSets.teamId, club!.id), eq(topSets.performedOn, past[0]!.date)));
+    expect(results.filter((r) => r.reps === 1 && r.note?.includes(past[0]!.name))).toHaveLength(6);
+  });
+
   it('plans twelve past weeks and the current one for everyone, within the rules', async () => {
     const [club] = await database.db.select().from(teams).where(eq(teams.name, 'Copperkettle Barbell Club'));
     const [stored] = await database.db.select().from(teamRules).where(eq(teamRules.teamId, club!.id));
@@ -135,7 +161,7 @@ describe('demo seed', () => {
       .select({ athleteId: meetEntries.athleteId, date: meets.date })
       .from(meetEntries)
       .innerJoin(meets, eq(meets.id, meetEntries.meetId))
-      .where(eq(meets.teamId, club!.id));
+      .where(and(eq(meets.teamId, club!.id), gte(meets.date, today.toISOString().slice(0, 10))));
     expect(entered.length).toBe(2);
     for (const entry of entered) {
       const meetWeek = weekOfDate(new Date(`${entry.date}T12:00:00Z`));

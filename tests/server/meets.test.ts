@@ -103,7 +103,7 @@ describe('meet entries', () => {
       weightKg: 150,
       reps: 1,
     });
-    // Counted by specificity, but more than twelve weeks ago.
+    // Counted by specificity, but older than the look-back window.
     await createTopSet(db, team.teamId, athleteId, comp, {
       week: '2020-W10',
       performedOn: '2020-03-04',
@@ -172,7 +172,10 @@ describe('meet entries', () => {
     });
     expect(bad.status).toBe(400);
     const keys = Object.keys(bad.body.error.fields);
-    expect(keys).toEqual(expect.arrayContaining(['attempts.squat', 'attempts.bench.0', 'attempts']));
+    expect(keys).toEqual(expect.arrayContaining(['attempts.squat.1', 'attempts.bench.0', 'attempts']));
+    // The federation's rules (memory): after a good lift at least 2.5 kg more; 2.5 kg steps except records.
+    expect(bad.body.error.fields['attempts.squat.1'][0]).toMatch(/at least 2\.5 kg heavier/);
+    expect(bad.body.error.fields['attempts.bench.0'][0]).toMatch(/0\.5 kg/);
     // Changing the division back to open makes the stored 43 wrong: refused.
     const division = await coach
       .patch(`/api/meets/${meet}/entries/${junior.body.id}`)

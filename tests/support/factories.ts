@@ -4,7 +4,7 @@ import bcrypt from 'bcryptjs';
 import type { Db } from '../../server/db/client';
 import { athleteBilling, feePlans } from '../../server/db/schema';
 import { athletes, memberships, planEntries, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
-import { bodyweights, meetEntries, meets, restrictions } from '../../server/db/schema';
+import { bodyweights, meetAttempts, meetEntries, meets, restrictions } from '../../server/db/schema';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { TEST_PASSWORD } from './app';
 
@@ -166,6 +166,31 @@ export async function createMeetEntry(
     .values({ teamId, meetId, athleteId, attempts: {}, ...overrides })
     .$returningId();
   return e!.id;
+}
+
+/** A judged attempt on meet day (the first squat, good, at 100 kg unless told otherwise). */
+export async function createMeetAttempt(
+  db: Db,
+  teamId: number,
+  meetId: number,
+  entryId: number,
+  overrides: Partial<typeof meetAttempts.$inferInsert> = {},
+) {
+  const [a] = await db
+    .insert(meetAttempts)
+    .values({
+      teamId,
+      meetId,
+      entryId,
+      lift: 'squat',
+      attemptNo: 1,
+      weightKg: 100,
+      result: 'good',
+      idempotencyKey: `factory-${uniq()}`,
+      ...overrides,
+    })
+    .$returningId();
+  return a!.id;
 }
 
 export async function createBodyweight(

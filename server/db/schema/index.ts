@@ -6,3 +6,4 @@ export * from './plans';
 export * from './training';
 export * from './mail';
 export * from './billing';
+export * from './meetday';

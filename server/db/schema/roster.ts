@@ -2,6 +2,7 @@
 import {
   date,
   datetime,
+  decimal,
   index,
   json,
   mysqlEnum,
@@ -107,6 +108,10 @@ export const meets = mysqlTable(
     location: varchar('location', { length: 160 }),
     federation: varchar('federation', { length: 120 }),
     notes: text('notes'),
+    /** Classic or equipped: picks the points coefficients on meet day. */
+    equipment: mysqlEnum('equipment', ['classic', 'equipped']).notNull().default('classic'),
+    /** When the meet's results were written into the athletes' histories (once only). */
+    resultsSavedAt: datetime('results_saved_at', { mode: 'date', fsp: 3 }),
     version: version(),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -132,6 +137,11 @@ export const meetEntries = mysqlTable(
     weightClass: varchar('weight_class', { length: 8 }),
     division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
     attempts: json('attempts').$type<AttemptPlan>().notNull(),
+    /** Bodyweight at the weigh-in, checked against the class limit. */
+    weighInKg: decimal('weigh_in_kg', { precision: 5, scale: 2, mode: 'number' }),
+    flight: varchar('flight', { length: 2 }).notNull().default('A'),
+    /** Lot number: breaks ties in the lifting order. */
+    lot: smallint('lot', { unsigned: true }),
     version: version(),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

@@ -204,6 +204,15 @@ export const DEMO_MEETS = [
   },
 ];
 
+/** A meet the club went to a few weeks ago; its results are already in the entrants' histories. */
+export const PAST_MEET = {
+  name: 'Harrowgate Autumn Open',
+  weeksAgo: 4,
+  location: 'Harrowgate community gym',
+  federation: 'Regional federation (demo)',
+  athletes: ['dario', 'keisha'],
+};
+
 export const OTHER_TEAM = {
   name: 'Quillmoor Strength Co.',
   headCoach: { email: 'other@rackturn.test', name: 'Petra Vosk' },

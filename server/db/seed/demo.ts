@@ -24,6 +24,7 @@ import { DEMO_EQUIPMENT, DEMO_LIBRARY, OTHER_TEAM_LIBRARY, type DemoVariant } fr
 import { DEMO_ATHLETES, DEMO_COACHES, DEMO_MEETS, DEMO_PASSWORD, DEMO_TEAM, OTHER_TEAM } from './demo-people';
 import { seedDemoHistory } from './demo-history';
 import { seedDemoTissue } from './demo-tissue';
+import { seedDemoPastMeet } from './demo-meet-day';
 import { seedDemoFees } from './demo-fees';
 
 export async function seedDemoIfEmpty(db: Db, today = new Date()): Promise<boolean> {
@@ -175,6 +176,7 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
     }
 
     await seedDemoHistory(tx, { teamId, today, athleteIds, variantIds, coachId: staffIds[0] ?? null });
+    await seedDemoPastMeet(tx, { teamId, today, athleteIds, variantIds, coachId: staffIds[0] ?? null });
     await seedDemoTissue(tx, { teamId, today, athleteIds });
     await seedDemoFees(tx, { teamId, currency: DEMO_TEAM.currency, today, athleteIds });
 

@@ -136,7 +136,7 @@ export async function deleteEntry(db: Queryable, teamId: number, meetId: number,
   return res.affectedRows > 0;
 }
 
-/** Recent top sets on variants close to a competition lift: where attempt plans start from. */
+/** Top sets on variants close to a competition lift since a date: where attempt plans start from. */
 export async function recentCompetitionSets(
   db: Queryable,
   teamId: number,
@@ -150,7 +150,11 @@ export async function recentCompetitionSets(
       athleteId: topSets.athleteId,
       lift: variants.lift,
       variantName: variants.name,
-      e1rmKg: topSets.e1rmKg,
+      specificity: variants.specificity,
+      equipment: variants.equipment,
+      weightKg: topSets.weightKg,
+      reps: topSets.reps,
+      rpe: topSets.rpe,
       performedOn: topSets.performedOn,
     })
     .from(topSets)

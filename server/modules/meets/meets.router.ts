@@ -8,11 +8,19 @@ import {
   meetListQuery,
   meetParams,
   meetPatchBody,
+  jumpsBody,
+  markBody,
+  meetDayAttemptParams,
+  meetDayEntryParams,
+  meetDayParams,
+  undoMarkQuery,
+  weighInBody,
 } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import * as service from './meets.service';
+import * as day from './meet-day.service';
 
 export function meetsRouter(ctx: AppContext): Router {
   const router = Router();
@@ -78,6 +86,53 @@ export function meetsRouter(ctx: AppContext): Router {
       await service.removeEntry(ctx, authOf(req).teamId, params.id, params.entryId);
       res.status(204).end();
     }),
+  );
+
+  // Meet day: the live state, marks (idempotent by key), weigh-in, usual jumps, results into history.
+  router.get(
+    '/meets/:id/day',
+    staff,
+    validate({ params: meetDayParams }, ({ params }, req) => day.getMeetDay(ctx, authOf(req).teamId, params.id)),
+  );
+
+  router.post(
+    '/meets/:id/day/marks',
+    staff,
+    validate({ params: meetDayParams, body: markBody }, async ({ params, body }, req, res) => {
+      const out = await day.mark(ctx, authOf(req), params.id, body);
+      res.status(out.replay ? 200 : 201).json(out);
+    }),
+  );
+
+  router.delete(
+    '/meets/:id/day/marks/:attemptId',
+    staff,
+    validate({ params: meetDayAttemptParams, query: undoMarkQuery }, async ({ params, query }, req, res) => {
+      await day.undoMark(ctx, authOf(req).teamId, params.id, params.attemptId, query.version);
+      res.status(204).end();
+    }),
+  );
+
+  router.put(
+    '/meets/:id/day/entries/:entryId/weigh-in',
+    staff,
+    validate({ params: meetDayEntryParams, body: weighInBody }, ({ params, body }, req) =>
+      day.weighIn(ctx, authOf(req).teamId, params.id, params.entryId, body),
+    ),
+  );
+
+  router.put(
+    '/meets/:id/day/entries/:entryId/jumps',
+    staff,
+    validate({ params: meetDayEntryParams, body: jumpsBody }, ({ params, body }, req) =>
+      day.saveJumps(ctx, authOf(req).teamId, params.id, params.entryId, body),
+    ),
+  );
+
+  router.post(
+    '/meets/:id/day/results',
+    staff,
+    validate({ params: meetDayParams }, ({ params }, req) => day.saveResults(ctx, authOf(req), params.id)),
   );
 
   return router;

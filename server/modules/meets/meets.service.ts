@@ -6,6 +6,8 @@ import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import {
   CURRENT_MAX_MIN_SPECIFICITY,
   CURRENT_MAX_WEEKS,
+  FRESH_MAX_WEEKS,
+  pickCurrentMax,
   type CompetitionLift,
   type CurrentMax,
   type ListResponse,
@@ -30,7 +32,7 @@ import * as repo from './meets.repository';
 type Division = 'open' | 'junior' | 'subjunior';
 const DIVISION_WORDS: Record<Division, string> = { open: 'open', junior: 'junior', subjunior: 'sub-junior' };
 
-function checkWeightClass(label: string | null | undefined, sex: 'M' | 'F', division: Division) {
+export function checkWeightClass(label: string | null | undefined, sex: 'M' | 'F', division: Division) {
   if (!label) return;
   const allowed = WEIGHT_CLASSES[sex][division];
   if (!allowed.includes(label)) {
@@ -48,22 +50,26 @@ async function toDtos(db: Queryable, teamId: number, rows: repo.MeetRow[]): Prom
     rows.map((r) => r.id),
   );
   const athleteIds = [...new Set(entries.map((e) => e.athleteId))];
-  const since = mondayOf(addWeeks(weekOfDate(new Date()), -CURRENT_MAX_WEEKS))
-    .toISOString()
-    .slice(0, 10);
+  const weeksAgo = (n: number) =>
+    mondayOf(addWeeks(weekOfDate(new Date()), -n))
+      .toISOString()
+      .slice(0, 10);
   const [weights, sets] = await Promise.all([
     latestBodyweights(db, teamId, athleteIds),
-    repo.recentCompetitionSets(db, teamId, athleteIds, since, CURRENT_MAX_MIN_SPECIFICITY),
+    repo.recentCompetitionSets(db, teamId, athleteIds, weeksAgo(CURRENT_MAX_WEEKS), CURRENT_MAX_MIN_SPECIFICITY),
   ]);
+  const freshSince = weeksAgo(FRESH_MAX_WEEKS);
   const maxes = new Map<number, Record<CompetitionLift, CurrentMax | null>>();
-  for (const id of athleteIds) maxes.set(id, { squat: null, bench: null, deadlift: null });
-  for (const s of sets) {
-    const slot = maxes.get(s.athleteId)!;
-    const e1rmKg = Number(s.e1rmKg);
-    const best = slot[s.lift];
-    if (!best || e1rmKg > best.e1rmKg || (e1rmKg === best.e1rmKg && s.performedOn > best.performedOn)) {
-      slot[s.lift] = { e1rmKg, variantName: s.variantName, performedOn: s.performedOn };
-    }
+  for (const id of athleteIds) {
+    const mine = sets.filter((s) => s.athleteId === id);
+    const of = (lift: CompetitionLift) =>
+      pickCurrentMax(
+        mine
+          .filter((s) => s.lift === lift)
+          .map((s) => ({ ...s, weightKg: Number(s.weightKg), rpe: s.rpe === null ? null : Number(s.rpe) })),
+        freshSince,
+      );
+    maxes.set(id, { squat: of('squat'), bench: of('bench'), deadlift: of('deadlift') });
   }
   const dto = (e: (typeof entries)[number]): MeetEntry => {
     const bw = weights.get(e.athleteId) ?? null;
@@ -87,6 +93,8 @@ async function toDtos(db: Queryable, teamId: number, rows: repo.MeetRow[]): Prom
     location: m.location,
     federation: m.federation,
     notes: m.notes,
+    equipment: m.equipment,
+    resultsSavedAt: m.resultsSavedAt ? m.resultsSavedAt.toISOString() : null,
     entries: entries.filter((e) => e.meetId === m.id).map(dto),
     version: m.version,
     updatedAt: m.updatedAt.toISOString(),

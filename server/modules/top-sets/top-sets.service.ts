@@ -73,3 +73,41 @@ export async function variantSummary(
   const sets: TopSet[] = await variantTopSets(db, teamId, athleteId, variantId);
   return { lastTime: sets.find((s) => s.week < week) ?? null, record: recordOf(sets) };
 }
+
+/** A judged meet lift written into an athlete's history as a single on the competition variant. */
+export interface CompetitionResult {
+  athleteId: number;
+  variantId: number;
+  weightKg: number;
+  performedOn: string;
+  note: string;
+}
+
+/** Writes meet results as top sets (one rep, e1RM = the weight) inside the caller's transaction. */
+export async function addCompetitionResults(
+  tx: Queryable,
+  teamId: number,
+  userId: number,
+  results: readonly CompetitionResult[],
+): Promise<number[]> {
+  const ids: number[] = [];
+  for (const r of results) {
+    ids.push(
+      await insertTopSet(tx, {
+        teamId,
+        athleteId: r.athleteId,
+        planEntryId: null,
+        variantId: r.variantId,
+        week: weekOfDate(new Date(`${r.performedOn}T12:00:00Z`)),
+        performedOn: r.performedOn,
+        weightKg: r.weightKg,
+        reps: 1,
+        rpe: null,
+        e1rmKg: topSetE1rmKg(r.weightKg, 1),
+        note: r.note,
+        createdBy: userId,
+      }),
+    );
+  }
+  return ids;
+}

@@ -26,7 +26,7 @@ export function AppLayout() {
 
   return (
     <div className="min-h-dvh">
-      <header className="bg-ink-900 text-chalk-100">
+      <header className="bg-ink-900 text-chalk-100 print:hidden">
         <div className="mx-auto flex max-w-screen-2xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <NavLink to="/" className="flex items-center gap-2 text-xl font-bold tracking-wide text-chalk-50">
             <span aria-hidden className="inline-block h-4 w-6 rounded-sm border-x-4 border-rust-500 bg-chalk-100" />

@@ -1,5 +1,5 @@
 // Authorization entries for meets and the athletes entered in them.
-import { createMeet, createMeetEntry } from '../../support/factories';
+import { createMeet, createMeetAttempt, createMeetEntry } from '../../support/factories';
 import { staff, type MatrixModule } from './types';
 
 export const matrix: MatrixModule = {
@@ -7,7 +7,11 @@ export const matrix: MatrixModule = {
     const meetId = await createMeet(db, team.teamId);
     const entryId = await createMeetEntry(db, team.teamId, meetId, team.athleteId);
     const doomedMeet = await createMeet(db, team.teamId, { name: 'Matrix meet to delete' });
-    return { meet: meetId, meetEntry: entryId, doomedMeet };
+    // Meet day: a meet in the future (results cannot be saved yet) with one entry and one judged attempt.
+    const dayMeet = await createMeet(db, team.teamId, { name: 'Matrix meet day', date: '2031-05-01' });
+    const dayEntry = await createMeetEntry(db, team.teamId, dayMeet, team.athleteId);
+    const dayAttempt = await createMeetAttempt(db, team.teamId, dayMeet, dayEntry);
+    return { meet: meetId, meetEntry: entryId, doomedMeet, dayMeet, dayEntry, dayAttempt };
   },
   cases: {
     'GET /api/meets': { path: () => '/api/meets', expect: staff(200, 200) },
@@ -39,6 +43,42 @@ export const matrix: MatrixModule = {
     'DELETE /api/meets/:id/entries/:entryId': {
       path: (f) => `/api/meets/${f.ids.meet}/entries/${f.ids.meetEntry}`,
       expect: { signedOut: 401, athlete: 403, coach: 204, headCoach: 404, otherTeam: 404 },
+    },
+    'GET /api/meets/:id/day': { path: (f) => `/api/meets/${f.ids.dayMeet}/day`, expect: staff(200) },
+    'POST /api/meets/:id/day/marks': {
+      path: (f) => `/api/meets/${f.ids.dayMeet}/day/marks`,
+      invalidBody: { key: 'x', result: 'maybe' },
+      validBody: (f) => ({
+        key: 'matrix-other-team-1',
+        entryId: f.ids.dayEntry,
+        lift: 'bench',
+        attemptNo: 1,
+        weightKg: 100,
+        result: 'good',
+      }),
+      expect: staff(400),
+    },
+    'DELETE /api/meets/:id/day/marks/:attemptId': {
+      path: (f) => `/api/meets/${f.ids.dayMeet}/day/marks/${f.ids.dayAttempt}?version=99`,
+      // A stale version: coaches get 409 and nothing is taken back.
+      expect: staff(409),
+    },
+    'PUT /api/meets/:id/day/entries/:entryId/weigh-in': {
+      path: (f) => `/api/meets/${f.ids.dayMeet}/day/entries/${f.ids.dayEntry}/weigh-in`,
+      invalidBody: { bodyweightKg: -1, version: 1 },
+      validBody: () => ({ bodyweightKg: 62.5, version: 1 }),
+      expect: staff(400),
+    },
+    'PUT /api/meets/:id/day/entries/:entryId/jumps': {
+      path: (f) => `/api/meets/${f.ids.dayMeet}/day/entries/${f.ids.dayEntry}/jumps`,
+      invalidBody: { jumps: { squat: [3, 5] } },
+      validBody: () => ({ jumps: { squat: [10, 5], bench: [5, 2.5], deadlift: [10, 5] } }),
+      expect: staff(400),
+    },
+    'POST /api/meets/:id/day/results': {
+      path: (f) => `/api/meets/${f.ids.dayMeet}/day/results`,
+      // The meet is in the future: coaches are told so (400) and nothing is written.
+      expect: staff(400),
     },
   },
 };

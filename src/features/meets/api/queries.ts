@@ -1,6 +1,6 @@
-// The meets' key factory and queries: every meet with its entries, and one meet.
+// The meets' key factory and queries: every meet with its entries, one meet, and its meet-day state.
 import { queryOptions } from '@tanstack/react-query';
-import type { ListResponse, Meet } from '../../../../shared/schemas';
+import type { ListResponse, Meet, MeetDay } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 
 export const meetKeys = {
@@ -9,6 +9,7 @@ export const meetKeys = {
   list: (when: 'upcoming' | 'past' | 'all') => [...meetKeys.lists(), { when }] as const,
   details: () => [...meetKeys.all, 'detail'] as const,
   detail: (id: number) => [...meetKeys.details(), id] as const,
+  day: (id: number) => [...meetKeys.detail(id), 'day'] as const,
 };
 
 export const meetListOptions = (when: 'upcoming' | 'past' | 'all' = 'all') =>
@@ -21,4 +22,12 @@ export const meetOptions = (id: number) =>
   queryOptions({
     queryKey: meetKeys.detail(id),
     queryFn: ({ signal }) => api<Meet>(`/meets/${id}`, { signal }),
+  });
+
+export const meetDayOptions = (id: number) =>
+  queryOptions({
+    queryKey: meetKeys.day(id),
+    queryFn: ({ signal }) => api<MeetDay>(`/meets/${id}/day`, { signal }),
+    // Other coaches mark too: keep the screen close to live without hammering a weak connection.
+    refetchInterval: 15_000,
   });

@@ -8,6 +8,7 @@ import { WEIGHT_CLASSES } from '../../../../shared/calc';
 import {
   ATTEMPT_FRACTIONS,
   COMPETITION_LIFTS,
+  FRESH_MAX_WEEKS,
   meetEntryPatchBody,
   suggestAttempts,
   type CompetitionLift,
@@ -188,8 +189,16 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
                           <span>
                             {max.e1rmKg} kg{' '}
                             <span className="text-ink-600">
-                              ({max.variantName}, {dateText(max.performedOn)})
+                              from {max.variantName}, {max.weightKg} kg × {max.reps}
+                              {max.rpe !== null ? ` at RPE ${max.rpe}` : ''} on {dateText(max.performedOn)}
+                              {max.competitionLift ? '' : ' (a close variant, not the competition lift)'}
                             </span>
+                            {max.stale ? (
+                              <span role="note" className="mt-1 flex items-center gap-1 text-caution-700">
+                                <WarningIcon width={14} height={14} className="shrink-0" />
+                                Older than {FRESH_MAX_WEEKS} weeks: plan from a fresh top set if you can.
+                              </span>
+                            ) : null}
                           </span>
                           <Button size="sm" variant="ghost" onClick={() => plan(lift)}>
                             Plan from e1RM
@@ -214,7 +223,8 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
           <p className="mt-1 flex gap-1 text-xs text-ink-600">
             <WarningIcon className="mt-0.5 shrink-0" width={14} height={14} />
             Plan from e1RM uses common practice, not a published rule: about {PERCENTS} of the current e1RM, rounded
-            down to 2.5 kg. Check it against how the athlete has been moving.
+            down to 2.5 kg, each attempt at least 2.5 kg over the one before. The e1RM counts reps in reserve from the
+            RPE; sets with chains or bands do not count. Check it against how the athlete has been moving.
           </p>
         </fieldset>
 

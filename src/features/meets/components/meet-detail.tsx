@@ -2,7 +2,8 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import type { Meet } from '../../../../shared/schemas';
-import { Button } from '../../../components/ui/button';
+import { Link } from 'react-router-dom';
+import { Button, buttonClass } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { SelectField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
@@ -36,7 +37,13 @@ export function MeetDetail({ meet, onDeleted }: { meet: Meet; onDeleted: () => v
           </p>
           {meet.notes ? <p className="mt-1 text-sm text-ink-600">{meet.notes}</p> : null}
         </div>
-        <div className="flex gap-2">
+        <div className="flex flex-wrap gap-2">
+          <Link to={`/meets/${meet.id}/day`} className={buttonClass('primary', 'sm')}>
+            Open meet day
+          </Link>
+          <Link to={`/meets/${meet.id}/sheet`} className={buttonClass('ghost', 'sm')}>
+            Result sheet
+          </Link>
           <Button variant="secondary" size="sm" onClick={() => setEditing(true)}>
             Edit meet
           </Button>

@@ -1,9 +1,9 @@
-// Add or edit a meet: name, date, place, federation and notes.
+// Add or edit a meet: name, date, place, federation, classic or equipped, and notes.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { meetBody, type Meet, type MeetBody } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { TextAreaField, TextField } from '../../../components/ui/field';
+import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
@@ -20,6 +20,7 @@ export function MeetForm({ meet, onSaved }: { meet: Meet | null; onSaved: (m: Me
       location: meet?.location ?? '',
       federation: meet?.federation ?? '',
       notes: meet?.notes ?? '',
+      equipment: meet?.equipment ?? 'classic',
     } satisfies MeetBody,
   });
   const { errors, isSubmitting } = form.formState;
@@ -53,7 +54,22 @@ export function MeetForm({ meet, onSaved }: { meet: Meet | null; onSaved: (m: Me
           {...form.register('federation')}
         />
       </div>
-      <TextField label="Location" autoComplete="off" error={errors.location?.message} {...form.register('location')} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField
+          label="Location"
+          autoComplete="off"
+          error={errors.location?.message}
+          {...form.register('location')}
+        />
+        <SelectField
+          label="Equipment (for GL points)"
+          error={errors.equipment?.message}
+          {...form.register('equipment')}
+        >
+          <option value="classic">Classic (no supportive suits or shirts)</option>
+          <option value="equipped">Equipped</option>
+        </SelectField>
+      </div>
       <TextAreaField label="Notes" rows={3} error={errors.notes?.message} {...form.register('notes')} />
       <div className="flex justify-end">
         <Button type="submit" disabled={isSubmitting}>
