@@ -25,11 +25,11 @@ import {
 } from '../../../shared/calc';
 import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
+import { isDuplicateKey } from '../../db/errors';
 import { inTransaction } from '../../db/transaction';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { todayIso } from '../athletes/athletes.service';
 import { addCompetitionResults, type CompetitionResult } from '../top-sets/top-sets.service';
-import { isDuplicateKey } from '../variants/mysql-errors';
 import * as meetsRepo from './meets.repository';
 import * as repo from './meet-day.repository';
 import { checkWeightClass } from './meets.service';
