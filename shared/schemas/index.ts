@@ -12,3 +12,4 @@ export * from './fees';
 export * from './library';
 export * from './roster';
 export * from './meets';
+export * from './loop';

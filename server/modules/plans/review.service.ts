@@ -1,0 +1,163 @@
+// Reviewing a plan with the engine: the status of every pick (clean, warning, break) and how a save
+// changed them, the library ranked for one cell ("What fits here"), and a week's picks for publishing.
+import {
+  prepareCandidateChecks,
+  rankAlternatives,
+  summariseAlternatives,
+  weekRange,
+  type AlternativesSummary,
+  type PlanRequest,
+} from '../../../shared/engine';
+import {
+  plainViolationMessage,
+  type AlternativesResponse,
+  type CellStatusChange,
+  type PlanCell,
+} from '../../../shared/schemas';
+import type { Db, Queryable } from '../../db/client';
+import { NotFoundError } from '../../lib/errors';
+import { daysOfWeeks, engineEntries, loadPlanning, today, type Planning, type PlanningAthlete } from './plans.context';
+import { entriesOfAthletes, listAthletes, type EntryRow } from './plans.repository';
+
+export type CellStatus = 'clean' | 'warning' | 'break';
+export interface RatedCell {
+  athleteId: number;
+  week: string;
+  slotId: string;
+  variantId: number;
+  reason: string | null;
+  status: CellStatus;
+  /** Rule breaks first, then cautions, in plain words. */
+  reasons: string[];
+}
+
+export { today };
+
+const keyOf = (c: { athleteId: number; week: string; slotId: string }) => `${c.athleteId}|${c.week}|${c.slotId}`;
+
+/** One athlete's engine request over their whole stored plan (every entry counts toward the windows). */
+function requestFor(planning: Planning, athlete: PlanningAthlete, rows: EntryRow[]): PlanRequest {
+  const own = rows.filter((r) => r.athleteId === athlete.board.id);
+  const weeks = own.map((r) => r.week).sort();
+  const t = today();
+  return {
+    variants: planning.engineVariants,
+    slots: planning.slots,
+    athletes: [{ ...athlete.input, history: [] }],
+    rules: athlete.rules,
+    weeks: weeks.length ? weekRange(weeks[0]!, weeks[weeks.length - 1]!) : [t.week],
+    planned: engineEntries(own),
+  };
+}
+
+/** Every pick of these athletes (in `weeks` when given), rated where it stands. */
+export function rateCells(planning: Planning, rows: EntryRow[], athleteIds: number[], weeks?: Set<string>) {
+  const out: RatedCell[] = [];
+  for (const id of athleteIds) {
+    const athlete = planning.athleteById.get(id);
+    if (!athlete) continue;
+    const checks = prepareCandidateChecks(requestFor(planning, athlete, rows));
+    for (const r of rows) {
+      if (r.athleteId !== id || r.variantId === null || (weeks && !weeks.has(r.week))) continue;
+      const rating = checks.rate(String(id), r.week, r.slotId, String(r.variantId));
+      const variant = planning.variantById.get(r.variantId);
+      out.push({
+        athleteId: id,
+        week: r.week,
+        slotId: r.slotId,
+        variantId: r.variantId,
+        reason: r.reason,
+        status: rating.status,
+        reasons: [
+          ...rating.violations.map((v) => plainViolationMessage(v.message, variant?.name, !!variant?.archived)),
+          ...rating.warnings,
+        ],
+      });
+    }
+  }
+  return out;
+}
+
+/**
+ * Cells other than the changed ones whose status moved between two states of the board, e.g. an
+ * override in one week that makes last week's engine pick repeat too soon.
+ */
+export function statusChanges(
+  planning: Planning,
+  before: EntryRow[],
+  after: EntryRow[],
+  athleteIds: number[],
+  changed: Set<string>,
+): CellStatusChange[] {
+  const was = new Map(rateCells(planning, before, athleteIds).map((c) => [keyOf(c), c]));
+  const out: CellStatusChange[] = [];
+  for (const now of rateCells(planning, after, athleteIds)) {
+    const key = keyOf(now);
+    if (changed.has(key)) continue;
+    const old = was.get(key);
+    if (!old || old.variantId !== now.variantId || old.status === now.status) continue;
+    out.push({
+      athleteId: now.athleteId,
+      week: now.week,
+      slotId: now.slotId,
+      variantId: now.variantId,
+      from: old.status,
+      to: now.status,
+      reasons: now.reasons,
+    });
+  }
+  return out;
+}
+
+/** The library ranked for one cell; another team's athlete, or an unknown slot, is not found. */
+export async function alternativesFor(db: Db, teamId: number, cell: PlanCell): Promise<AlternativesResponse> {
+  const [row] = await listAthletes(db, teamId, [cell.athleteId]);
+  if (!row) throw new NotFoundError('That athlete');
+  const planning = await loadPlanning(db, teamId, {
+    athletes: [row],
+    restrictionDays: daysOfWeeks(cell.week, cell.week),
+    today: today(),
+  });
+  if (!planning.slots.some((s) => s.id === cell.slotId)) throw new NotFoundError('That slot');
+  const athlete = planning.athleteById.get(row.id)!;
+  const rows = await entriesOfAthletes(db, teamId, [row.id]);
+  const req = requestFor(planning, athlete, rows);
+  const ranked = rankAlternatives(req, String(row.id), cell.week, cell.slotId).filter(
+    (a) => !planning.variantById.get(Number(a.variantId))?.archived,
+  );
+  const summary: AlternativesSummary = summariseAlternatives(ranked);
+  const current = rows.find((r) => keyOf(r) === keyOf(cell))?.variantId ?? null;
+  return {
+    items: ranked.map((a) => {
+      const variant = planning.variantById.get(Number(a.variantId));
+      const plain = (m: string) => plainViolationMessage(m, variant?.name, !!variant?.archived);
+      return {
+        variantId: Number(a.variantId),
+        name: a.name,
+        status: a.status,
+        reasons: a.reasons.map(plain),
+        rules: [...new Set(a.violations.map((v) => v.rule))],
+        current: current === Number(a.variantId),
+      };
+    }),
+    summary,
+  };
+}
+
+/** What publishing a week needs: each athlete of the team with their picks of that week, rated. */
+export async function weekForPublishing(db: Queryable, teamId: number, week: string) {
+  const athletes = await listAthletes(db, teamId);
+  const planning = await loadPlanning(db, teamId, {
+    athletes,
+    restrictionDays: daysOfWeeks(week, week),
+    today: today(),
+  });
+  const ids = athletes.map((a) => a.id);
+  const rows = await entriesOfAthletes(db, teamId, ids);
+  return {
+    slots: planning.slots,
+    athletes: athletes.map((a) => ({ id: a.id, name: a.name })),
+    cells: rateCells(planning, rows, ids, new Set([week])),
+    variantName: (id: number) => planning.variantById.get(id)?.name ?? `variant ${id}`,
+  };
+}
