@@ -79,8 +79,8 @@ export function rateCells(planning: Planning, rows: EntryRow[], athleteIds: numb
 }
 
 /**
- * Cells other than the changed ones whose status moved between two states of the board, e.g. an
- * override in one week that makes last week's engine pick repeat too soon.
+ * Cells other than the changed ones that started or stopped breaking a rule between two states of the
+ * board, e.g. an override in one week that makes last week's engine pick repeat too soon.
  */
 export function statusChanges(
   planning: Planning,
@@ -95,7 +95,8 @@ export function statusChanges(
     const key = keyOf(now);
     if (changed.has(key)) continue;
     const old = was.get(key);
-    if (!old || old.variantId !== now.variantId || old.status === now.status) continue;
+    // Only a pick that starts or stops breaking a rule is news; softer hints come and go with every change.
+    if (!old || old.variantId !== now.variantId || (old.status === 'break') === (now.status === 'break')) continue;
     out.push({
       athleteId: now.athleteId,
       week: now.week,
