@@ -144,4 +144,17 @@ describe('the weekly loop', () => {
     expect(picks.length).toBeGreaterThan(0);
     await athlete.page.screenshot({ path: '.tmp/e2e-loop-athlete-after.png', fullPage: true });
   });
+
+  it('on a phone the board opens with the library hidden, so the grid has the width', async () => {
+    const phone = await openBrowser({ width: 390, height: 844 });
+    try {
+      await signInAs(phone, 'coach@rackturn.test');
+      await phone.page.getByRole('table').waitFor();
+      await expect(phone.page.getByRole('complementary', { name: 'Library' }).count()).resolves.toBe(0);
+      await expect(phone.page.getByRole('button', { name: 'Show library' }).isVisible()).resolves.toBe(true);
+      await phone.page.screenshot({ path: '.tmp/e2e-loop-board-390.png' });
+    } finally {
+      await phone.close();
+    }
+  });
 });

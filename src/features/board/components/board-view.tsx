@@ -146,7 +146,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const [busy, setBusy] = useState<RunKind | null>(null);
   const [report, setReport] = useState<{ title: string; result: GenerateResult } | null>(null);
   const [details, setDetails] = useState<CellKey | null>(null);
-  const [libraryOpen, setLibraryOpen] = useState(true);
+  // On a phone the grid needs the whole width: the library starts hidden there.
+  const [libraryOpen, setLibraryOpen] = useState(
+    () => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches,
+  );
   /** The weeks "Needs a look" covers (those of the last plan run), and cells a save changed. */
   const [lookWeeks, setLookWeeks] = useState<string[] | null>(null);
   const [flagged, setFlagged] = useState<ReadonlyMap<CellKey, CellStatusChange>>(() => new Map());
