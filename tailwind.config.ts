@@ -31,7 +31,7 @@ export default {
         rust: {
           300: '#e8a081',
           400: '#d9764f',
-          500: '#c4582f',
+          500: '#b54e28', // 4.85:1 under chalk-50 text (WCAG AA asks 4.5:1)
           600: '#a44524',
           700: '#83361c',
         },

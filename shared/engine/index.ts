@@ -16,3 +16,4 @@ export {
 } from './explain';
 export { jointLoadSeries, peakLoadRatio, type JointLoadPoint } from './load';
 export { jointName, jointLoad as jointLoadLabel, emphasisName } from './words';
+export * from './alternatives';

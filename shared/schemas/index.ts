@@ -13,3 +13,4 @@ export * from './library';
 export * from './roster';
 export * from './meets';
 export * from './meet-day';
+export * from './loop';

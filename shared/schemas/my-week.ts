@@ -63,6 +63,8 @@ export interface MyWeekCheckin {
 
 export interface MyWeek {
   week: string;
+  /** false while the coach is still planning the week: no picks are shown then. */
+  published: boolean;
   today: string;
   unit: Unit;
   athlete: { id: number; name: string; sex: Sex; division: Division };

@@ -9,6 +9,7 @@ import { users } from '../../server/db/schema';
 import { useTestApp } from '../support/app';
 import {
   createPlanEntry,
+  publishAthleteWeek,
   createTeam,
   createTopSet,
   createUser,
@@ -35,6 +36,7 @@ beforeAll(async () => {
   // Inserted upper first: the page must still follow the team's slot order (lower, then upper).
   await createPlanEntry(db, team.teamId, team.athleteId, bench, { week: thisWeek, slotId: 'upper' });
   await createPlanEntry(db, team.teamId, team.athleteId, squat, { week: thisWeek, slotId: 'lower' });
+  await publishAthleteWeek(db, team.teamId, team.athleteId, thisWeek);
   await createTopSet(db, team.teamId, team.athleteId, squat, {
     weightKg: 140,
     reps: 5,

@@ -172,6 +172,16 @@ describe('POST /api/weeks/:week/publish', () => {
     expect((await athlete.post(`/api/weeks/${week}/publish`)).status).toBe(403);
 
     const otherTeam = await createTeam(t.ctx.database.db);
+    const otherSquat = await createVariant(t.ctx.database.db, otherTeam.teamId);
+    await t.ctx.database.db.insert(planEntries).values({
+      teamId: otherTeam.teamId,
+      athleteId: otherTeam.athleteId,
+      week,
+      slotId: 'lower',
+      variantId: otherSquat,
+      source: 'engine',
+      reasons: [],
+    });
     const otherCoach = await t.signIn(otherTeam.coach.email);
     const before = (await inbox.list({ to: team.athleteUser.email })).length;
     const res = await otherCoach.post(`/api/weeks/${week}/publish`);
@@ -182,12 +192,29 @@ describe('POST /api/weeks/:week/publish', () => {
     expect(await inbox.list({ to: team.athleteUser.email })).toHaveLength(before);
   });
 
-  it('an athlete without picks that week still hears about the week', async () => {
+  it('an athlete without picks that week sees an empty published week and gets no e-mail', async () => {
     const lone = await createTeam(t.ctx.database.db);
     const agent = await t.signIn(lone.headCoach.email);
-    const empty = addWeeks(week, 3);
-    expect((await agent.post(`/api/weeks/${empty}/publish`)).status).toBe(201);
-    const [mail] = await inbox.waitFor(lone.athleteUser.email);
-    expect(mail!.text).toContain('No max-effort work this week.');
+    const res = await agent.post(`/api/weeks/${week}/publish`);
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ athletesPublished: 1, emailsQueued: 0 });
+    expect(res.body.check.emptyCells.count).toBe(2);
+    await t.ctx.services.mail.sendDue();
+    expect(await inbox.list({ to: lone.athleteUser.email })).toHaveLength(0);
+    const athlete = await t.signIn(lone.athleteUser.email);
+    const mine = await athlete.get(`/api/my-week?week=${week}`);
+    expect(mine.body).toMatchObject({ published: true, picks: [] });
+  });
+
+  it('only this week or next week can be published, with a clear message', async () => {
+    for (const far of [addWeeks(week, 3), addWeeks(week, -3)]) {
+      const res = await coach.post(`/api/weeks/${far}/publish`).send({ dryRun: true });
+      expect(res.status).toBe(400);
+      expect(res.body.error.message).toMatch(/Only this week \(\d{4}-W\d\d\) or next week/);
+      expect(res.body.error.fields['params.week']).toBeDefined();
+    }
+    const odd = await coach.post(`/api/weeks/${week}/publish`).send({ dryRun: 'yes' });
+    expect(odd.status).toBe(400);
+    expect(odd.body.error.fields.dryRun).toBeDefined();
   });
 });

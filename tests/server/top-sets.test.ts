@@ -7,6 +7,7 @@ import { useTestApp } from '../support/app';
 import {
   createAthlete,
   createPlanEntry,
+  publishAthleteWeek,
   createTeam,
   createTopSet,
   createVariant,
@@ -27,6 +28,7 @@ beforeAll(async () => {
   other = await createTeam(db);
   variantId = await createVariant(db, team.teamId, { name: `Box squat ${Date.now()}`, scheme: 'triple' });
   entryId = await createPlanEntry(db, team.teamId, team.athleteId, variantId, { week: thisWeek });
+  await publishAthleteWeek(db, team.teamId, team.athleteId, thisWeek);
   // Earlier history on the same variant: best e1RM 150 × (1 + 3/30) = 165, heaviest 155 × 1.
   await createTopSet(db, team.teamId, team.athleteId, variantId, {
     weightKg: 150,

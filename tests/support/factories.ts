@@ -3,7 +3,17 @@ import { randomUUID } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import type { Db } from '../../server/db/client';
 import { athleteBilling, feePlans } from '../../server/db/schema';
-import { athletes, memberships, planEntries, teamRules, teams, topSets, users, variants } from '../../server/db/schema';
+import {
+  athleteWeekPublications,
+  athletes,
+  memberships,
+  planEntries,
+  teamRules,
+  teams,
+  topSets,
+  users,
+  variants,
+} from '../../server/db/schema';
 import { bodyweights, meetAttempts, meetEntries, meets, restrictions } from '../../server/db/schema';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { TEST_PASSWORD } from './app';
@@ -79,6 +89,11 @@ export async function createTeam(db: Db, name = `Team ${uniq()}`) {
   return { teamId, name, headCoach, coach, athleteUser, athleteId };
 }
 export type TestTeam = Awaited<ReturnType<typeof createTeam>>;
+
+/** Marks an athlete's week as published (what the coach does with Publish week), so My week shows it. */
+export async function publishAthleteWeek(db: Db, teamId: number, athleteId: number, week: string) {
+  await db.insert(athleteWeekPublications).values({ teamId, athleteId, week, picks: [] });
+}
 
 /** A plan entry (one athlete × week × slot) holding a variant. */
 export async function createPlanEntry(

@@ -9,6 +9,7 @@ import {
   mysqlEnum,
   mysqlTable,
   text,
+  timestamp,
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
@@ -77,4 +78,33 @@ export const weekPublications = mysqlTable(
     publishedAt: createdAt(),
   },
   (t) => [uniqueIndex('week_publications_team_week_uq').on(t.teamId, t.week)],
+);
+
+/** What an athlete was last sent for a week: one line per slot, to name what changed in an update. */
+export interface PublishedPick {
+  slotId: string;
+  variantId: number;
+  variantName: string;
+}
+
+/**
+ * A week of one athlete moves from draft to published: without a row here the week is a draft the athlete
+ * does not see. `picks` is what the athlete was sent last, `version` counts publications (updates).
+ */
+export const athleteWeekPublications = mysqlTable(
+  'athlete_week_publications',
+  {
+    id: id(),
+    teamId: teamRef(),
+    athleteId: athleteRef(),
+    week: char('week', { length: 8 }).notNull(),
+    picks: json('picks').$type<PublishedPick[]>().notNull(),
+    version: version(),
+    publishedBy: ref('published_by').references(() => users.id, { onDelete: 'set null' }),
+    publishedAt: timestamp('published_at', { mode: 'date', fsp: 3 })
+      .notNull()
+      .defaultNow()
+      .$onUpdate(() => new Date()),
+  },
+  (t) => [uniqueIndex('athlete_week_publications_athlete_week_uq').on(t.athleteId, t.week)],
 );

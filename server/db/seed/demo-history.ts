@@ -9,7 +9,7 @@ import { buildPlanRequests, type PlanningFacts } from '../../../shared/planning'
 import { readTeamRules } from '../../../shared/schemas/rules';
 import type { BoardAthlete, BoardVariant } from '../../../shared/schemas/plans';
 import type { Tx } from '../client';
-import { bodyweights, planEntries, planEntryHistory, teamRules, topSets } from '../schema';
+import { athleteWeekPublications, bodyweights, planEntries, planEntryHistory, teamRules, topSets } from '../schema';
 import { DEMO_EQUIPMENT, DEMO_LIBRARY, type DemoVariant } from './demo-library';
 import { DEMO_ATHLETES, type DemoAthlete } from './demo-people';
 
@@ -123,6 +123,17 @@ export async function seedDemoHistory(tx: Tx, ctx: HistoryContext): Promise<void
     if (e.week === thisWeek) continue;
     const who = people.get(e.athleteId)!;
     await tx.insert(topSets).values(topSetFor(ctx, who, byId.get(e.variantId)!, e, row!.id, weeks.indexOf(e.week)));
+  }
+
+  // This week was published to the athletes; next week is the coach's draft.
+  for (const a of DEMO_ATHLETES) {
+    const athleteId = ctx.athleteIds.get(a.key)!;
+    const picks = plan.entries
+      .filter((e) => e.week === thisWeek && e.athleteId === String(athleteId))
+      .map((e) => ({ slotId: e.slotId, variantId: Number(e.variantId), variantName: byId.get(e.variantId)!.name }));
+    await tx
+      .insert(athleteWeekPublications)
+      .values({ teamId: ctx.teamId, athleteId, week: thisWeek, picks, publishedBy: ctx.coachId });
   }
 
   for (const a of DEMO_ATHLETES) {

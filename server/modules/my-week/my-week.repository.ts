@@ -2,7 +2,7 @@
 // (the connective-tissue work reads their joint stress from here too).
 import { and, asc, eq, isNotNull } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
-import { planEntries, variants } from '../../db/schema';
+import { athleteWeekPublications, planEntries, variants } from '../../db/schema';
 
 export async function weekPicks(db: Queryable, teamId: number, athleteId: number, week: string) {
   return db
@@ -32,4 +32,20 @@ export async function weekPicks(db: Queryable, teamId: number, athleteId: number
       ),
     )
     .orderBy(asc(planEntries.slotId));
+}
+
+/** Whether the coach has published this athlete's week (without it the week is a draft). */
+export async function isWeekPublished(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const [row] = await db
+    .select({ id: athleteWeekPublications.id })
+    .from(athleteWeekPublications)
+    .where(
+      and(
+        eq(athleteWeekPublications.teamId, teamId),
+        eq(athleteWeekPublications.athleteId, athleteId),
+        eq(athleteWeekPublications.week, week),
+      ),
+    )
+    .limit(1);
+  return !!row;
 }

@@ -12,7 +12,7 @@ import { findNextMeet, findPrescription } from '../tissue/tissue.repository';
 import { topSetsOfWeek } from '../top-sets/top-sets.repository';
 import { variantSummary } from '../top-sets/top-sets.service';
 import { findTeamAthlete } from './athlete.repository';
-import { weekPicks } from './my-week.repository';
+import { isWeekPublished, weekPicks } from './my-week.repository';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
@@ -35,7 +35,9 @@ export async function myWeek(
   const today = isoDay(now);
   const week = requestedWeek ?? weekOfDate(now);
 
-  const [rules, rows, logged, tissue, checkins, meet, readings] = await Promise.all([
+  // A week the coach has not published is a draft the athlete does not see; weeks gone by are history.
+  const thisWeek = weekOfDate(now);
+  const [rules, rows, logged, tissue, checkins, meet, readings, published] = await Promise.all([
     readRulesOfTeam(db, teamId),
     weekPicks(db, teamId, athleteId, week),
     topSetsOfWeek(db, teamId, athleteId, week),
@@ -43,10 +45,11 @@ export async function myWeek(
     recentCheckins(db, teamId, athleteId, 20),
     findNextMeet(db, teamId, athleteId, today),
     allBodyweights(db, teamId, athleteId, isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS))),
+    week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
   ]);
 
   const slotOrder = rules.slots.map((s) => s.id);
-  const ordered = [...rows].sort((a, b) => {
+  const ordered = (published ? [...rows] : []).sort((a, b) => {
     const [x, y] = [slotOrder.indexOf(a.slotId), slotOrder.indexOf(b.slotId)];
     return (x < 0 ? 99 : x) - (y < 0 ? 99 : y) || a.slotId.localeCompare(b.slotId);
   });
@@ -93,6 +96,7 @@ export async function myWeek(
   };
   return {
     week,
+    published,
     today,
     unit: who.unit,
     athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },

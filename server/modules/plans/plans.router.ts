@@ -14,6 +14,7 @@ import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { generate } from './generate.service';
 import { batchField, clearCell, listPlans, planHistory, saveChanges } from './plans.service';
+import { alternativesFor } from './review.service';
 
 export function plansRouter(ctx: AppContext): Router {
   const router = Router();
@@ -35,8 +36,8 @@ export function plansRouter(ctx: AppContext): Router {
     '/plans/batch',
     requireRole(STAFF),
     validate({ body: planBatchBody }, async ({ body }, req) => {
-      const { entries } = await saveChanges(db, authOf(req), body.changes, batchField);
-      return { items: entries, total: entries.length };
+      const { entries, affected } = await saveChanges(db, authOf(req), body.changes, batchField);
+      return { items: entries, total: entries.length, affected };
     }),
   );
 
@@ -44,9 +45,9 @@ export function plansRouter(ctx: AppContext): Router {
     '/plans/:athleteId/:week/:slotId',
     requireRole(STAFF),
     validate({ params: planCellParams, body: savePlanBody }, async ({ params, body }, req, res) => {
-      const { entries, created } = await saveChanges(db, authOf(req), [{ ...params, ...body }]);
+      const { entries, created, affected } = await saveChanges(db, authOf(req), [{ ...params, ...body }]);
       if (created) res.status(201);
-      return entries[0];
+      return { ...entries[0], affected };
     }),
   );
 
@@ -64,6 +65,12 @@ export function plansRouter(ctx: AppContext): Router {
     validate({ params: planCellParams, query: planHistoryQuery }, ({ params, query }, req) =>
       planHistory(db, authOf(req).teamId, params, query.limit, query.offset),
     ),
+  );
+
+  router.get(
+    '/plans/:athleteId/:week/:slotId/alternatives',
+    requireRole(STAFF),
+    validate({ params: planCellParams }, ({ params }, req) => alternativesFor(db, authOf(req).teamId, params)),
   );
 
   return router;

@@ -10,12 +10,14 @@ import {
   type PlanList,
   type PlanListQuery,
   type PlanSource,
+  type CellStatusChange,
 } from '../../../shared/schemas';
 import type { Db, Queryable } from '../../db/client';
 import type { AuthContext } from '../../middleware/auth';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { loadPlanning, today, type Planning } from './plans.context';
 import { entryDtos } from './plans.dto';
+import { statusChanges } from './review.service';
 import {
   appendHistory,
   athleteExists,
@@ -138,7 +140,7 @@ export async function saveChanges(
   auth: AuthContext,
   changes: CellChange[],
   field: FieldPath = singleField,
-): Promise<{ entries: PlanEntryDto[]; created: boolean }> {
+): Promise<{ entries: PlanEntryDto[]; created: boolean; affected: CellStatusChange[] }> {
   const t = today();
   const single = changes.length === 1;
   try {
@@ -205,12 +207,16 @@ export async function saveChanges(
       await appendHistory(tx, history);
       const saved = await entriesByIds(tx, auth.teamId, ids);
       const byId = new Map(saved.map((r) => [r.id, r]));
+      // Every other cell of these athletes whose status the save changed, so none turns silently.
+      const after = await entriesOfAthletes(tx, auth.teamId, athleteIds);
+      const affected = statusChanges(planning, all, after, athleteIds, new Set(changes.map(cellKey)));
       return {
         entries: await entryDtos(
           tx,
           ids.map((id) => byId.get(id)!),
         ),
         created,
+        affected,
       };
     });
   } catch (err) {

@@ -4,6 +4,7 @@ import { and, asc, eq, inArray, isNull, like, sql } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
 import { isDuplicateKey } from '../../db/errors';
 import {
+  athleteWeekPublications,
   athletes,
   memberships,
   outbox,
@@ -12,6 +13,7 @@ import {
   users,
   variants,
   weekPublications,
+  type PublishedPick,
 } from '../../db/schema';
 
 export async function findPublication(db: Queryable, teamId: number, week: string) {
@@ -41,21 +43,7 @@ export async function insertPublication(db: Queryable, teamId: number, week: str
 
 /** Athletes of the team with an account in it and the weekly e-mail switched on. */
 export async function weeklyRecipients(db: Queryable, teamId: number) {
-  return db
-    .select({
-      athleteId: athletes.id,
-      athleteName: athletes.name,
-      userId: users.id,
-      email: users.email,
-    })
-    .from(athletes)
-    .innerJoin(users, eq(users.id, athletes.userId))
-    .innerJoin(
-      memberships,
-      and(eq(memberships.userId, users.id), eq(memberships.teamId, teamId), eq(memberships.role, 'athlete')),
-    )
-    .where(and(eq(athletes.teamId, teamId), isNull(athletes.archivedAt), eq(users.weeklyEmail, true)))
-    .orderBy(asc(athletes.name));
+  return (await athleteAccounts(db, teamId)).filter((a) => a.userId !== null && a.member !== null && a.weeklyEmail);
 }
 
 /** The week's max-effort picks of these athletes, with the variant behind each. */
@@ -91,4 +79,56 @@ export async function deliveryCounts(db: Queryable, teamId: number, week: string
     .from(outbox)
     .where(and(eq(outbox.teamId, teamId), like(outbox.dedupeKey, `${weeklyDedupePrefix(teamId, week)}%`)));
   return { sent: Number(row?.sent ?? 0), queued: Number(row?.queued ?? 0) };
+}
+
+/** Each athlete of the team (not archived) with their account, if any, and whether weekly e-mails are on. */
+export async function athleteAccounts(db: Queryable, teamId: number) {
+  return db
+    .select({
+      athleteId: athletes.id,
+      athleteName: athletes.name,
+      userId: users.id,
+      email: users.email,
+      weeklyEmail: users.weeklyEmail,
+      member: memberships.userId,
+    })
+    .from(athletes)
+    .leftJoin(users, eq(users.id, athletes.userId))
+    .leftJoin(
+      memberships,
+      and(eq(memberships.userId, users.id), eq(memberships.teamId, teamId), eq(memberships.role, 'athlete')),
+    )
+    .where(and(eq(athletes.teamId, teamId), isNull(athletes.archivedAt)))
+    .orderBy(asc(athletes.name), asc(athletes.id));
+}
+
+/** The week's publications per athlete; `lock` holds them until the transaction ends. */
+export async function athletePublications(db: Queryable, teamId: number, week: string, lock = false) {
+  const q = db
+    .select()
+    .from(athleteWeekPublications)
+    .where(and(eq(athleteWeekPublications.teamId, teamId), eq(athleteWeekPublications.week, week)));
+  return lock ? q.for('update') : q;
+}
+
+export async function insertAthletePublication(
+  db: Queryable,
+  row: { teamId: number; athleteId: number; week: string; picks: PublishedPick[]; publishedBy: number },
+) {
+  await db.insert(athleteWeekPublications).values({ ...row, version: 1 });
+}
+
+/** Publishes again over the version read; false when someone else published in between. */
+export async function updateAthletePublication(
+  db: Queryable,
+  id: number,
+  version: number,
+  picks: PublishedPick[],
+  publishedBy: number,
+) {
+  const [res] = await db
+    .update(athleteWeekPublications)
+    .set({ picks, publishedBy, version: version + 1 })
+    .where(and(eq(athleteWeekPublications.id, id), eq(athleteWeekPublications.version, version)));
+  return (res as unknown as { affectedRows: number }).affectedRows === 1;
 }

@@ -1,10 +1,10 @@
 // /api/weeks/:week/publish and /api/weeks/:week/publication: coaches send a week to their athletes.
 import { Router } from 'express';
-import { publishWeekParams } from '../../../shared/schemas';
+import { publishBody, publishWeekParams } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { getPublication, publishWeek } from './publishing.service';
+import { getPublication, publishCheck, publishWeek } from './publishing.service';
 
 export function publishingRouter(ctx: AppContext): Router {
   const router = Router();
@@ -18,10 +18,11 @@ export function publishingRouter(ctx: AppContext): Router {
   router.post(
     '/weeks/:week/publish',
     requireRole(STAFF),
-    validate({ params: publishWeekParams }, async ({ params }, req, res) => {
-      const { created, publication } = await publishWeek(ctx, authOf(req), params.week);
+    validate({ params: publishWeekParams, body: publishBody }, async ({ params, body }, req, res) => {
+      if (body.dryRun) return publishCheck(ctx, authOf(req).teamId, params.week);
+      const { created, result } = await publishWeek(ctx, authOf(req), params.week);
       res.status(created ? 201 : 200);
-      return { ...publication, alreadyPublished: !created };
+      return result;
     }),
   );
 

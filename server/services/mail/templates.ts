@@ -151,14 +151,25 @@ export function weeklyPlanMail(m: {
   tissue: TissuePrescription[];
   myWeekUrl: string;
   unsubscribeUrl: string;
+  /** Set for an update of a week sent before: what changed, one line each. */
+  changes?: string[];
 }): RenderedMail {
   const monday = mondayOf(m.week);
   const first = m.athleteName.split(/\s+/)[0] || m.athleteName;
+  const update = m.changes !== undefined;
   const blocks: Block[] = [
     {
       type: 'paragraph',
-      text: `Hi ${first}, your coach has published the plan for the week of ${dayMonth.format(monday)} (${m.week}).`,
+      text: update
+        ? `Hi ${first}, your coach has changed the plan for the week of ${dayMonth.format(monday)} (${m.week}).`
+        : `Hi ${first}, your coach has published the plan for the week of ${dayMonth.format(monday)} (${m.week}).`,
     },
+    ...(update
+      ? [
+          { type: 'heading' as const, text: 'What changed' },
+          { type: 'list' as const, items: m.changes!.map((c) => ({ title: c, lines: [] })), empty: 'Nothing.' },
+        ]
+      : []),
     { type: 'heading', text: 'Max-effort work' },
     {
       type: 'list',
@@ -183,11 +194,13 @@ export function weeklyPlanMail(m: {
     { type: 'caution', lines: [...TRAINING_CAUTION, ...TISSUE_CAUTION.filter((l) => l.includes('swollen'))] },
   ];
   return renderMail({
-    subject: `Your week of ${dayMonth.format(monday)}: ${m.teamName}`,
+    subject: `${update ? 'Updated: your' : 'Your'} week of ${dayMonth.format(monday)}: ${m.teamName}`,
     preheader:
-      m.picks.length > 0
-        ? m.picks.map((p) => `${p.slotLabel}: ${p.variantName}`).join(' · ')
-        : 'Your week from your coach.',
+      update && m.changes!.length > 0
+        ? m.changes!.join(' · ')
+        : m.picks.length > 0
+          ? m.picks.map((p) => `${p.slotLabel}: ${p.variantName}`).join(' · ')
+          : 'Your week from your coach.',
     title: `Your week of ${dayMonth.format(monday)}`,
     blocks,
     footer: [

@@ -59,7 +59,9 @@ export function Component() {
         </Link>
       </nav>
       <TrainingCaution />
-      {data.picks.length === 0 ? (
+      {!data.published ? (
+        <Notice>Your coach is still planning this week. Your max-effort work shows here once it is published.</Notice>
+      ) : data.picks.length === 0 ? (
         <Notice>No max-effort work is planned for this week yet. Your coach fills it on the board.</Notice>
       ) : (
         data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)

@@ -43,6 +43,11 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/plans/${f.team.athleteId}/${week}/lower/history`,
       expect: staff(200),
     },
+    // Another team's athlete is not found.
+    'GET /api/plans/:athleteId/:week/:slotId/alternatives': {
+      path: (f) => `/api/plans/${f.team.athleteId}/${week}/lower/alternatives`,
+      expect: staff(200),
+    },
     'GET /api/board': { path: () => `/api/board?${board}`, expect: staff(200, 200) },
   },
 };

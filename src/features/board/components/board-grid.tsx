@@ -9,6 +9,7 @@ import { restrictionTag } from '../../../../shared/planning/words';
 import { BOARD_DATA_MARK } from '../api/queries';
 import { cellKey, type AthleteView, type BoardModel, type CellKey, type Ratings } from '../model/board-model';
 import { cellDndId } from '../model/dnd';
+import { reviewOf } from '../model/review';
 import { jointWords, percent, shortWeek, weekStart } from '../model/words';
 import { JointBars, loadState } from './joint-strip';
 import { RestWeekControl } from './rest-week-control';
@@ -78,13 +79,23 @@ interface GridProps {
   model: BoardModel;
   ratings: Ratings | null;
   pending: ReadonlySet<CellKey>;
+  /** Cells whose status the last save changed. */
+  flagged: ReadonlySet<CellKey>;
   onOpen: (key: CellKey) => void;
   scrollRef: RefObject<HTMLElement | null>;
   /** Told which athletes' rows are in the document, so a drag can rate those cells first. */
   shownRef: RefObject<number[]>;
 }
 
-export const BoardGrid = memo(function BoardGrid({ model, ratings, pending, onOpen, scrollRef, shownRef }: GridProps) {
+export const BoardGrid = memo(function BoardGrid({
+  model,
+  ratings,
+  pending,
+  flagged,
+  onOpen,
+  scrollRef,
+  shownRef,
+}: GridProps) {
   // Time from the snapshot's arrival to the grid being in the document, and to its first painted frame.
   useLayoutEffect(() => {
     const arrived = performance.getEntriesByName(BOARD_DATA_MARK).at(-1)?.startTime;
@@ -177,6 +188,7 @@ export const BoardGrid = memo(function BoardGrid({ model, ratings, pending, onOp
               model={model}
               ratings={ratings}
               pending={pending}
+              flagged={flagged}
               onOpen={onOpen}
             />
           ))}
@@ -212,10 +224,20 @@ interface RowProps {
   model: BoardModel;
   ratings: Ratings | null;
   pending: ReadonlySet<CellKey>;
+  flagged: ReadonlySet<CellKey>;
   onOpen: (key: CellKey) => void;
 }
 
-const AthleteRow = memo(function AthleteRow({ index, height, view, model, ratings, pending, onOpen }: RowProps) {
+const AthleteRow = memo(function AthleteRow({
+  index,
+  height,
+  view,
+  model,
+  ratings,
+  pending,
+  flagged,
+  onOpen,
+}: RowProps) {
   const a = view.athlete;
   const current = model.data.currentWeek;
   return (
@@ -276,7 +298,8 @@ const AthleteRow = memo(function AthleteRow({ index, height, view, model, rating
                 slotLabel: slot.label,
                 entry,
                 variant: entry?.variantId != null ? model.variantById.get(entry.variantId) : undefined,
-                warnings: model.warnings(key),
+                review: past ? undefined : reviewOf(model, key),
+                flagged: flagged.has(key),
                 onOpen,
               };
               return past ? (

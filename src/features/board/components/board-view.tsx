@@ -1,6 +1,15 @@
 // The coach's board: the grid and the library inside one drag-and-drop context, live rule checks while
 // dragging, saves that show at once, reasons for rule breaks, conflicts with another coach, plan runs and undo.
-import { startTransition, useCallback, useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import {
+  startTransition,
+  useCallback,
+  useEffect,
+  useLayoutEffect,
+  useMemo,
+  useRef,
+  useState,
+  type ReactNode,
+} from 'react';
 import {
   DndContext,
   DragOverlay,
@@ -13,9 +22,16 @@ import {
   type DragStartEvent,
 } from '@dnd-kit/core';
 import { useQueryClient } from '@tanstack/react-query';
-import type { BoardData, GenerateBody, GenerateResult, PlanEntryDto } from '../../../../shared/schemas';
+import type {
+  BoardData,
+  CellStatusChange,
+  GenerateBody,
+  GenerateResult,
+  PlanEntryDto,
+} from '../../../../shared/schemas';
 import { Notice, PageHeader, TrainingCaution } from '../../../components/ui/page';
 import { isApiError, type ApiError } from '../../../lib/api-client';
+import { decodeConflict, decodeRuleBreak } from '../api/errors';
 import { planKeys, useBoard, type BoardRange } from '../api/queries';
 import { useGeneratePlan } from '../api/use-generate-plan';
 import { useSavePlanEntries } from '../api/use-save-plan-entries';
@@ -42,13 +58,15 @@ import {
   cellOfDndId,
   variantOfLibraryId,
 } from '../model/dnd';
+import { needsALook, reviewOf } from '../model/review';
 import { STATUS_WORDS } from '../model/words';
-import { BoardGrid, NAME_WIDTH, WEEK_WIDTH } from './board-grid';
+import { BoardGrid, NAME_WIDTH, WEEK_WIDTH, rowHeight } from './board-grid';
 import { BoardToolbar } from './board-toolbar';
 import { CellDetails } from './cell-details';
 import { ConflictNotice, type ConflictView } from './conflict-notice';
 import { GenerateReport } from './generate-report';
 import { LibraryDrawer } from './library-drawer';
+import { NeedsALook } from './needs-a-look';
 import { ReasonDialog, type ReasonAsk } from './reason-dialog';
 
 export const RATE_MEASURE = 'board:rate';
@@ -128,7 +146,18 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const [busy, setBusy] = useState<RunKind | null>(null);
   const [report, setReport] = useState<{ title: string; result: GenerateResult } | null>(null);
   const [details, setDetails] = useState<CellKey | null>(null);
-  const [libraryOpen, setLibraryOpen] = useState(true);
+  // On a phone the grid needs the whole width: the library starts hidden there.
+  const [libraryOpen, setLibraryOpen] = useState(
+    () => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches,
+  );
+  /** The weeks "Needs a look" covers (those of the last plan run), and cells a save changed. */
+  const [lookWeeks, setLookWeeks] = useState<string[] | null>(null);
+  const [flagged, setFlagged] = useState<ReadonlyMap<CellKey, CellStatusChange>>(() => new Map());
+  const flaggedKeys = useMemo(() => new Set(flagged.keys()), [flagged]);
+  const lookItems = useMemo(
+    () => (lookWeeks || flagged.size ? needsALook(model, lookWeeks ?? [], flaggedKeys) : []),
+    [model, lookWeeks, flagged.size, flaggedKeys],
+  );
 
   const labelOf = useCallback((c: CellRef) => cellLabel(modelRef.current, c), []);
   const variantName = useCallback(
@@ -138,13 +167,11 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
 
   const conflictView = useCallback(
     (err: ApiError, changes: CellChange[], label: string): ConflictView => {
-      const current = err.body?.current as unknown;
+      const decoded = decodeConflict(err);
       const now = new Map<CellKey, PlanEntryDto | null>();
-      if (Array.isArray(current)) {
-        for (const c of current as { athleteId: number; week: string; slotId: string; entry: PlanEntryDto | null }[]) {
-          now.set(cellKey(c.athleteId, c.week, c.slotId), c.entry);
-        }
-      } else if (changes[0]) now.set(keyOf(changes[0]), (current as PlanEntryDto | null) ?? null);
+      if ('cells' in decoded) {
+        for (const c of decoded.cells) now.set(cellKey(c.athleteId, c.week, c.slotId), c.entry);
+      } else if (changes[0]) now.set(keyOf(changes[0]), decoded.single);
       return {
         label,
         cells: changes
@@ -170,7 +197,22 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       setPending((p) => new Set([...p, ...keys]));
       setNotice(null);
       try {
-        const saved = await saveMutation.mutateAsync({ changes });
+        const { saved, affected } = await saveMutation.mutateAsync({ changes });
+        setFlagged((f) => {
+          const next = new Map(f);
+          for (const k of keys) next.delete(k);
+          for (const a of affected) next.set(cellKey(a.athleteId, a.week, a.slotId), a);
+          return next;
+        });
+        if (affected.length) {
+          const turned = affected.filter((a) => a.to !== 'clean').length;
+          setNotice({
+            tone: 'info',
+            text: `This save also changed ${affected.length} other ${affected.length === 1 ? 'cell' : 'cells'}${
+              turned ? ` (${turned} now ${turned === 1 ? 'needs' : 'need'} a look)` : ''
+            }: ${affected.map((a) => `${labelOf(a)} is now ${STATUS_WORDS[a.to].toLowerCase()}`).join('; ')}. They are marked on the board and listed under Needs a look.`,
+          });
+        }
         if (undoable) {
           const inverse = saved.map((e) => inverseChange(e, before.get(cellKey(e.athleteId, e.week, e.slotId))));
           setUndoStack((s) => pushUndo(s, { label, changes: inverse }));
@@ -181,12 +223,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           setConflict({ view: conflictView(err, changes, label), changes, label, undoable });
           await queryClient.invalidateQueries({ queryKey: planKeys.boards() });
         } else if (isApiError(err, 422) && err.code === 'rule_break') {
-          const violations = (err.body?.violations ?? []) as {
-            athleteId: number;
-            week: string;
-            slotId: string;
-            message: string;
-          }[];
+          const violations = decodeRuleBreak(err);
           const byCell = new Map<CellKey, string[]>();
           for (const v of violations) {
             const k = cellKey(v.athleteId, v.week, v.slotId);
@@ -240,6 +277,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       try {
         const result = await generateMutation.mutateAsync(RUNS[kind].body);
         setReport({ title: RUNS[kind].title, result });
+        setLookWeeks(result.weeks);
         setUndoStack((s) =>
           pushUndo(s, {
             label: RUNS[kind].title,
@@ -411,6 +449,62 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     if (dragRef.current || performance.now() - lastDragEnd.current < 400) return;
     setDetails(key);
   }, []);
+  /** Brings a cell into view (its row may not be drawn yet) and puts the focus on its card. */
+  const goToCell = useCallback((key: CellKey, then?: () => void) => {
+    const m = modelRef.current;
+    const box = scrollRef.current;
+    const c = parseCellKey(key);
+    if (!box) return;
+    const row = m.athletes.findIndex((a) => a.id === c.athleteId);
+    const col = m.weeks.indexOf(c.week);
+    if (row < 0 || col < 0) return;
+    box.scrollTo({ top: row * rowHeight(m.slots.length), left: Math.max(0, col - 1) * WEEK_WIDTH });
+    let tries = 0;
+    const attempt = () => {
+      const el = box.querySelector<HTMLElement>(`[data-cell="${key}"]`);
+      const target = el?.querySelector<HTMLElement>('button') ?? null;
+      if (target) {
+        target.focus();
+        target.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+        then?.();
+        return;
+      }
+      if (tries++ < 30) requestAnimationFrame(attempt);
+    };
+    requestAnimationFrame(attempt);
+  }, []);
+
+  const applyAlternative = (
+    cell: CellRef,
+    variantId: number,
+    status: 'clean' | 'warning' | 'break',
+    why: string[],
+    reason?: string,
+  ) => {
+    const m = modelRef.current;
+    const key = keyOf(cell);
+    const entry = m.entryAt.get(key);
+    const name = m.variantById.get(variantId)?.name ?? `variant ${variantId}`;
+    const label = `${name} to ${labelOf(cell)}`;
+    const changes: CellChange[] = [
+      { ...cell, variantId, version: entry?.version ?? 0, ...(reason ? { reason, pinned: true } : {}) },
+    ];
+    setDetails(null);
+    if (status === 'break' && !reason) {
+      setAsk({
+        ask: { label, breaks: [{ cell: labelOf(cell), rules: why }] },
+        changes,
+        breakKeys: new Set([key]),
+        label,
+        undoable: true,
+      });
+      return;
+    }
+    void save(changes, label, true);
+    // Back to the cell, so the coach carries on from where they were.
+    requestAnimationFrame(() => goToCell(key));
+  };
+
   const detailCell = details ? parseCellKey(details) : null;
   const detailEntry = details ? model.entryAt.get(details) : undefined;
   const dragged = drag ? model.variantById.get(drag.source.variantId) : undefined;
@@ -456,6 +550,25 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           <Notice tone={notice.tone}>{notice.text}</Notice>
         </div>
       ) : null}
+      {lookWeeks || flagged.size ? (
+        <NeedsALook
+          items={lookItems}
+          model={model}
+          weeks={
+            lookWeeks?.length
+              ? lookWeeks.length === 1
+                ? lookWeeks[0]!
+                : `${lookWeeks[0]} to ${lookWeeks[lookWeeks.length - 1]}`
+              : 'the cells your last save changed'
+          }
+          // To the cell, with its details open on "What fits here"; closing them leaves the focus on the card.
+          onGo={(key) => goToCell(key, () => setDetails(key))}
+          onClose={() => {
+            setLookWeeks(null);
+            setFlagged(new Map());
+          }}
+        />
+      ) : null}
       {report ? (
         <GenerateReport title={report.title} result={report.result} model={model} onClose={() => setReport(null)} />
       ) : null}
@@ -488,6 +601,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
               model={model}
               ratings={shownRatings}
               pending={pending}
+              flagged={flaggedKeys}
               onOpen={openDetails}
               scrollRef={scrollRef}
               shownRef={shownRef}
@@ -522,12 +636,14 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       ) : null}
       {detailCell && details ? (
         <CellDetails
+          model={model}
           cell={detailCell}
           label={cellLabel(model, detailCell)}
           entry={detailEntry}
           variant={detailEntry?.variantId != null ? model.variantById.get(detailEntry.variantId) : undefined}
-          warnings={model.warnings(details)}
+          review={reviewOf(model, details)}
           editable={detailCell.week >= model.editableFrom}
+          onApply={(variantId, status, why, reason) => applyAlternative(detailCell, variantId, status, why, reason)}
           onClose={() => setDetails(null)}
           onClear={() => {
             setDetails(null);

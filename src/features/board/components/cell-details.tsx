@@ -1,10 +1,13 @@
-// A cell's pick in full: who chose it and why, the rules it breaks, every change to the cell, and clearing it.
+// A cell's pick in full: who chose it and why, the rules it breaks, what else fits the cell (one click to
+// use it), every change to the cell, and clearing it.
 import type { BoardVariant, PlanEntryDto } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
+import { Dialog } from '../../../components/ui/dialog';
 import { WarningIcon } from '../../../components/ui/icons';
 import { useCellHistory } from '../api/queries';
-import type { CellRef } from '../model/board-model';
-import { Dialog } from './dialog';
+import type { BoardModel, CellRef } from '../model/board-model';
+import type { CellReview } from '../model/review';
+import { WhatFitsHere } from './what-fits-here';
 
 const stamp = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
@@ -13,28 +16,32 @@ function when(iso: string): string {
 }
 
 export function CellDetails({
+  model,
   cell,
   label,
   entry,
   variant,
-  warnings,
+  review,
   editable,
+  onApply,
   onClear,
   onClose,
 }: {
+  model: BoardModel;
   cell: CellRef;
   label: string;
   entry: PlanEntryDto | undefined;
   variant: BoardVariant | undefined;
-  warnings: string[] | undefined;
+  review: CellReview | undefined;
   editable: boolean;
+  onApply: (variantId: number, status: 'clean' | 'warning' | 'break', reasons: string[], reason?: string) => void;
   onClear: () => void;
   onClose: () => void;
 }) {
   const history = useCellHistory(cell);
+  const breaks = review?.status === 'break';
   return (
-    <Dialog title={variant?.name ?? 'Empty slot'} onClose={onClose} wide>
-      <p className="text-sm text-ink-600">{label}</p>
+    <Dialog open title={variant?.name ?? 'Empty slot'} description={label} onClose={onClose} size="md">
       {entry && variant ? (
         <dl className="mt-3 grid grid-cols-[8rem_1fr] gap-x-3 gap-y-1 text-sm">
           <dt className="font-semibold text-ink-700">Picked by</dt>
@@ -62,18 +69,23 @@ export function CellDetails({
           ) : null}
         </dl>
       ) : null}
-      {warnings?.length ? (
-        <div className="mt-3 rounded-md border border-breach-600/40 bg-breach-100 p-2 text-sm">
-          <p className="flex items-center gap-1 font-semibold text-breach-700">
-            <WarningIcon width={16} height={16} /> Breaks a rule
+      {review && review.status !== 'clean' ? (
+        <div
+          className={`mt-3 rounded-md border p-2 text-sm ${
+            breaks ? 'border-breach-600/40 bg-breach-100' : 'border-caution-600/40 bg-caution-100'
+          }`}
+        >
+          <p className={`flex items-center gap-1 font-semibold ${breaks ? 'text-breach-700' : 'text-caution-700'}`}>
+            <WarningIcon width={16} height={16} /> {breaks ? 'Breaks a rule' : 'Worth a look'}
           </p>
           <ul className="mt-1 list-disc pl-5">
-            {warnings.map((w) => (
+            {review.reasons.map((w) => (
               <li key={w}>{w}</li>
             ))}
           </ul>
         </div>
       ) : null}
+      {editable ? <WhatFitsHere model={model} cell={cell} onApply={onApply} /> : null}
       {entry?.reasons.length ? (
         <div className="mt-3 text-sm">
           <p className="font-semibold text-ink-700">Why this pick</p>

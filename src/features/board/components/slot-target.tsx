@@ -6,6 +6,7 @@ import type { DraggableAttributes, DraggableSyntheticListeners } from '@dnd-kit/
 import type { BoardVariant, PlanEntryDto } from '../../../../shared/schemas';
 import { BreakIcon, CleanIcon, PinIcon, WarningIcon } from '../../../components/ui/icons';
 import type { CellKey, DropRating, DropStatus } from '../model/board-model';
+import type { CellReview } from '../model/review';
 import { DROP_ATTR, cellDndId } from '../model/dnd';
 import { STATUS_WORDS, shortSlot } from '../model/words';
 
@@ -19,8 +20,10 @@ export interface SlotProps {
   slotLabel: string;
   entry: PlanEntryDto | undefined;
   variant: BoardVariant | undefined;
-  /** What checkPlan reports for the pick in this cell. */
-  warnings: string[] | undefined;
+  /** The pick's own status where it stands: its badge, distinct from the athlete's restriction chips. */
+  review: CellReview | undefined;
+  /** A save elsewhere changed this cell's status. */
+  flagged?: boolean;
   rating: DropRating | undefined;
   pending: boolean;
   onOpen: (key: CellKey) => void;
@@ -99,7 +102,7 @@ interface CardProps {
   slotShort: string;
   variant: BoardVariant;
   entry: PlanEntryDto;
-  warnings: string[] | undefined;
+  review: CellReview | undefined;
   past: boolean;
   handle?:
     | {
@@ -112,7 +115,25 @@ interface CardProps {
 }
 
 /** The pick: a button named after the variant, showing who chose it and any rule it breaks. */
-function PlanCard({ slotShort, variant, entry, warnings, past, handle, onOpen }: CardProps) {
+/** The pick's own badge: an outlined tag on the card (restriction chips are filled, in the row header). */
+function PickBadge({ review }: { review: CellReview }) {
+  const breaks = review.status === 'break';
+  return (
+    <span
+      data-pick-status={review.status}
+      className={`inline-flex items-center gap-0.5 rounded-sm border border-current px-0.5 ${
+        breaks ? 'text-breach-700' : 'text-caution-700'
+      }`}
+      title={review.reasons.join('\n')}
+    >
+      {breaks ? <BreakIcon width={10} height={10} /> : <WarningIcon width={10} height={10} />}
+      {breaks ? 'Breaks rule' : 'Check'}
+    </span>
+  );
+}
+
+function PlanCard({ slotShort, variant, entry, review, past, handle, onOpen }: CardProps) {
+  const flaggedStatus = review && review.status !== 'clean' ? review : undefined;
   const coach = entry.source === 'coach';
   const sourceText = coach ? (entry.pinned ? 'Coach pick, pinned' : 'Coach pick') : 'Engine pick';
   const attrs: HTMLAttributes<HTMLButtonElement> = handle ? { ...handle.attributes, ...handle.listeners } : {};
@@ -123,7 +144,9 @@ function PlanCard({ slotShort, variant, entry, warnings, past, handle, onOpen }:
       {...attrs}
       aria-label={variant.name}
       aria-description={`${sourceText}${entry.reason ? `: ${entry.reason}` : ''}.${
-        warnings?.length ? ` Breaks a rule: ${warnings.join('; ')}.` : ''
+        flaggedStatus
+          ? ` ${flaggedStatus.status === 'break' ? 'Breaks a rule' : 'Worth a look'}: ${flaggedStatus.reasons.join('; ')}.`
+          : ''
       }`}
       aria-roledescription={handle ? 'movable pick' : undefined}
       onClick={onOpen}
@@ -144,12 +167,7 @@ function PlanCard({ slotShort, variant, entry, warnings, past, handle, onOpen }:
           {coach && entry.pinned ? <PinIcon width={11} height={11} /> : null}
           {coach ? 'Coach' : 'Engine'}
         </span>
-        {warnings?.length ? (
-          <span className="inline-flex items-center gap-0.5 text-breach-700" title={warnings.join('\n')}>
-            <WarningIcon width={11} height={11} />
-            Breaks rule
-          </span>
-        ) : null}
+        {flaggedStatus ? <PickBadge review={flaggedStatus} /> : null}
       </span>
     </button>
   );
@@ -159,7 +177,7 @@ interface BodyProps {
   slotLabel: string;
   entry: PlanEntryDto | undefined;
   variant: BoardVariant | undefined;
-  warnings: string[] | undefined;
+  review: CellReview | undefined;
   rating: DropRating | undefined;
   isOver: boolean;
   past: boolean;
@@ -172,7 +190,7 @@ const SlotBody = memo(function SlotBody({
   slotLabel,
   entry,
   variant,
-  warnings,
+  review,
   rating,
   isOver,
   past,
@@ -188,7 +206,7 @@ const SlotBody = memo(function SlotBody({
           slotShort={slotShort}
           variant={variant}
           entry={entry}
-          warnings={warnings}
+          review={review}
           past={past}
           handle={handle}
           onOpen={onOpen}
@@ -215,12 +233,17 @@ const noop = () => undefined;
 export const PastSlot = memo(function PastSlot(p: Omit<SlotProps, 'rating' | 'pending'>) {
   const open = () => p.onOpen(p.cellKey);
   return (
-    <div role="group" aria-label={p.label} className="relative h-[54px] rounded-md border-2 border-transparent">
+    <div
+      role="group"
+      aria-label={p.label}
+      data-cell={p.cellKey}
+      className="relative h-[54px] rounded-md border-2 border-transparent"
+    >
       <SlotBody
         slotLabel={p.slotLabel}
         entry={p.entry}
         variant={p.variant}
-        warnings={p.warnings}
+        review={undefined}
         rating={undefined}
         isOver={false}
         past
@@ -255,17 +278,19 @@ export const EditableSlot = memo(function EditableSlot(p: SlotProps) {
       {...{ [DROP_ATTR]: id }}
       role="group"
       aria-label={p.label}
+      data-cell={p.cellKey}
       data-rating={p.rating?.status}
       data-over={isOver || undefined}
+      data-flagged={p.flagged || undefined}
       className={`relative h-[54px] rounded-md border-2 ${
-        p.rating ? STATUS_STYLE[p.rating.status] : 'border-transparent'
+        p.rating ? STATUS_STYLE[p.rating.status] : p.flagged ? 'border-caution-600 border-dashed' : 'border-transparent'
       } ${isOver ? 'ring-2 ring-ink-800' : ''} ${isDragging ? 'opacity-60' : ''}`}
     >
       <SlotBody
         slotLabel={p.slotLabel}
         entry={p.entry}
         variant={p.variant}
-        warnings={p.warnings}
+        review={p.review}
         rating={p.rating}
         isOver={isOver}
         past={false}

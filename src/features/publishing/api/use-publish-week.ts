@@ -1,17 +1,23 @@
-// Publish a week to the athletes: one e-mail each, once, however often it is pressed.
+// Publish a week: each athlete whose week is new or changed is published and e-mailed (an update names
+// what changed); pressing again with nothing new sends nothing.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Publication } from '../../../../shared/schemas';
+import { publicationSchema, publishResultSchema } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 import { publishingKeys } from './queries';
 
 export function usePublishWeek() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (week: string) =>
-      api<Publication & { alreadyPublished: boolean }>(`/weeks/${encodeURIComponent(week)}/publish`, {
-        method: 'POST',
-      }),
-    onSuccess: (data, week) => queryClient.setQueryData(publishingKeys.week(week), data),
-    onSettled: (_d, _e, week) => queryClient.invalidateQueries({ queryKey: publishingKeys.week(week) }),
+    mutationFn: async (week: string) =>
+      publishResultSchema.parse(
+        await api<unknown>(`/weeks/${encodeURIComponent(week)}/publish`, { method: 'POST', body: { dryRun: false } }),
+      ),
+    // The publication's own fields (zod drops the rest).
+    onSuccess: (data, week) => queryClient.setQueryData(publishingKeys.week(week), publicationSchema.parse(data)),
+    onSettled: (_d, _e, week) =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: publishingKeys.week(week) }),
+        queryClient.invalidateQueries({ queryKey: publishingKeys.check(week) }),
+      ]),
   });
 }
