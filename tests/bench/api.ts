@@ -12,16 +12,24 @@ const SECONDS = Number(process.env.BENCH_API_SECONDS ?? 6);
 
 interface Load {
   rps: number;
+  /** CPU time of the serving process per answer (app and baseline run one at a time). */
+  cpuMsPerRequest: number;
   p50Ms: number;
   p99Ms: number;
   errors: number;
   non2xx: number;
 }
 
+let cpuUrl = '';
+const cpuMs = async () => ((await (await fetch(cpuUrl)).json()) as { ms: number }).ms;
+
 async function load(url: string, connections: number, headers: Record<string, string>, duration = SECONDS) {
+  const cpu0 = await cpuMs();
   const r = await autocannon({ url, connections, duration, headers });
+  const cpu = (await cpuMs()) - cpu0;
   const out: Load = {
     rps: Math.round(r.requests.average),
+    cpuMsPerRequest: Math.round((cpu / Math.max(1, r.requests.total)) * 100) / 100,
     p50Ms: r.latency.p50,
     p99Ms: r.latency.p99,
     errors: r.errors + r.timeouts,
@@ -46,6 +54,8 @@ async function sideBySide(app: { url: string; headers: Record<string, string> },
     throughputRatio: ratio(app20.rps, bare20.rps),
     throughputRatioAt50: ratio(app50.rps, bare50.rps),
     p99RatioAt50: ratio(app50.p99Ms, bare50.p99Ms),
+    /** Bare CPU per answer ÷ the app's: the throughput ratio the app would reach where Node is the limit. */
+    cpuRatio: ratio(bare20.cpuMsPerRequest + bare50.cpuMsPerRequest, app20.cpuMsPerRequest + app50.cpuMsPerRequest),
   };
 }
 
@@ -55,6 +65,7 @@ const median = (xs: number[]) => {
 };
 
 export async function runApiBench(stack: SpeedStack) {
+  cpuUrl = `${stack.bareOrigin}/__cpu`;
   const db = await mysql.createConnection({ uri: stack.databaseUrl });
   const [[athlete]] = (await db.query(
     `SELECT a.id, a.team_id AS teamId FROM athletes a JOIN users u ON u.id = a.user_id WHERE u.email = ?`,

@@ -60,12 +60,23 @@ async function openOnce(stack: SpeedStack, cookie: string, pickName: string): Pr
     let requests = 0;
     let startWall: number | null = null;
     let myWeekWall: number | null = null;
+    const timeline: string[] = [];
+    const urls = new Map<string, string>();
     cdp.on('Network.requestWillBeSent', (e) => {
+      urls.set(e.requestId, e.request.url);
+      if (process.env.BENCH_PHONE_TIMELINE)
+        timeline.push(`${Math.round((e.timestamp - (startWall ?? e.timestamp)) * 1000)} start ${e.request.url}`);
       requests += 1;
       startWall ??= e.timestamp;
       if (myWeekWall === null && e.request.url.includes('/api/my-week')) myWeekWall = e.timestamp;
     });
-    cdp.on('Network.loadingFinished', (e) => (bytes += e.encodedDataLength));
+    cdp.on('Network.loadingFinished', (e) => {
+      bytes += e.encodedDataLength;
+      if (process.env.BENCH_PHONE_TIMELINE)
+        timeline.push(
+          `${Math.round((e.timestamp - (startWall ?? e.timestamp)) * 1000)} done ${urls.get(e.requestId)} ${e.encodedDataLength}`,
+        );
+    });
     await page.goto(`${stack.origin}/my-week`, { waitUntil: 'commit' });
     const handle = await page
       .waitForFunction(() => (window as unknown as { __pickAt?: number }).__pickAt, null, {
@@ -78,6 +89,7 @@ async function openOnce(stack: SpeedStack, cookie: string, pickName: string): Pr
       });
     const pickMs = Number(await handle.jsonValue());
     await page.waitForLoadState('networkidle');
+    if (process.env.BENCH_PHONE_TIMELINE) console.error([...timeline, `${Math.round(pickMs)} pick`].join('\n'));
     return {
       pickMs: Math.round(pickMs),
       bytes,

@@ -5,11 +5,13 @@ import { runApiBench } from './api';
 import { runPhoneBench } from './phone';
 import { startSpeedStack } from './speed-stack';
 
+/** BENCH_SPEED_PARTS=phone (or api) runs one part only, for a quicker look while working. */
 export async function runSpeedBench() {
+  const parts = (process.env.BENCH_SPEED_PARTS ?? 'phone,api').split(',');
   const stack = await startSpeedStack();
   try {
-    const phone = await runPhoneBench(stack);
-    const api = await runApiBench(stack);
+    const phone = parts.includes('phone') ? await runPhoneBench(stack) : null;
+    const api = parts.includes('api') ? await runApiBench(stack) : null;
     return { phone, api };
   } finally {
     await stack.stop();
