@@ -6,9 +6,6 @@ import { AppLayout } from './routes/app-layout';
 import { RouteError } from './routes/route-error';
 import { NotFound } from './routes/not-found';
 import { makeLoader as myWeekLoader } from './routes/my-week.loader';
-// The athlete's home page ships with the app's code: on a phone its own chunk would be one more round trip
-// after the code has started, before the week can show.
-import * as myWeekPage from './routes/my-week';
 import type { Role } from '../../shared/schemas';
 
 interface PageModule {
@@ -80,10 +77,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'meets', ...page(queryClient, STAFF, () => import('./routes/meets')) },
             { path: 'rules', ...page(queryClient, HEAD_COACH, () => import('./routes/rules')) },
             { path: 'fees', ...page(queryClient, HEAD_COACH, () => import('./routes/fees')) },
-            {
-              path: 'my-week',
-              ...page(queryClient, ATHLETE, () => Promise.resolve(myWeekPage), myWeekLoader),
-            },
+            { path: 'my-week', ...page(queryClient, ATHLETE, () => import('./routes/my-week'), myWeekLoader) },
             { path: 'my-history', ...page(queryClient, ATHLETE, () => import('./routes/my-history')) },
             { path: 'my-fee', ...page(queryClient, ATHLETE, () => import('./routes/my-fee')) },
             { path: '*', element: <NotFound /> },
