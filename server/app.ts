@@ -1,9 +1,11 @@
 // createApp(): middleware, routers and error handling, without listen() so tests can drive it.
 import express, { type Express } from 'express';
 import cookieParser from 'cookie-parser';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { existsSync } from 'node:fs';
+import type { ServerResponse } from 'node:http';
 import { join } from 'node:path';
 import { allowedOrigins } from './config/env';
 import type { AppContext } from './context';
@@ -76,11 +78,21 @@ export function createApp(ctx: AppContext): Express {
 
   const dist = ctx.env.CLIENT_DIST;
   if (dist && existsSync(join(dist, 'index.html'))) {
-    app.use('/assets', express.static(join(dist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
-    app.use(express.static(dist, { index: false }));
-    app.get('/{*splat}', (_req, res) => {
-      res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile('index.html', { root: dist });
+    // The build writes .br and .gz beside each file; the smallest one the browser accepts is sent.
+    const compressed = (root: string, serveStatic: expressStaticGzip.ExpressStaticGzipOptions['serveStatic']) =>
+      expressStaticGzip(root, { enableBrotli: true, orderPreference: ['br', 'gzip'], index: false, serveStatic });
+    // Hashed names: a changed file is a new URL, so the browser may keep each one for good.
+    app.use('/assets', compressed(join(dist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+    app.use(compressed(dist, { index: false }));
+    // The page itself is checked every time, so a new build reaches the browser at once.
+    const page = compressed(dist, {
+      index: false,
+      cacheControl: false,
+      setHeaders: (res: ServerResponse) => res.setHeader('Cache-Control', 'no-cache'),
+    });
+    app.get('/{*splat}', (req, res, next) => {
+      req.url = '/index.html';
+      page(req, res, next);
     });
   }
 

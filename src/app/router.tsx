@@ -5,6 +5,7 @@ import { ANY_ROLE, ATHLETE, HEAD_COACH, STAFF, homeFor, requireUser, type Loader
 import { AppLayout } from './routes/app-layout';
 import { RouteError } from './routes/route-error';
 import { NotFound } from './routes/not-found';
+import { makeLoader as myWeekLoader } from './routes/my-week.loader';
 import type { Role } from '../../shared/schemas';
 
 interface PageModule {
@@ -12,12 +13,30 @@ interface PageModule {
   makeLoader?: LoaderMaker;
 }
 
-/** A lazily loaded page guarded by role; its own loader (if any) runs after the guard. */
+/**
+ * A lazily loaded page guarded by role; its own loader (if any) runs after the guard. With `eager` (a
+ * loader kept out of the page module), the page's data is requested at once, beside the guard and the
+ * page's code, instead of after them.
+ */
 function page(
   queryClient: QueryClient,
   roles: Role[] | null,
   load: () => Promise<PageModule>,
-): Pick<RouteObject, 'lazy'> {
+  eager?: LoaderMaker,
+): Pick<RouteObject, 'lazy' | 'loader'> {
+  if (eager) {
+    const own = eager(queryClient);
+    return {
+      loader: async (args) => {
+        const data = own(args);
+        // A guard that redirects wins; the data request's own failure is then of no interest.
+        data.catch(() => undefined);
+        if (roles) await requireUser(queryClient, args.request, roles);
+        return data;
+      },
+      lazy: async () => ({ Component: (await load()).Component }),
+    };
+  }
   return {
     lazy: async () => {
       const mod = await load();
@@ -60,7 +79,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'meets/:meetId/sheet', ...page(queryClient, STAFF, () => import('./routes/meet-sheet')) },
             { path: 'rules', ...page(queryClient, HEAD_COACH, () => import('./routes/rules')) },
             { path: 'fees', ...page(queryClient, HEAD_COACH, () => import('./routes/fees')) },
-            { path: 'my-week', ...page(queryClient, ATHLETE, () => import('./routes/my-week')) },
+            { path: 'my-week', ...page(queryClient, ATHLETE, () => import('./routes/my-week'), myWeekLoader) },
             { path: 'my-history', ...page(queryClient, ATHLETE, () => import('./routes/my-history')) },
             { path: 'my-fee', ...page(queryClient, ATHLETE, () => import('./routes/my-fee')) },
             { path: 'devices', ...page(queryClient, ANY_ROLE, () => import('./routes/devices')) },

@@ -1,5 +1,6 @@
 // The one way the client talks to the API: JSON in, JSON out, failures as a typed ApiError.
 import type { ApiErrorBody } from '../../shared/schemas';
+import { takeEarly } from './early-requests';
 
 export class ApiError extends Error {
   constructor(
@@ -23,16 +24,18 @@ export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T
   const isForm = typeof FormData !== 'undefined' && opts.body instanceof FormData;
   let res: Response;
   try {
-    res = await fetch(`/api${path}`, {
-      method: opts.method ?? 'GET',
-      credentials: 'same-origin',
-      headers:
-        opts.body === undefined || isForm
-          ? { Accept: 'application/json' }
-          : { 'Content-Type': 'application/json', Accept: 'application/json' },
-      body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
-      signal: opts.signal,
-    });
+    const early = opts.method === undefined || opts.method === 'GET' ? takeEarly(`/api${path}`) : undefined;
+    res = await (early ??
+      fetch(`/api${path}`, {
+        method: opts.method ?? 'GET',
+        credentials: 'same-origin',
+        headers:
+          opts.body === undefined || isForm
+            ? { Accept: 'application/json' }
+            : { 'Content-Type': 'application/json', Accept: 'application/json' },
+        body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
+        signal: opts.signal,
+      }));
   } catch (err) {
     if (err instanceof DOMException && err.name === 'AbortError') throw err;
     throw new ApiError(0, 'network', 'Cannot reach Rackturn. Check the connection and try again.');

@@ -41,8 +41,8 @@ import { createServices, stopServices } from '../../server/services';
 const ATHLETES = 40;
 const HISTORY_WEEKS = 12;
 const AHEAD_WEEKS = 8;
-const EMAIL = 'bench-coach@example.test';
-const PASSWORD = 'bench-password-123';
+export const EMAIL = 'bench-coach@example.test';
+export const PASSWORD = 'bench-password-123';
 
 export interface BoardBenchResult {
   athletes: number;
@@ -80,7 +80,7 @@ const median = (xs: number[]) => {
 const round = (x: number) => Math.round(x * 10) / 10;
 const stats = (xs: number[]) => ({ median: round(median(xs)), max: round(Math.max(...xs)), runs: xs.map(round) });
 
-async function seed(url: string): Promise<void> {
+export async function seed(url: string): Promise<void> {
   const database = createDatabase(url);
   const db = database.db;
   try {
@@ -185,7 +185,7 @@ async function seed(url: string): Promise<void> {
 }
 
 /** Builds the client; waits while another build of this checkout holds Vite's lock. */
-function buildClient(outDir: string): void {
+export function buildClient(outDir: string): void {
   for (let attempt = 0; attempt < 40; attempt++) {
     const build = spawnSync(join(BIN, 'vite'), ['build', '--outDir', outDir, '--emptyOutDir', '--logLevel', 'warn'], {
       cwd: ROOT,

@@ -10,12 +10,15 @@ process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
 ensureApt('chromium', ['chromium', 'fonts-liberation']);
 const { runEngineBench } = await import('./engine');
 const { runBoardBench } = await import('./board');
+const { runSpeedBench } = await import('./speed');
 
 const engine = await runEngineBench();
 const board = await runBoardBench();
+// The athlete's phone and the API against bare baselines (tests/bench/phone.ts, tests/bench/api.ts).
+const speed = await runSpeedBench();
 console.log(
   JSON.stringify(
-    { machine: { cpus: (await import('node:os')).cpus().length, node: process.version }, engine, board },
+    { machine: { cpus: (await import('node:os')).cpus().length, node: process.version }, engine, board, ...speed },
     null,
     2,
   ),

@@ -1,22 +1,25 @@
 // The athlete's week in one answer: picks with last time and records, tissue work, check-ins,
 // bodyweight with weight class and the pre-meet gain caution, and the next meet.
+// Read in one round of queries, one per concern (never one per pick), all scoped to the team.
 import { weightClass } from '../../../shared/calc';
-import { addWeeks, weekOfDate, weeksBetween } from '../../../shared/engine/weeks';
+import { addWeeks, mondayOf, weekOfDate, weeksBetween } from '../../../shared/engine/weeks';
 import { SCHEME_REPS, type MyWeek, type MyWeekCheckin, type MyWeekPick } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { NotFoundError } from '../../lib/errors';
 import { allBodyweights } from '../bodyweights/bodyweights.repository';
 import { daysUntil, gainCaution, sevenDayChange } from '../bodyweights/caution';
-import { recentCheckins, readRulesOfTeam, tissueWorkFor } from '../tissue/tissue.service';
-import { findNextMeet, findPrescription } from '../tissue/tissue.repository';
-import { topSetsOfWeek } from '../top-sets/top-sets.repository';
-import { variantSummary } from '../top-sets/top-sets.service';
+import { rulesFromText, tissueWorkFrom, toCheckinRow } from '../tissue/tissue.service';
+import { findTeamRulesText, listCheckins, listPrescriptionsThrough, meetsFrom } from '../tissue/tissue.repository';
+import { recordOf } from '../top-sets/records';
+import { topSetsAroundWeek } from '../top-sets/top-sets.repository';
 import { findTeamAthlete } from './athlete.repository';
 import { isWeekPublished, weekPicks } from './my-week.repository';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
 const RECENT_DAYS = 28;
+/** Check-ins the page looks through for this week's and last week's. */
+const RECENT_CHECKINS = 20;
 
 function isoDay(d: Date): string {
   return d.toISOString().slice(0, 10);
@@ -30,57 +33,79 @@ export async function myWeek(
 ): Promise<MyWeek> {
   const db = ctx.database.db;
   const { teamId, athleteId } = who;
-  const athlete = await findTeamAthlete(db, teamId, athleteId);
-  if (!athlete) throw new NotFoundError('A roster entry linked to your account');
   const today = isoDay(now);
   const week = requestedWeek ?? weekOfDate(now);
+  const lastWeek = addWeeks(week, -1);
+  const monday = isoDay(mondayOf(week));
 
   // A week the coach has not published is a draft the athlete does not see; weeks gone by are history.
   const thisWeek = weekOfDate(now);
-  const [rules, rows, logged, tissue, checkins, meet, readings, published] = await Promise.all([
-    readRulesOfTeam(db, teamId),
-    weekPicks(db, teamId, athleteId, week),
-    topSetsOfWeek(db, teamId, athleteId, week),
-    tissueWorkFor(db, teamId, athleteId, week),
-    recentCheckins(db, teamId, athleteId, 20),
-    findNextMeet(db, teamId, athleteId, today),
-    allBodyweights(db, teamId, athleteId, isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS))),
-    week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
-  ]);
+  const [athlete, rulesText, rows, sets, prescriptions, checkinRows, upcoming, readings, published] = await Promise.all(
+    [
+      findTeamAthlete(db, teamId, athleteId),
+      findTeamRulesText(db, teamId),
+      weekPicks(db, teamId, athleteId, week),
+      topSetsAroundWeek(db, teamId, athleteId, week),
+      listPrescriptionsThrough(db, teamId, athleteId, week),
+      listCheckins(db, teamId, athleteId),
+      // From the earlier of today and the week's Monday: the page shows the next meet from today, the
+      // tissue work counts down to the next one from the week's start.
+      meetsFrom(db, teamId, athleteId, today < monday ? today : monday),
+      allBodyweights(db, teamId, athleteId, isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS))),
+      week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
+    ],
+  );
+  if (!athlete) throw new NotFoundError('A roster entry linked to your account');
+  const rules = rulesFromText(teamId, rulesText);
+  const meet = upcoming.find((m) => m.date >= today) ?? null;
+  const tissue = await tissueWorkFrom(
+    db,
+    who,
+    week,
+    {
+      team: rules,
+      history: prescriptions.filter((p) => p.week < week),
+      checkins: checkinRows,
+      meet: upcoming.find((m) => m.date >= monday) ?? null,
+      picks: rows,
+      stored: prescriptions.find((p) => p.week === week) ?? null,
+    },
+    now,
+  );
+  const checkins = checkinRows.slice(0, RECENT_CHECKINS).map(toCheckinRow);
 
   const slotOrder = rules.slots.map((s) => s.id);
   const ordered = (published ? [...rows] : []).sort((a, b) => {
     const [x, y] = [slotOrder.indexOf(a.slotId), slotOrder.indexOf(b.slotId)];
     return (x < 0 ? 99 : x) - (y < 0 ? 99 : y) || a.slotId.localeCompare(b.slotId);
   });
-  const picks: MyWeekPick[] = await Promise.all(
-    ordered.map(async (r) => {
-      const { lastTime, record } = await variantSummary(db, teamId, athleteId, r.variant.id, week);
-      return {
-        planEntryId: r.planEntryId,
-        slotId: r.slotId,
-        slotLabel: rules.slots.find((s) => s.id === r.slotId)?.label ?? r.slotId,
-        scheme: r.variant.scheme,
-        schemeReps: SCHEME_REPS[r.variant.scheme],
-        variant: {
-          id: r.variant.id,
-          name: r.variant.name,
-          lift: r.variant.lift,
-          family: r.variant.family,
-          bar: r.variant.bar,
-          specificity: Number(r.variant.specificity),
-          notes: r.variant.notes,
-        },
-        lastTime,
-        record,
-        logged: logged.filter((s) => s.planEntryId === r.planEntryId),
-      };
-    }),
-  );
+  // Newest first, as last time and the records read them; the week's own sets oldest first.
+  const logged = sets.filter((s) => s.week === week).reverse();
+  const picks: MyWeekPick[] = ordered.map((r) => {
+    const onVariant = sets.filter((s) => s.variantId === r.variant.id);
+    return {
+      planEntryId: r.planEntryId,
+      slotId: r.slotId,
+      slotLabel: rules.slots.find((s) => s.id === r.slotId)?.label ?? r.slotId,
+      scheme: r.variant.scheme,
+      schemeReps: SCHEME_REPS[r.variant.scheme],
+      variant: {
+        id: r.variant.id,
+        name: r.variant.name,
+        lift: r.variant.lift,
+        family: r.variant.family,
+        bar: r.variant.bar,
+        specificity: Number(r.variant.specificity),
+        notes: r.variant.notes,
+      },
+      lastTime: onVariant.find((s) => s.week < week) ?? null,
+      record: recordOf(onVariant),
+      logged: logged.filter((s) => s.planEntryId === r.planEntryId),
+    };
+  });
 
   // Last week's work too: the next-day check-in often lands after the week has turned.
-  const lastWeek = addWeeks(week, -1);
-  const lastWork = await findPrescription(db, teamId, athleteId, lastWeek);
+  const lastWork = prescriptions.find((p) => p.week === lastWeek);
   const checkinWeeks: MyWeekCheckin[] = [
     { week, kind: tissue.kind, done: checkins.filter((c) => c.week === week) },
     { week: lastWeek, kind: lastWork?.items[0]?.kind ?? null, done: checkins.filter((c) => c.week === lastWeek) },

@@ -1,14 +1,23 @@
 // SQL for connective-tissue prescriptions and check-ins, and the few facts their generation reads
 // (team rules, the next meet). Every query is scoped to the team.
-import { and, asc, desc, eq, gt, gte, lt, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, gte, lt, lte, sql, type SQL } from 'drizzle-orm';
 import type { Joint } from '../../../shared/engine/types';
 import type { TissueKind, TissuePrescription } from '../../../shared/engine/tissue';
 import type { Queryable } from '../../db/client';
 import { meetEntries, meets, teamRules, tissueCheckins, tissuePrescriptions } from '../../db/schema';
 
-export async function findTeamRulesRow(db: Queryable, teamId: number) {
-  const [row] = await db.select().from(teamRules).where(eq(teamRules.teamId, teamId)).limit(1);
-  return row ?? null;
+/**
+ * The rules document as stored (text), so a caller can tell an unchanged document from a changed one
+ * without parsing it; null when the team has never saved rules.
+ */
+export async function findTeamRulesText(db: Queryable, teamId: number): Promise<string | null> {
+  const [row] = await db
+    // As text: the driver would otherwise hand back the parsed document.
+    .select({ rules: sql<string>`CAST(${teamRules.rules} AS CHAR)`.mapWith(String) })
+    .from(teamRules)
+    .where(eq(teamRules.teamId, teamId))
+    .limit(1);
+  return row?.rules ?? null;
 }
 
 /** One athlete's prescriptions, inside the team. */
@@ -24,14 +33,23 @@ export async function findPrescription(db: Queryable, teamId: number, athleteId:
   return row ? { ...row, items: row.items as TissuePrescription[] } : null;
 }
 
-/** Stored prescriptions of the weeks before `week`, oldest first. */
-export async function listPrescriptionsBefore(db: Queryable, teamId: number, athleteId: number, week: string) {
+async function listPrescriptions(db: Queryable, teamId: number, athleteId: number, weeks: SQL) {
   const rows = await db
     .select({ week: tissuePrescriptions.week, items: tissuePrescriptions.items })
     .from(tissuePrescriptions)
-    .where(and(prescriptionsOf(teamId, athleteId), lt(tissuePrescriptions.week, week)))
+    .where(and(prescriptionsOf(teamId, athleteId), weeks))
     .orderBy(asc(tissuePrescriptions.week));
   return rows.map((r) => ({ week: r.week, items: r.items as TissuePrescription[] }));
+}
+
+/** Stored prescriptions of the weeks before `week`, oldest first. */
+export async function listPrescriptionsBefore(db: Queryable, teamId: number, athleteId: number, week: string) {
+  return listPrescriptions(db, teamId, athleteId, lt(tissuePrescriptions.week, week));
+}
+
+/** Stored prescriptions up to and including `week`, oldest first (history, that week and the one before). */
+export async function listPrescriptionsThrough(db: Queryable, teamId: number, athleteId: number, week: string) {
+  return listPrescriptions(db, teamId, athleteId, lte(tissuePrescriptions.week, week));
 }
 
 /**
@@ -82,20 +100,30 @@ export async function insertCheckin(
   return { ...saved!, painJoints: saved!.painJoints as Joint[] };
 }
 
-/** The date of the athlete's next meet on or after `fromDate`, if any. */
-export async function findNextMeet(db: Queryable, teamId: number, athleteId: number, fromDate: string) {
-  const [row] = await db
-    .select({
-      id: meets.id,
-      name: meets.name,
-      date: meets.date,
-      weightClass: meetEntries.weightClass,
-      division: meetEntries.division,
-    })
+const meetColumns = {
+  id: meets.id,
+  name: meets.name,
+  date: meets.date,
+  weightClass: meetEntries.weightClass,
+  division: meetEntries.division,
+};
+
+/** The athlete's meets on or after `fromDate`, soonest first. */
+function meetsOn(db: Queryable, teamId: number, athleteId: number, fromDate: string) {
+  return db
+    .select(meetColumns)
     .from(meetEntries)
     .innerJoin(meets, and(eq(meets.id, meetEntries.meetId), eq(meets.teamId, teamId)))
     .where(and(eq(meetEntries.teamId, teamId), eq(meetEntries.athleteId, athleteId), gte(meets.date, fromDate)))
-    .orderBy(asc(meets.date), asc(meets.id))
-    .limit(1);
+    .orderBy(asc(meets.date), asc(meets.id));
+}
+
+export async function meetsFrom(db: Queryable, teamId: number, athleteId: number, fromDate: string) {
+  return meetsOn(db, teamId, athleteId, fromDate);
+}
+
+/** The date of the athlete's next meet on or after `fromDate`, if any. */
+export async function findNextMeet(db: Queryable, teamId: number, athleteId: number, fromDate: string) {
+  const [row] = await meetsOn(db, teamId, athleteId, fromDate).limit(1);
   return row ?? null;
 }

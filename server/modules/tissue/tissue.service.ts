@@ -7,7 +7,9 @@ import {
   prescribeTissueWork,
   type TissueCheckin,
   type TissueInput,
+  type TissuePrescription,
   type TissueRules,
+  type TissueWeek,
 } from '../../../shared/engine/tissue';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import { readTeamRules, type TeamRules, type TissueCheckinRow, type TissueWorkWeek } from '../../../shared/schemas';
@@ -19,7 +21,7 @@ import {
   deletePrescriptionsAfter,
   findNextMeet,
   findPrescription,
-  findTeamRulesRow,
+  findTeamRulesText,
   insertCheckin,
   insertPrescriptionIfAbsent,
   listCheckins,
@@ -49,12 +51,54 @@ export function tissueRulesOf(team: TeamRules): {
   return { rules: { ...DEFAULT_TISSUE_RULES, ...settings }, focusJoints };
 }
 
+/**
+ * Parsed rules per team, kept with the exact stored text they were parsed from: a request reads the text
+ * (one small query, as before) and parses only when it differs, so a saved change shows at once.
+ */
+const parsedRules = new Map<number, { text: string | null; rules: TeamRules }>();
+const PARSED_RULES_MAX = 1_000;
+
+/** The team's rules from their stored text (null: never saved), parsed once per distinct text. */
+export function rulesFromText(teamId: number, text: string | null): TeamRules {
+  const hit = parsedRules.get(teamId);
+  if (hit && hit.text === text) return hit.rules;
+  const rules = readTeamRules(text === null ? undefined : (JSON.parse(text) as unknown));
+  if (parsedRules.size >= PARSED_RULES_MAX) parsedRules.clear();
+  parsedRules.set(teamId, { text, rules });
+  return rules;
+}
+
 export async function readRulesOfTeam(db: Queryable, teamId: number): Promise<TeamRules> {
-  return readTeamRules((await findTeamRulesRow(db, teamId))?.rules);
+  return rulesFromText(teamId, await findTeamRulesText(db, teamId));
 }
 
 function toEngineCheckins(rows: Awaited<ReturnType<typeof listCheckins>>): TissueCheckin[] {
   return rows.map((c) => ({ week: c.week, kind: c.kind, soreness: c.soreness, painJoints: c.painJoints }));
+}
+
+/** What a week's tissue work is worked out from, as read from the database. */
+export interface TissueFacts {
+  team: TeamRules;
+  /** Stored prescriptions of the weeks before, oldest first. */
+  history: { week: string; items: TissuePrescription[] }[];
+  checkins: Awaited<ReturnType<typeof listCheckins>>;
+  /** The athlete's next meet on or after the Monday of the week. */
+  meet: { date: string } | null;
+  /** The week's max-effort picks (their joint stress). */
+  picks: { variant: { stress: Parameters<typeof jointLoadOf>[0][number]['stress'] } }[];
+}
+
+export function tissueInputFrom(week: string, facts: TissueFacts): TissueInput {
+  const { rules, focusJoints } = tissueRulesOf(facts.team);
+  return {
+    week,
+    ...(facts.meet ? { meetWeek: weekOfDate(new Date(`${facts.meet.date}T00:00:00Z`)) } : {}),
+    rules,
+    history: facts.history.flatMap((h) => h.items),
+    checkins: toEngineCheckins(facts.checkins),
+    focusJoints,
+    jointLoad: jointLoadOf(facts.picks.map((p) => p.variant)),
+  };
 }
 
 /** Everything prescribeTissueWork needs for one athlete and week, read from the database. */
@@ -71,16 +115,50 @@ export async function tissueInput(
     findNextMeet(db, teamId, athleteId, isoDay(mondayOf(week))),
     weekPicks(db, teamId, athleteId, week),
   ]);
-  const { rules, focusJoints } = tissueRulesOf(team);
-  return {
-    week,
-    ...(meet ? { meetWeek: weekOfDate(new Date(`${meet.date}T00:00:00Z`)) } : {}),
-    rules,
-    history: history.flatMap((h) => h.items),
-    checkins: toEngineCheckins(checkins),
-    focusJoints,
-    jointLoad: jointLoadOf(picks.map((p) => p.variant)),
-  };
+  return tissueInputFrom(week, { team, history, checkins, meet, picks });
+}
+
+/**
+ * The generated week for an input, worked out once while the input stays the same (the function is pure,
+ * so an equal input always gives an equal week). Keyed per athlete and week; callers never mutate it.
+ */
+const generated = new Map<string, { input: string; week: TissueWeek }>();
+const GENERATED_MAX = 2_000;
+
+function prescribeOnce(teamId: number, athleteId: number, input: TissueInput): TissueWeek {
+  const key = `${teamId}:${athleteId}:${input.week}`;
+  const text = JSON.stringify(input);
+  const hit = generated.get(key);
+  if (hit && hit.input === text) return hit.week;
+  const week = prescribeTissueWork(input);
+  if (generated.size >= GENERATED_MAX) generated.clear();
+  generated.set(key, { input: text, week });
+  return week;
+}
+
+/**
+ * The week's work from facts already read: the stored prescription (`stored`), or the generated one,
+ * stored when the week is this one or the next.
+ */
+export async function tissueWorkFrom(
+  db: Queryable,
+  who: { teamId: number; athleteId: number },
+  week: string,
+  facts: TissueFacts & { stored: { items: TissuePrescription[] } | null },
+  today = new Date(),
+): Promise<TissueWorkWeek> {
+  const { teamId, athleteId } = who;
+  const fresh = prescribeOnce(teamId, athleteId, tissueInputFrom(week, facts));
+  let stored = facts.stored;
+  // Only this week and next are written: a week already over is shown as it would have been, and one
+  // further ahead as it looks now, without fixing either in the athlete's history.
+  const current = weekOfDate(today);
+  if (!stored && week >= current && week <= addWeeks(current, STORE_AHEAD_WEEKS)) {
+    await insertPrescriptionIfAbsent(db, { teamId, athleteId, week, items: fresh.items });
+    stored = await findPrescription(db, teamId, athleteId, week);
+  }
+  const items = stored?.items ?? fresh.items;
+  return { week, kind: items[0]?.kind ?? null, items, notes: fresh.notes, suggestions: fresh.suggestions };
 }
 
 /**
@@ -98,18 +176,15 @@ export async function tissueWorkFor(
 ): Promise<TissueWorkWeek> {
   const db = dbOf(source);
   if (!(await findTeamAthlete(db, teamId, athleteId))) throw new NotFoundError('That athlete');
-  const input = await tissueInput(db, teamId, athleteId, week);
-  const fresh = prescribeTissueWork(input);
-  let stored = await findPrescription(db, teamId, athleteId, week);
-  // Only this week and next are written: a week already over is shown as it would have been, and one
-  // further ahead as it looks now, without fixing either in the athlete's history.
-  const current = weekOfDate(today);
-  if (!stored && week >= current && week <= addWeeks(current, STORE_AHEAD_WEEKS)) {
-    await insertPrescriptionIfAbsent(db, { teamId, athleteId, week, items: fresh.items });
-    stored = await findPrescription(db, teamId, athleteId, week);
-  }
-  const items = stored?.items ?? fresh.items;
-  return { week, kind: items[0]?.kind ?? null, items, notes: fresh.notes, suggestions: fresh.suggestions };
+  const [team, history, checkins, meet, picks, stored] = await Promise.all([
+    readRulesOfTeam(db, teamId),
+    listPrescriptionsBefore(db, teamId, athleteId, week),
+    listCheckins(db, teamId, athleteId),
+    findNextMeet(db, teamId, athleteId, isoDay(mondayOf(week))),
+    weekPicks(db, teamId, athleteId, week),
+    findPrescription(db, teamId, athleteId, week),
+  ]);
+  return tissueWorkFrom(db, { teamId, athleteId }, week, { team, history, checkins, meet, picks, stored }, today);
 }
 
 /**

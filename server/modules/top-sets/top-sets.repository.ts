@@ -1,5 +1,5 @@
 // SQL for top sets: the plan entry a set is logged against, the sets themselves, and per-variant records.
-import { and, asc, desc, eq, inArray, lt, ne, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, lt, ne, or, sql, type SQL } from 'drizzle-orm';
 import type { TopSet } from '../../../shared/schemas';
 import type { Queryable } from '../../db/client';
 import { planEntries, topSets, variants } from '../../db/schema';
@@ -147,6 +147,24 @@ export async function variantTopSets(
       opts.excludeId ? ne(topSets.id, opts.excludeId) : undefined,
       opts.beforeWeek ? lt(topSets.week, opts.beforeWeek) : undefined,
     ),
+  ).orderBy(desc(topSets.performedOn), desc(topSets.id));
+  return rows.map(toTopSet);
+}
+
+/**
+ * An athlete's week in one query: every top set on the variants planned that week (for last time and
+ * records) and every set logged in the week, newest first.
+ */
+export async function topSetsAroundWeek(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const planned = db
+    .select({ variantId: planEntries.variantId })
+    .from(planEntries)
+    .where(and(eq(planEntries.teamId, teamId), eq(planEntries.athleteId, athleteId), eq(planEntries.week, week)));
+  const rows = await selectTopSets(
+    db,
+    teamId,
+    athleteId,
+    or(eq(topSets.week, week), inArray(topSets.variantId, planned)),
   ).orderBy(desc(topSets.performedOn), desc(topSets.id));
   return rows.map(toTopSet);
 }

@@ -1,26 +1,21 @@
 // My week (athlete, phone first): the week's max-effort picks with warm-ups and logging, connective-
 // tissue work and its check-in, bodyweight, and the training caution.
-import type { QueryClient } from '@tanstack/react-query';
+import { Suspense, lazy } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { addWeeks, isIsoWeek, mondayOf } from '../../../shared/engine/weeks';
+import { addWeeks, mondayOf } from '../../../shared/engine/weeks';
 import { Loading, Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
-import { myWeekQueryOptions, useMyWeek } from '../../features/my-week/api/queries';
-import { BodyweightCard } from '../../features/my-week/components/bodyweight-card';
-import { CheckinForm } from '../../features/my-week/components/checkin-form';
+import { useMyWeek } from '../../features/my-week/api/queries';
 import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
+import { weekParam } from './my-week.loader';
 
-function weekParam(search: URLSearchParams): string | null {
-  const w = search.get('week');
-  return w && isIsoWeek(w) ? w : null;
-}
-
-export function makeLoader(queryClient: QueryClient) {
-  return async ({ request }: { request: Request }) => {
-    await queryClient.ensureQueryData(myWeekQueryOptions(weekParam(new URL(request.url).searchParams)));
-    return null;
-  };
-}
+// Below the picks, with forms: their code (and the validation library) loads after the picks are shown.
+const CheckinForm = lazy(() =>
+  import('../../features/my-week/components/checkin-form').then((m) => ({ default: m.CheckinForm })),
+);
+const BodyweightCard = lazy(() =>
+  import('../../features/my-week/components/bodyweight-card').then((m) => ({ default: m.BodyweightCard })),
+);
 
 const dateFmt = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
 
@@ -67,8 +62,10 @@ export function Component() {
         data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)
       )}
       <TissueWork tissue={data.tissue} />
-      <CheckinForm weeks={data.checkins} thisWeek={data.week} />
-      <BodyweightCard bodyweight={data.bodyweight} unit={data.unit} today={data.today} meet={data.meet} />
+      <Suspense fallback={<Loading />}>
+        <CheckinForm weeks={data.checkins} thisWeek={data.week} />
+        <BodyweightCard bodyweight={data.bodyweight} unit={data.unit} today={data.today} meet={data.meet} />
+      </Suspense>
     </div>
   );
 }

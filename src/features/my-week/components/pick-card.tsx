@@ -1,14 +1,17 @@
 // One max-effort pick of the week: the variant and scheme, last time and record, the warm-up with
 // plates, and the log form.
-import { useState } from 'react';
+import { Suspense, lazy, useState } from 'react';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
 import { SCHEME_LABEL, suggestedTopSet } from '../lib/top-set-math';
-import { TopSetForm } from './top-set-form';
-import { VideoUpload } from './video-upload';
 import { WarmupRamp } from './warmup-ramp';
+
+// The forms (and the validation library they bring) load after the pick is on screen.
+const TopSetForm = lazy(() => import('./top-set-form').then((m) => ({ default: m.TopSetForm })));
+const VideoUpload = lazy(() => import('./video-upload').then((m) => ({ default: m.VideoUpload })));
+const formLoading = <p className="text-sm text-ink-600">Loading the form…</p>;
 
 const LIFT_LABEL = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' } as const;
 
@@ -76,7 +79,9 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
                     <CleanIcon /> Video attached: your coach can watch it.
                   </p>
                 ) : (
-                  <VideoUpload topSetId={s.id} />
+                  <Suspense fallback={formLoading}>
+                    <VideoUpload topSetId={s.id} />
+                  </Suspense>
                 )}
               </li>
             ))}
@@ -103,7 +108,9 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
 
       <div className="flex flex-col gap-2 border-t border-ink-200 pt-4">
         <h3 className="text-lg font-semibold text-ink-900">Log the top set</h3>
-        <TopSetForm pick={pick} unit={unit} />
+        <Suspense fallback={formLoading}>
+          <TopSetForm pick={pick} unit={unit} />
+        </Suspense>
       </div>
     </section>
   );

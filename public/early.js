@@ -1,0 +1,20 @@
+// Runs before the app's code: on the athlete's My week (the page a phone opens most), asks for the
+// signed-in user and the week at once, so the answers are on their way while the code still downloads.
+// Plain JavaScript served as is, loaded async from the page's head; src/lib/early-requests.ts hands the
+// answers over to the API client, which takes each one once.
+/* global window, location, fetch, URLSearchParams */
+(() => {
+  const early = {};
+  const start = (url) => {
+    const res = fetch(url, { credentials: 'same-origin', headers: { Accept: 'application/json' } });
+    // Not taken (or failed): the app asks again itself, so nothing is reported here.
+    res.catch(() => undefined);
+    early[url] = res;
+  };
+  if (location.pathname === '/my-week') {
+    const week = new URLSearchParams(location.search).get('week');
+    start('/api/auth/me');
+    start(week && /^\d{4}-W\d{2}$/.test(week) ? `/api/my-week?week=${encodeURIComponent(week)}` : '/api/my-week');
+  }
+  window.__rackturnEarly = early;
+})();
