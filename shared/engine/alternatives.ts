@@ -1,5 +1,6 @@
 // "What fits here": every library variant that suits a cell's slot, rated for that cell (clean, warning,
-// break) with the reasons, sorted clean → warning → break and, within each, by a preference.
+// break) with the reasons, sorted clean → warning → break and, within each, by the planner's own soft-goal
+// score (comfort, lift balance, variety, effect), so the first clean variant is the one the engine would pick.
 
 import { prepareCandidateChecks, type CandidateChecks } from './explain';
 import type { PlanEntry, PlanRequest, RuleId, Variant, Violation } from './types';
@@ -53,22 +54,6 @@ function usageAround(req: PlanRequest, athleteId: string, week: string, slotId: 
   return usage;
 }
 
-/**
- * Stand-in preference within a status group until the engine offers its own score: the family used
- * longest ago (or never) first, then the variant used longest ago, then the more specific variant.
- * Lower sorts first. Swap this one function for the engine's candidate score.
- */
-export function leastRecentPreference(usage: Usage) {
-  return (a: Variant, b: Variant): number => {
-    const far = (m: Map<string, number>, k: string) => m.get(k) ?? Number.POSITIVE_INFINITY;
-    const fam = far(usage.family, b.family) - far(usage.family, a.family);
-    if (fam !== 0 && !Number.isNaN(fam)) return fam;
-    const own = far(usage.variant, b.id) - far(usage.variant, a.id);
-    if (own !== 0 && !Number.isNaN(own)) return own;
-    return b.specificity - a.specificity || a.name.localeCompare(b.name);
-  };
-}
-
 function fitReason(v: Variant, usage: Usage): string {
   const d = usage.family.get(v.family);
   const when =
@@ -92,11 +77,19 @@ export function rankAlternatives(
   const slot = req.slots.find((s) => s.id === slotId);
   if (!slot) return [];
   const usage = usageAround(req, athleteId, week, slotId);
-  const prefer = leastRecentPreference(usage);
   const rated = req.variants
     .filter((v) => slot.lifts.includes(v.lift) && !v.archived)
-    .map((v) => ({ v, rating: checks.rate(athleteId, week, slotId, v.id) }));
-  rated.sort((a, b) => STATUS_ORDER[a.rating.status] - STATUS_ORDER[b.rating.status] || prefer(a.v, b.v));
+    .map((v) => ({
+      v,
+      rating: checks.rate(athleteId, week, slotId, v.id),
+      score: checks.score(athleteId, week, slotId, v.id),
+    }));
+  rated.sort(
+    (a, b) =>
+      STATUS_ORDER[a.rating.status] - STATUS_ORDER[b.rating.status] ||
+      a.score - b.score ||
+      a.v.name.localeCompare(b.v.name),
+  );
   return rated.map(({ v, rating }) => ({
     variantId: v.id,
     name: v.name,

@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   addWeeks,
+  generatePlan,
   prepareCandidateChecks,
   rankAlternatives,
   summariseAlternatives,
@@ -83,6 +84,29 @@ describe('rankAlternatives', () => {
           expect(i.reasons.length).toBeGreaterThan(0);
           expect(i.status === 'break').toBe(i.violations.length > 0);
         }
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('orders each status group by the planner’s own score, so the engine’s pick leads the variants it may use', () => {
+    fc.assert(
+      fc.property(requestArb, (req) => {
+        const items = rankAlternatives(req, 'a', WEEK, 'upper');
+        const checks = prepareCandidateChecks(req);
+        const scored = items.map((i) => ({ status: i.status, score: checks.score('a', WEEK, 'upper', i.variantId) }));
+        for (let k = 1; k < scored.length; k++) {
+          if (scored[k]!.status === scored[k - 1]!.status) {
+            expect(scored[k]!.score).toBeGreaterThanOrEqual(scored[k - 1]!.score);
+          }
+        }
+        // The planner adds only its seeded tie-break (at most 2.5 points, see shared/engine/goals.ts) to
+        // this score, so its pick for the empty cell is within that of the best usable variant.
+        const usable = scored.filter((x) => x.status !== 'break');
+        const pick = generatePlan(req).entries.find((e) => e.slotId === 'upper');
+        if (!pick || usable.length === 0) return;
+        const best = Math.min(...usable.map((x) => x.score));
+        expect(checks.score('a', WEEK, 'upper', pick.variantId)).toBeLessThanOrEqual(best + 2.5 + 1e-9);
       }),
       { numRuns: 150 },
     );
