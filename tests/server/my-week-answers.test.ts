@@ -17,6 +17,7 @@ import {
   createPlanEntry,
   createTeam,
   createTopSet,
+  publishAthleteWeek,
   createUser,
   createVariant,
   type TestTeam,
@@ -104,6 +105,10 @@ describe('what my-week keeps between requests', () => {
     await createPlanEntry(db, team.teamId, secondId, variantsOf['Deficit deadlift']!, { week: thisWeek });
     const otherVariant = await createVariant(db, other.teamId, { name: `Anderson squat ${Date.now()}` });
     await createPlanEntry(db, other.teamId, other.athleteId, otherVariant, { week: thisWeek });
+    // Athletes see a week once the coach has published it.
+    await publishAthleteWeek(db, team.teamId, team.athleteId, thisWeek);
+    await publishAthleteWeek(db, team.teamId, secondId, thisWeek);
+    await publishAthleteWeek(db, other.teamId, other.athleteId, thisWeek);
     first = await t.signIn(team.athleteUser.email);
     second = await t.signIn(secondUser.email);
     otherAthlete = await t.signIn(other.athleteUser.email);
@@ -163,6 +168,9 @@ describe('what my-week keeps between requests', () => {
 
   it('shows the athlete’s own unit change at once', async () => {
     await t.ctx.database.db.update(users).set({ unit: 'lb' }).where(eq(users.id, team.athleteUser.id));
+    // The unit is changed in the database directly here, so the signed-in session's own short cache is
+    // dropped as a change of account would drop it; what is checked is that My week keeps no copy of it.
+    t.ctx.sessions.forgetWhere((a) => a.userId === team.athleteUser.id);
     expect((await first.get('/api/my-week')).body.unit).toBe('lb');
   });
 });

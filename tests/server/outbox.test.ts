@@ -72,21 +72,25 @@ describe('an SMTP outage', () => {
     const team = await createTeam(db);
     const variant = await createVariant(db, team.teamId);
     const emails = [team.athleteUser.email];
+    const athleteIds = [team.athleteId];
     for (let i = 0; i < 4; i++) {
       const u = await createUser(db, team.teamId, 'athlete');
-      await createAthlete(db, team.teamId, { userId: u.id });
+      athleteIds.push(await createAthlete(db, team.teamId, { userId: u.id }));
       emails.push(u.email);
     }
     const week = addWeeks(weekOfDate(new Date()), 1);
-    await db.insert(planEntries).values({
-      teamId: team.teamId,
-      athleteId: team.athleteId,
-      week,
-      slotId: 'lower',
-      variantId: variant,
-      source: 'engine',
-      reasons: [],
-    });
+    // Each athlete has a pick: a week without any max-effort work sends no e-mail.
+    await db.insert(planEntries).values(
+      athleteIds.map((athleteId) => ({
+        teamId: team.teamId,
+        athleteId,
+        week,
+        slotId: 'lower',
+        variantId: variant,
+        source: 'engine' as const,
+        reasons: [],
+      })),
+    );
 
     const coach = await t.signIn(team.coach.email);
     expect((await coach.post(`/api/weeks/${week}/publish`)).status).toBe(201);

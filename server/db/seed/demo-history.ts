@@ -11,7 +11,8 @@ import type { BoardAthlete, BoardVariant } from '../../../shared/schemas/plans';
 import type { Tx } from '../client';
 import { athleteWeekPublications, bodyweights, planEntries, planEntryHistory, teamRules, topSets } from '../schema';
 import { DEMO_EQUIPMENT, DEMO_LIBRARY, type DemoVariant } from './demo-library';
-import { DEMO_ATHLETES, type DemoAthlete } from './demo-people';
+import { pastMeetDay } from './demo-meet-day';
+import { DEMO_ATHLETES, PAST_MEET, type DemoAthlete } from './demo-people';
 
 export interface HistoryContext {
   teamId: number;
@@ -54,6 +55,7 @@ export async function seedDemoHistory(tx: Tx, ctx: HistoryContext): Promise<void
     return { ...v, id, meetPhaseWeeks: v.meetPhaseWeeks ?? null, archived: false };
   });
   const sunday = (week: string) => isoDay(mondayOf(week).getTime() + 6 * DAY_MS);
+  const pastMeet = pastMeetDay(ctx.today);
   const athletes: BoardAthlete[] = DEMO_ATHLETES.map((a) => ({
     id: ctx.athleteIds.get(a.key)!,
     name: a.name,
@@ -74,7 +76,10 @@ export async function seedDemoHistory(tx: Tx, ctx: HistoryContext): Promise<void
           date: sunday(addWeeks(thisWeek, a.meetInWeeks)),
           week: addWeeks(thisWeek, a.meetInWeeks),
         }
-      : null,
+      : PAST_MEET.athletes.includes(a.key)
+        ? // The weeks before the club's past meet were its taper: planned toward it, as the coach did then.
+          { id: 0, name: PAST_MEET.name, ...pastMeet }
+        : null,
     ruleOverrides: {},
     maxRisk: a.maxRisk ?? null,
     restWeeks: (a.restInWeeks ?? []).map((w) => addWeeks(thisWeek, w)),

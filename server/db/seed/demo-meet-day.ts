@@ -24,9 +24,14 @@ function isoDay(d: Date): string {
   return d.toISOString().slice(0, 10);
 }
 
+/** The club's past meet: a Saturday some weeks before this one. */
+export function pastMeetDay(today: Date): { week: string; date: string } {
+  const week = addWeeks(weekOfDate(today), -PAST_MEET.weeksAgo);
+  return { week, date: isoDay(new Date(mondayOf(week).getTime() + 5 * 86_400_000)) };
+}
+
 export async function seedDemoPastMeet(tx: Tx, ctx: HistoryContext): Promise<void> {
-  const week = addWeeks(weekOfDate(ctx.today), -PAST_MEET.weeksAgo);
-  const date = isoDay(new Date(mondayOf(week).getTime() + 5 * 86_400_000));
+  const { week, date } = pastMeetDay(ctx.today);
   const [meet] = await tx
     .insert(meets)
     .values({
