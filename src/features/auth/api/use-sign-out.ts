@@ -7,9 +7,11 @@ import { api } from '../../../lib/api-client';
 function useLeave() {
   const queryClient = useQueryClient();
   const navigate = useNavigate();
-  return () => {
+  // Leave first, then forget: cleared while the signed-in page is still mounted, its queries would
+  // ask the server again (and be refused) before the page goes.
+  return async () => {
+    await navigate('/sign-in', { replace: true });
     queryClient.clear();
-    navigate('/sign-in', { replace: true });
   };
 }
 
