@@ -8,6 +8,8 @@ import {
   useMemo,
   useRef,
   useState,
+  useSyncExternalStore,
+  type FocusEvent as ReactFocusEvent,
   type ReactNode,
 } from 'react';
 import {
@@ -55,11 +57,14 @@ import {
   OVERLAY_CLASS,
   boardCollision,
   BoardKeyboardSensor,
+  DROP_ATTR,
   cellOfDndId,
   variantOfLibraryId,
 } from '../model/dnd';
 import { needsALook, reviewOf } from '../model/review';
 import { STATUS_WORDS } from '../model/words';
+import { NO_FILTER, filterAthletes, restrictionTags, type BoardFilter } from '../model/filters';
+import { BoardFilters } from './board-filters';
 import { BoardGrid, NAME_WIDTH, WEEK_WIDTH, rowHeight } from './board-grid';
 import { BoardToolbar } from './board-toolbar';
 import { CellDetails } from './cell-details';
@@ -71,9 +76,57 @@ import { ReasonDialog, type ReasonAsk } from './reason-dialog';
 
 export const RATE_MEASURE = 'board:rate';
 
+const PHONE = '(max-width: 767.98px)';
+/** True on a phone-sized screen, and kept up to date when the window is resized or turned. */
+function usePhone(): boolean {
+  return useSyncExternalStore(
+    (notify) => {
+      const q = window.matchMedia(PHONE);
+      q.addEventListener('change', notify);
+      return () => q.removeEventListener('change', notify);
+    },
+    () => window.matchMedia(PHONE).matches,
+    () => false,
+  );
+}
+const NO_SENSORS: ReturnType<typeof useSensors> = [];
+
+const COMPACT_KEY = 'rackturn.board.compact';
+/** Compact rows, remembered on this device. */
+function useCompactRows(): [boolean, (on: boolean) => void] {
+  const [compact, setCompact] = useState(() => {
+    try {
+      return window.localStorage.getItem(COMPACT_KEY) === '1';
+    } catch {
+      return false;
+    }
+  });
+  const set = useCallback((on: boolean) => {
+    setCompact(on);
+    try {
+      window.localStorage.setItem(COMPACT_KEY, on ? '1' : '0');
+    } catch {
+      // Private browsing may refuse storage: the choice then lasts until the page is left.
+    }
+  }, []);
+  return [compact, set];
+}
+
 interface DragState {
   source: DragSource;
   ratings: Ratings;
+  /** Picked up with the keyboard: the focus follows the card to where it lands. */
+  keyboard: boolean;
+  /** What had the focus when the card was picked up, to go back to if it is not dropped. */
+  from: HTMLElement | null;
+}
+
+/** Puts the focus on the card in a cell once it is drawn (a save shows it at once, but a frame later). */
+function focusCard(box: HTMLElement | null, key: CellKey, fallback: HTMLElement | null, tries = 60) {
+  const card = box?.querySelector<HTMLElement>(`[data-cell="${key}"] button`);
+  if (card) card.focus();
+  else if (tries > 0) requestAnimationFrame(() => focusCard(box, key, fallback, tries - 1));
+  else fallback?.focus();
 }
 
 interface PendingAsk {
@@ -146,10 +199,11 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const [busy, setBusy] = useState<RunKind | null>(null);
   const [report, setReport] = useState<{ title: string; result: GenerateResult } | null>(null);
   const [details, setDetails] = useState<CellKey | null>(null);
-  // On a phone the grid needs the whole width: the library starts hidden there.
-  const [libraryOpen, setLibraryOpen] = useState(
-    () => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches,
-  );
+  // On a phone the board is read-only (no drag; a card opens its details) and the library stays hidden,
+  // so the grid has the whole width.
+  const phone = usePhone();
+  const [libraryWanted, setLibraryOpen] = useState(true);
+  const libraryOpen = libraryWanted && !phone;
   /** The weeks "Needs a look" covers (those of the last plan run), and cells a save changed. */
   const [lookWeeks, setLookWeeks] = useState<string[] | null>(null);
   const [flagged, setFlagged] = useState<ReadonlyMap<CellKey, CellStatusChange>>(() => new Map());
@@ -158,6 +212,20 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     () => (lookWeeks || flagged.size ? needsALook(model, lookWeeks ?? [], flaggedKeys) : []),
     [model, lookWeeks, flagged.size, flaggedKeys],
   );
+
+  // The rows shown: every athlete, or those the filters keep.
+  const [filter, setFilter] = useState<BoardFilter>(NO_FILTER);
+  const rows = useMemo(() => filterAthletes(model, filter, flaggedKeys), [model, filter, flaggedKeys]);
+  const rowsRef = useRef(rows);
+  useLayoutEffect(() => {
+    rowsRef.current = rows;
+  }, [rows]);
+  const tags = useMemo(() => restrictionTags(model.athletes), [model.athletes]);
+  const [compact, setCompact] = useCompactRows();
+  const rowHRef = useRef(0);
+  useLayoutEffect(() => {
+    rowHRef.current = rowHeight(model.slots.length, compact);
+  }, [model.slots.length, compact]);
 
   const labelOf = useCallback((c: CellRef) => cellLabel(modelRef.current, c), []);
   const variantName = useCallback(
@@ -316,7 +384,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     return null;
   };
 
-  const onDragStart = ({ active }: DragStartEvent) => {
+  const onDragStart = ({ active, activatorEvent }: DragStartEvent) => {
     const source = sourceOf(active.id);
     if (!source) return;
     // The engine is prepared once for this drag and judges every target cell on screen now; cells that
@@ -327,7 +395,12 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     const shown = new Set(shownRef.current);
     for (const t of m.targets) if (shown.has(t.athleteId)) ratings.get(keyOf(t));
     performance.measure(RATE_MEASURE, `${RATE_MEASURE}:start`);
-    const next = { source, ratings };
+    const next = {
+      source,
+      ratings,
+      keyboard: activatorEvent instanceof KeyboardEvent,
+      from: document.activeElement instanceof HTMLElement ? document.activeElement : null,
+    };
     dragRef.current = next;
     setDrag(next);
     startTransition(() => setShownRatings(ratings));
@@ -346,30 +419,41 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     const d = dragRef.current;
     endDrag();
     const target = cellOfDndId(over?.id);
-    if (!d || !target) return;
-    drop(d, target);
+    if (!d) return;
+    const outcome = target ? drop(d, target) : 'refused';
+    if (!d.keyboard || outcome === 'asked') return;
+    // A keyboard drop keeps the focus on the cell it landed on; a refused one goes back to the card.
+    if (outcome === 'saved' && target) focusCard(scrollRef.current, keyOf(target), d.from);
+    else requestAnimationFrame(() => d.from?.focus());
   };
 
-  const drop = (d: DragState, target: CellRef) => {
+  const onDragCancel = () => {
+    const d = dragRef.current;
+    endDrag();
+    if (d?.keyboard) requestAnimationFrame(() => d.from?.focus());
+  };
+
+  /** Saves a drop, or asks for a reason first; says which. */
+  const drop = (d: DragState, target: CellRef): 'saved' | 'asked' | 'refused' => {
     const m = modelRef.current;
     const key = keyOf(target);
     const rating = d.ratings.get(key);
     const variant = m.variantById.get(d.source.variantId);
-    if (!rating || !variant || rating.status === 'source' || pending.has(key)) return;
+    if (!rating || !variant || rating.status === 'source' || pending.has(key)) return 'refused';
     const slot = m.slots.find((s) => s.id === target.slotId);
     if (rating.status === 'wrongLift') {
       setNotice({
         tone: 'info',
         text: `${variant.name} is a ${variant.lift} variant; ${slot?.label ?? 'this slot'} takes ${slot?.lifts.join(' or ')}.`,
       });
-      return;
+      return 'refused';
     }
     const targetEntry = m.entryAt.get(key);
     let changes: CellChange[];
     let label: string;
     let breaks: Map<CellKey, string[]>;
     if (d.source.kind === 'library') {
-      if (targetEntry?.variantId === variant.id) return;
+      if (targetEntry?.variantId === variant.id) return 'refused';
       changes = [{ ...target, variantId: variant.id, version: targetEntry?.version ?? 0 }];
       label = `${variant.name} to ${labelOf(target)}`;
       breaks = rating.status === 'break' ? new Map([[key, rating.breaks]]) : new Map();
@@ -383,7 +467,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           tone: 'info',
           text: `Cannot swap: ${backVariant.name} does not fit ${fromSlot?.label ?? from.slotId}.`,
         });
-        return;
+        return 'refused';
       }
       changes = [
         { ...target, variantId: variant.id, version: targetEntry?.version ?? 0 },
@@ -404,9 +488,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         label,
         undoable: true,
       });
-      return;
+      return 'asked';
     }
     void save(changes, label, true);
+    return 'saved';
   };
 
   const announcements: Announcements = {
@@ -455,12 +540,24 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     const box = scrollRef.current;
     const c = parseCellKey(key);
     if (!box) return;
-    const row = m.athletes.findIndex((a) => a.id === c.athleteId);
     const col = m.weeks.indexOf(c.week);
-    if (row < 0 || col < 0) return;
-    box.scrollTo({ top: row * rowHeight(m.slots.length), left: Math.max(0, col - 1) * WEEK_WIDTH });
+    if (col < 0 || !m.athleteById.has(c.athleteId)) return;
+    /** Scrolls to the cell once its row is among those shown. */
+    const place = () => {
+      const row = rowsRef.current.findIndex((a) => a.id === c.athleteId);
+      if (row >= 0) box.scrollTo({ top: row * rowHRef.current, left: Math.max(0, col - 1) * WEEK_WIDTH });
+      return row >= 0;
+    };
+    let placed = place();
+    // The athlete's row is filtered out: show everyone, then go there.
+    if (!placed) setFilter(NO_FILTER);
     let tries = 0;
     const attempt = () => {
+      if (!placed) {
+        placed = place();
+        if (tries++ < 30) requestAnimationFrame(attempt);
+        return;
+      }
       const el = box.querySelector<HTMLElement>(`[data-cell="${key}"]`);
       const target = el?.querySelector<HTMLElement>('button') ?? null;
       if (target) {
@@ -470,6 +567,23 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         return;
       }
       if (tries++ < 30) requestAnimationFrame(attempt);
+    };
+    requestAnimationFrame(attempt);
+  }, []);
+
+  /** Scrolls an athlete's row into view and puts the focus on its name. */
+  const jumpTo = useCallback((athleteId: number) => {
+    const box = scrollRef.current;
+    const row = rowsRef.current.findIndex((a) => a.id === athleteId);
+    if (!box || row < 0) return;
+    box.scrollTo({ top: row * rowHRef.current });
+    let tries = 0;
+    const attempt = () => {
+      const th = box.querySelector<HTMLElement>(`th[data-athlete="${athleteId}"]`);
+      if (th) {
+        th.focus();
+        th.scrollIntoView({ block: 'nearest' });
+      } else if (tries++ < 30) requestAnimationFrame(attempt);
     };
     requestAnimationFrame(attempt);
   }, []);
@@ -505,6 +619,16 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     requestAnimationFrame(() => goToCell(key));
   };
 
+  // The page's skip link ("Skip to the board") lands on the grid itself: hand the focus on to the first
+  // card still to plan, so one Tab and Enter reach it.
+  const onGridFocus = (e: ReactFocusEvent<HTMLDivElement>) => {
+    if (e.target !== e.currentTarget) return;
+    const box = e.currentTarget;
+    const first =
+      box.querySelector<HTMLElement>(`[${DROP_ATTR}] button`) ?? box.querySelector<HTMLElement>('[data-cell] button');
+    first?.focus();
+  };
+
   const detailCell = details ? parseCellKey(details) : null;
   const detailEntry = details ? model.entryAt.get(details) : undefined;
   const dragged = drag ? model.variantById.get(drag.source.variantId) : undefined;
@@ -527,6 +651,17 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         libraryOpen={libraryOpen}
         onToggleLibrary={() => setLibraryOpen((o) => !o)}
         extra={weekActions}
+        readOnly={phone}
+      />
+      <BoardFilters
+        filter={filter}
+        onChange={setFilter}
+        tags={tags}
+        rows={rows}
+        total={model.athletes.length}
+        onJump={jumpTo}
+        compact={compact}
+        onCompact={setCompact}
       />
       <p role="status" className="sr-only">
         {status}
@@ -573,13 +708,15 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         <GenerateReport title={report.title} result={report.result} model={model} onClose={() => setReport(null)} />
       ) : null}
       <DndContext
-        sensors={sensors}
+        sensors={phone ? NO_SENSORS : sensors}
         collisionDetection={boardCollision}
         measuring={{ droppable: { strategy: MeasuringStrategy.WhileDragging } }}
         // Scroll only when the pointer is close to the board's edge, so a drop on a cell in view stays put.
         autoScroll={{ threshold: { x: 0.08, y: 0.12 } }}
         accessibility={{
           announcements,
+          // The board puts the focus where the card went (see onDragEnd), not back on where it came from.
+          restoreFocus: false,
           screenReaderInstructions: {
             draggable:
               'To move this pick, press Space, then use the arrow keys to reach a cell; each cell says whether the drop is clean, a warning or a rule break. Press Space to drop, Escape to cancel.',
@@ -587,11 +724,14 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         }}
         onDragStart={onDragStart}
         onDragEnd={onDragEnd}
-        onDragCancel={endDrag}
+        onDragCancel={onDragCancel}
       >
         <div className="flex h-[calc(100dvh-13rem)] min-h-[28rem] overflow-hidden rounded-lg border border-ink-200 bg-chalk-100">
           <div
             ref={scrollRef}
+            id="board-grid"
+            tabIndex={-1}
+            onFocus={onGridFocus}
             // Cells brought into view land clear of the sticky names and week headings.
             style={{ scrollPaddingLeft: NAME_WIDTH + 8, scrollPaddingTop: 60 }}
             className="min-w-0 flex-1 overflow-auto"
@@ -599,6 +739,9 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           >
             <BoardGrid
               model={model}
+              rows={rows}
+              readOnly={phone}
+              compact={compact}
               ratings={shownRatings}
               pending={pending}
               flagged={flaggedKeys}
@@ -642,7 +785,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           entry={detailEntry}
           variant={detailEntry?.variantId != null ? model.variantById.get(detailEntry.variantId) : undefined}
           review={reviewOf(model, details)}
-          editable={detailCell.week >= model.editableFrom}
+          editable={!phone && detailCell.week >= model.editableFrom}
           onApply={(variantId, status, why, reason) => applyAlternative(detailCell, variantId, status, why, reason)}
           onClose={() => setDetails(null)}
           onClear={() => {
