@@ -14,6 +14,8 @@ export async function athleteNames(page: Page): Promise<string[]> {
 /** Library cards for one lift, by name. */
 export async function libraryNames(page: Page, lift: 'Squat' | 'Bench' | 'Deadlift'): Promise<string[]> {
   await library(page).getByLabel('Lift', { exact: true }).selectOption({ label: lift });
+  // The drawer draws its cards a frame after the board: read them once they are there, not before.
+  await library(page).getByRole('button', { name: /./ }).first().waitFor();
   const names = await library(page)
     .getByRole('button')
     .evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));

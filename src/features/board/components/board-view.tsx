@@ -1,36 +1,20 @@
 // The coach's board: the grid and the library inside one drag-and-drop context, live rule checks while
 // dragging, saves that show at once, reasons for rule breaks, conflicts with another coach, plan runs and undo.
 import {
-  startTransition,
   useCallback,
   useEffect,
   useLayoutEffect,
   useMemo,
+  useReducer,
   useRef,
   useState,
   useSyncExternalStore,
   type FocusEvent as ReactFocusEvent,
   type ReactNode,
 } from 'react';
-import {
-  DndContext,
-  DragOverlay,
-  MeasuringStrategy,
-  TouchSensor,
-  useSensor,
-  useSensors,
-  type Announcements,
-  type DragEndEvent,
-  type DragStartEvent,
-} from '@dnd-kit/core';
+import { DndContext, DragOverlay, MeasuringStrategy } from '@dnd-kit/core';
 import { useQueryClient } from '@tanstack/react-query';
-import type {
-  BoardData,
-  CellStatusChange,
-  GenerateBody,
-  GenerateResult,
-  PlanEntryDto,
-} from '../../../../shared/schemas';
+import type { BoardData, GenerateBody, PlanEntryDto } from '../../../../shared/schemas';
 import { Notice, PageHeader, TrainingCaution } from '../../../components/ui/page';
 import { isApiError, type ApiError } from '../../../lib/api-client';
 import { decodeConflict, decodeRuleBreak } from '../api/errors';
@@ -44,23 +28,12 @@ import {
   cellLabel,
   keyOf,
   parseCellKey,
-  prepareRatings,
   type BoardModel,
   type CellKey,
   type CellRef,
-  type DragSource,
-  type Ratings,
 } from '../model/board-model';
-import { inverseChange, pushUndo, type CellChange, type UndoItem } from '../model/changes';
-import {
-  MouseAndPenSensor,
-  OVERLAY_CLASS,
-  boardCollision,
-  BoardKeyboardSensor,
-  DROP_ATTR,
-  cellOfDndId,
-  variantOfLibraryId,
-} from '../model/dnd';
+import { inverseChange, type CellChange } from '../model/changes';
+import { OVERLAY_CLASS, boardCollision, DROP_ATTR } from '../model/dnd';
 import { needsALook, reviewOf } from '../model/review';
 import { STATUS_WORDS } from '../model/words';
 import { NO_FILTER, filterAthletes, restrictionTags, type BoardFilter } from '../model/filters';
@@ -72,9 +45,9 @@ import { ConflictNotice, type ConflictView } from './conflict-notice';
 import { GenerateReport } from './generate-report';
 import { LibraryDrawer } from './library-drawer';
 import { NeedsALook } from './needs-a-look';
-import { ReasonDialog, type ReasonAsk } from './reason-dialog';
-
-export const RATE_MEASURE = 'board:rate';
+import { ReasonDialog } from './reason-dialog';
+import { editorReducer, initialEditor, type EditorNotice, type RunKind } from './board-editor';
+import { useBoardDrag, type DragState, type DropOutcome } from './use-board-drag';
 
 const PHONE = '(max-width: 767.98px)';
 /** True on a phone-sized screen, and kept up to date when the window is resized or turned. */
@@ -89,7 +62,6 @@ function usePhone(): boolean {
     () => false,
   );
 }
-const NO_SENSORS: ReturnType<typeof useSensors> = [];
 
 const COMPACT_KEY = 'rackturn.board.compact';
 /** Compact rows, remembered on this device. */
@@ -112,39 +84,6 @@ function useCompactRows(): [boolean, (on: boolean) => void] {
   return [compact, set];
 }
 
-interface DragState {
-  source: DragSource;
-  ratings: Ratings;
-  /** Picked up with the keyboard: the focus follows the card to where it lands. */
-  keyboard: boolean;
-  /** What had the focus when the card was picked up, to go back to if it is not dropped. */
-  from: HTMLElement | null;
-}
-
-/** Puts the focus on the card in a cell once it is drawn (a save shows it at once, but a frame later). */
-function focusCard(box: HTMLElement | null, key: CellKey, fallback: HTMLElement | null, tries = 60) {
-  const card = box?.querySelector<HTMLElement>(`[data-cell="${key}"] button`);
-  if (card) card.focus();
-  else if (tries > 0) requestAnimationFrame(() => focusCard(box, key, fallback, tries - 1));
-  else fallback?.focus();
-}
-
-interface PendingAsk {
-  ask: ReasonAsk;
-  changes: CellChange[];
-  breakKeys: Set<CellKey>;
-  label: string;
-  undoable: boolean;
-}
-
-interface PendingConflict {
-  view: ConflictView;
-  changes: CellChange[];
-  label: string;
-  undoable: boolean;
-}
-
-type RunKind = 'fill' | 'meet' | 'reshuffle';
 const RUNS: Record<RunKind, { body: GenerateBody; title: string }> = {
   fill: { body: { weeks: 'next' }, title: 'Fill next week' },
   meet: { body: { weeks: 'toMeet' }, title: 'Plan to meet' },
@@ -185,28 +124,14 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const shownRef = useRef<number[]>([]);
   const saveMutation = useSavePlanEntries();
   const generateMutation = useGeneratePlan();
-  const [drag, setDrag] = useState<DragState | null>(null);
-  // The cells' badges come in a transition: drawn in slices between frames, so picking a card up never
-  // stalls the pointer, while the preview follows at once.
-  const [shownRatings, setShownRatings] = useState<Ratings | null>(null);
-  const dragRef = useRef<DragState | null>(null);
-  const [pending, setPending] = useState<ReadonlySet<CellKey>>(() => new Set());
-  const [undoStack, setUndoStack] = useState<UndoItem[]>([]);
-  const [ask, setAsk] = useState<PendingAsk | null>(null);
-  const [conflict, setConflict] = useState<PendingConflict | null>(null);
-  const [notice, setNotice] = useState<{ tone: 'error' | 'info'; text: string } | null>(null);
-  const [status, setStatus] = useState('');
-  const [busy, setBusy] = useState<RunKind | null>(null);
-  const [report, setReport] = useState<{ title: string; result: GenerateResult } | null>(null);
+  const [editor, dispatch] = useReducer(editorReducer, undefined, initialEditor);
+  const { pending, undoStack, ask, conflict, notice, status, busy, report, lookWeeks, flagged } = editor;
   const [details, setDetails] = useState<CellKey | null>(null);
   // On a phone the board is read-only (no drag; a card opens its details) and the library stays hidden,
   // so the grid has the whole width.
   const phone = usePhone();
   const [libraryWanted, setLibraryOpen] = useState(true);
   const libraryOpen = libraryWanted && !phone;
-  /** The weeks "Needs a look" covers (those of the last plan run), and cells a save changed. */
-  const [lookWeeks, setLookWeeks] = useState<string[] | null>(null);
-  const [flagged, setFlagged] = useState<ReadonlyMap<CellKey, CellStatusChange>>(() => new Map());
   const flaggedKeys = useMemo(() => new Set(flagged.keys()), [flagged]);
   const lookItems = useMemo(
     () => (lookWeeks || flagged.size ? needsALook(model, lookWeeks ?? [], flaggedKeys) : []),
@@ -262,33 +187,32 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     async (changes: CellChange[], label: string, undoable: boolean) => {
       const before = new Map(changes.map((c) => [keyOf(c), modelRef.current.entryAt.get(keyOf(c))]));
       const keys = changes.map(keyOf);
-      setPending((p) => new Set([...p, ...keys]));
-      setNotice(null);
+      dispatch({ type: 'saveStarted', keys });
       try {
         const { saved, affected } = await saveMutation.mutateAsync({ changes });
-        setFlagged((f) => {
-          const next = new Map(f);
-          for (const k of keys) next.delete(k);
-          for (const a of affected) next.set(cellKey(a.athleteId, a.week, a.slotId), a);
-          return next;
-        });
+        let notice: EditorNotice | null = null;
         if (affected.length) {
           const turned = affected.filter((a) => a.to !== 'clean').length;
-          setNotice({
+          notice = {
             tone: 'info',
             text: `This save also changed ${affected.length} other ${affected.length === 1 ? 'cell' : 'cells'}${
               turned ? ` (${turned} now ${turned === 1 ? 'needs' : 'need'} a look)` : ''
             }: ${affected.map((a) => `${labelOf(a)} is now ${STATUS_WORDS[a.to].toLowerCase()}`).join('; ')}. They are marked on the board and listed under Needs a look.`,
-          });
+          };
         }
-        if (undoable) {
-          const inverse = saved.map((e) => inverseChange(e, before.get(cellKey(e.athleteId, e.week, e.slotId))));
-          setUndoStack((s) => pushUndo(s, { label, changes: inverse }));
-        }
-        setStatus(`Saved: ${label}.`);
+        const undo = undoable
+          ? {
+              label,
+              changes: saved.map((e) => inverseChange(e, before.get(cellKey(e.athleteId, e.week, e.slotId)))),
+            }
+          : null;
+        dispatch({ type: 'saved', keys, affected, notice, undo, status: `Saved: ${label}.` });
       } catch (err) {
         if (isApiError(err, 409)) {
-          setConflict({ view: conflictView(err, changes, label), changes, label, undoable });
+          dispatch({
+            type: 'conflict',
+            conflict: { view: conflictView(err, changes, label), changes, label, undoable },
+          });
           await queryClient.invalidateQueries({ queryKey: planKeys.boards() });
         } else if (isApiError(err, 422) && err.code === 'rule_break') {
           const violations = decodeRuleBreak(err);
@@ -297,22 +221,28 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
             const k = cellKey(v.athleteId, v.week, v.slotId);
             byCell.set(k, [...(byCell.get(k) ?? []), v.message]);
           }
-          setAsk({
+          dispatch({
+            type: 'ask',
             ask: {
+              ask: {
+                label,
+                breaks: [...byCell].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })),
+              },
+              changes,
+              breakKeys: new Set(byCell.keys()),
               label,
-              breaks: [...byCell].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })),
+              undoable,
             },
-            changes,
-            breakKeys: new Set(byCell.keys()),
-            label,
-            undoable,
           });
         } else {
           const why = err instanceof Error ? err.message : 'unknown error';
-          setNotice({ tone: 'error', text: `Not saved (${label}): ${why} The board shows what is stored.` });
+          dispatch({
+            type: 'notice',
+            notice: { tone: 'error', text: `Not saved (${label}): ${why} The board shows what is stored.` },
+          });
         }
       } finally {
-        setPending((p) => new Set([...p].filter((k) => !keys.includes(k))));
+        dispatch({ type: 'saveEnded', keys });
       }
     },
     [saveMutation, conflictView, queryClient, labelOf],
@@ -321,7 +251,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const undo = useCallback(() => {
     const item = undoStack[undoStack.length - 1];
     if (!item) return;
-    setUndoStack((s) => s.slice(0, -1));
+    dispatch({ type: 'undoTaken' });
     void save(item.changes, `undo ${item.label}`, false);
   }, [undoStack, save]);
 
@@ -340,101 +270,28 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
 
   const run = useCallback(
     async (kind: RunKind) => {
-      setBusy(kind);
-      setNotice(null);
+      dispatch({ type: 'runStarted', kind });
       try {
         const result = await generateMutation.mutateAsync(RUNS[kind].body);
-        setReport({ title: RUNS[kind].title, result });
-        setLookWeeks(result.weeks);
-        setUndoStack((s) =>
-          pushUndo(s, {
-            label: RUNS[kind].title,
-            changes: result.changes.map((c) => inverseChange(c.entry, c.previous)),
-          }),
-        );
-        setStatus(`${RUNS[kind].title}: ${result.changes.length} cells changed, ${result.unfilled.length} not filled.`);
+        dispatch({
+          type: 'ran',
+          title: RUNS[kind].title,
+          result,
+          undo: { label: RUNS[kind].title, changes: result.changes.map((c) => inverseChange(c.entry, c.previous)) },
+          status: `${RUNS[kind].title}: ${result.changes.length} cells changed, ${result.unfilled.length} not filled.`,
+        });
       } catch (err) {
         const why = err instanceof Error ? err.message : 'unknown error';
-        setNotice({ tone: 'error', text: `${RUNS[kind].title} did not run: ${why}` });
+        dispatch({ type: 'notice', notice: { tone: 'error', text: `${RUNS[kind].title} did not run: ${why}` } });
       } finally {
-        setBusy(null);
+        dispatch({ type: 'runEnded' });
       }
     },
     [generateMutation],
   );
 
-  // ---- dragging ----
-
-  const sensors = useSensors(
-    useSensor(MouseAndPenSensor, { activationConstraint: { distance: 5 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 180, tolerance: 6 } }),
-    useSensor(BoardKeyboardSensor, {
-      // Enter opens a card's details; Space picks it up.
-      keyboardCodes: { start: ['Space'], cancel: ['Escape'], end: ['Space', 'Enter'] },
-    }),
-  );
-
-  const sourceOf = (id: string | number): DragSource | null => {
-    const m = modelRef.current;
-    const variantId = variantOfLibraryId(id);
-    if (variantId !== null) return { kind: 'library', variantId };
-    const cell = cellOfDndId(id);
-    const entry = cell ? m.entryAt.get(keyOf(cell)) : undefined;
-    if (cell && entry?.variantId != null) return { kind: 'cell', cell, variantId: entry.variantId, entry };
-    return null;
-  };
-
-  const onDragStart = ({ active, activatorEvent }: DragStartEvent) => {
-    const source = sourceOf(active.id);
-    if (!source) return;
-    // The engine is prepared once for this drag and judges every target cell on screen now; cells that
-    // scroll into view later are judged as they appear.
-    const m = modelRef.current;
-    performance.mark(`${RATE_MEASURE}:start`);
-    const ratings = prepareRatings(m, source);
-    const shown = new Set(shownRef.current);
-    for (const t of m.targets) if (shown.has(t.athleteId)) ratings.get(keyOf(t));
-    performance.measure(RATE_MEASURE, `${RATE_MEASURE}:start`);
-    const next = {
-      source,
-      ratings,
-      keyboard: activatorEvent instanceof KeyboardEvent,
-      from: document.activeElement instanceof HTMLElement ? document.activeElement : null,
-    };
-    dragRef.current = next;
-    setDrag(next);
-    startTransition(() => setShownRatings(ratings));
-  };
-
-  // The Space or click that ends a drag must not also open the card it lands on.
-  const lastDragEnd = useRef(0);
-  const endDrag = () => {
-    dragRef.current = null;
-    lastDragEnd.current = performance.now();
-    setDrag(null);
-    startTransition(() => setShownRatings(null));
-  };
-
-  const onDragEnd = ({ over }: DragEndEvent) => {
-    const d = dragRef.current;
-    endDrag();
-    const target = cellOfDndId(over?.id);
-    if (!d) return;
-    const outcome = target ? drop(d, target) : 'refused';
-    if (!d.keyboard || outcome === 'asked') return;
-    // A keyboard drop keeps the focus on the cell it landed on; a refused one goes back to the card.
-    if (outcome === 'saved' && target) focusCard(scrollRef.current, keyOf(target), d.from);
-    else requestAnimationFrame(() => d.from?.focus());
-  };
-
-  const onDragCancel = () => {
-    const d = dragRef.current;
-    endDrag();
-    if (d?.keyboard) requestAnimationFrame(() => d.from?.focus());
-  };
-
   /** Saves a drop, or asks for a reason first; says which. */
-  const drop = (d: DragState, target: CellRef): 'saved' | 'asked' | 'refused' => {
+  const drop = (d: DragState, target: CellRef): DropOutcome => {
     const m = modelRef.current;
     const key = keyOf(target);
     const rating = d.ratings.get(key);
@@ -442,9 +299,12 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     if (!rating || !variant || rating.status === 'source' || pending.has(key)) return 'refused';
     const slot = m.slots.find((s) => s.id === target.slotId);
     if (rating.status === 'wrongLift') {
-      setNotice({
-        tone: 'info',
-        text: `${variant.name} is a ${variant.lift} variant; ${slot?.label ?? 'this slot'} takes ${slot?.lifts.join(' or ')}.`,
+      dispatch({
+        type: 'notice',
+        notice: {
+          tone: 'info',
+          text: `${variant.name} is a ${variant.lift} variant; ${slot?.label ?? 'this slot'} takes ${slot?.lifts.join(' or ')}.`,
+        },
       });
       return 'refused';
     }
@@ -463,9 +323,12 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       const backVariant = back === null ? undefined : m.variantById.get(back);
       const fromSlot = m.slots.find((s) => s.id === from.slotId);
       if (backVariant && !fromSlot?.lifts.includes(backVariant.lift)) {
-        setNotice({
-          tone: 'info',
-          text: `Cannot swap: ${backVariant.name} does not fit ${fromSlot?.label ?? from.slotId}.`,
+        dispatch({
+          type: 'notice',
+          notice: {
+            tone: 'info',
+            text: `Cannot swap: ${backVariant.name} does not fit ${fromSlot?.label ?? from.slotId}.`,
+          },
         });
         return 'refused';
       }
@@ -481,12 +344,15 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       ]);
     }
     if (breaks.size) {
-      setAsk({
-        ask: { label, breaks: [...breaks].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })) },
-        changes,
-        breakKeys: new Set(breaks.keys()),
-        label,
-        undoable: true,
+      dispatch({
+        type: 'ask',
+        ask: {
+          ask: { label, breaks: [...breaks].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })) },
+          changes,
+          breakKeys: new Set(breaks.keys()),
+          label,
+          undoable: true,
+        },
       });
       return 'asked';
     }
@@ -494,32 +360,15 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     return 'saved';
   };
 
-  const announcements: Announcements = {
-    onDragStart: ({ active }) => {
-      const s = sourceOf(active.id);
-      const name = s ? variantName(s.variantId) : 'the card';
-      return `Picked up ${name}. Arrow keys move between cells and say whether a drop is clean; Space drops it, Escape puts it back.`;
-    },
-    onDragOver: ({ active, over }) => {
-      const s = dragRef.current?.source;
-      const name = s ? variantName(s.variantId) : String(active.id);
-      const cell = cellOfDndId(over?.id);
-      if (!cell) return `${name} is not over a cell.`;
-      const r = dragRef.current?.ratings.get(keyOf(cell));
-      const why = r ? [...r.breaks, ...r.warnings][0] : undefined;
-      return `${labelOf(cell)}: ${r ? STATUS_WORDS[r.status] : 'not a target'}${why ? ` (${why})` : ''}.`;
-    },
-    onDragEnd: ({ active, over }) => {
-      const cell = cellOfDndId(over?.id);
-      const s = sourceOf(active.id);
-      const name = s ? variantName(s.variantId) : 'The card';
-      return cell ? `${name} dropped on ${labelOf(cell)}.` : `${name} was not dropped on a cell and went back.`;
-    },
-    onDragCancel: ({ active }) => {
-      const s = sourceOf(active.id);
-      return `Cancelled: ${s ? variantName(s.variantId) : 'the card'} went back.`;
-    },
-  };
+  const dragging = useBoardDrag({
+    modelRef,
+    shownRef,
+    scrollRef,
+    labelOf,
+    variantName,
+    onDrop: drop,
+    disabled: phone,
+  });
 
   // Opens with one past week to the left of this week, so the weeks still to plan are in view on a
   // tablet too. Set before the first paint (no jump); the layout it needs is the one that paint needs.
@@ -530,10 +379,14 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
-  const openDetails = useCallback((key: CellKey) => {
-    if (dragRef.current || performance.now() - lastDragEnd.current < 400) return;
-    setDetails(key);
-  }, []);
+  const { justDragged } = dragging;
+  const openDetails = useCallback(
+    (key: CellKey) => {
+      if (justDragged()) return;
+      setDetails(key);
+    },
+    [justDragged],
+  );
   /** Brings a cell into view (its row may not be drawn yet) and puts the focus on its card. */
   const goToCell = useCallback((key: CellKey, then?: () => void) => {
     const m = modelRef.current;
@@ -605,12 +458,15 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     ];
     setDetails(null);
     if (status === 'break' && !reason) {
-      setAsk({
-        ask: { label, breaks: [{ cell: labelOf(cell), rules: why }] },
-        changes,
-        breakKeys: new Set([key]),
-        label,
-        undoable: true,
+      dispatch({
+        type: 'ask',
+        ask: {
+          ask: { label, breaks: [{ cell: labelOf(cell), rules: why }] },
+          changes,
+          breakKeys: new Set([key]),
+          label,
+          undoable: true,
+        },
       });
       return;
     }
@@ -631,7 +487,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
 
   const detailCell = details ? parseCellKey(details) : null;
   const detailEntry = details ? model.entryAt.get(details) : undefined;
-  const dragged = drag ? model.variantById.get(drag.source.variantId) : undefined;
+  const dragged = dragging.drag ? model.variantById.get(dragging.drag.source.variantId) : undefined;
   const top = undoStack[undoStack.length - 1];
 
   return (
@@ -670,10 +526,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         <ConflictNotice
           conflict={conflict.view}
           busy={saveMutation.isPending}
-          onDismiss={() => setConflict(null)}
+          onDismiss={() => dispatch({ type: 'conflict', conflict: null })}
           onReapply={() => {
             const c = conflict;
-            setConflict(null);
+            dispatch({ type: 'conflict', conflict: null });
             const m = modelRef.current;
             const again = c.changes.map((ch) => ({ ...ch, version: m.entryAt.get(keyOf(ch))?.version ?? 0 }));
             void save(again, c.label, c.undoable);
@@ -699,22 +555,26 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           // To the cell, with its details open on "What fits here"; closing them leaves the focus on the card.
           onGo={(key) => goToCell(key, () => setDetails(key))}
           onClose={() => {
-            setLookWeeks(null);
-            setFlagged(new Map());
+            dispatch({ type: 'lookClosed' });
           }}
         />
       ) : null}
       {report ? (
-        <GenerateReport title={report.title} result={report.result} model={model} onClose={() => setReport(null)} />
+        <GenerateReport
+          title={report.title}
+          result={report.result}
+          model={model}
+          onClose={() => dispatch({ type: 'reportClosed' })}
+        />
       ) : null}
       <DndContext
-        sensors={phone ? NO_SENSORS : sensors}
+        sensors={dragging.sensors}
         collisionDetection={boardCollision}
         measuring={{ droppable: { strategy: MeasuringStrategy.WhileDragging } }}
         // Scroll only when the pointer is close to the board's edge, so a drop on a cell in view stays put.
         autoScroll={{ threshold: { x: 0.08, y: 0.12 } }}
         accessibility={{
-          announcements,
+          announcements: dragging.announcements,
           // The board puts the focus where the card went (see onDragEnd), not back on where it came from.
           restoreFocus: false,
           screenReaderInstructions: {
@@ -722,9 +582,9 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
               'To move this pick, press Space, then use the arrow keys to reach a cell; each cell says whether the drop is clean, a warning or a rule break. Press Space to drop, Escape to cancel.',
           },
         }}
-        onDragStart={onDragStart}
-        onDragEnd={onDragEnd}
-        onDragCancel={onDragCancel}
+        onDragStart={dragging.onDragStart}
+        onDragEnd={dragging.onDragEnd}
+        onDragCancel={dragging.onDragCancel}
       >
         <div className="flex h-[calc(100dvh-13rem)] min-h-[28rem] overflow-hidden rounded-lg border border-ink-200 bg-chalk-100">
           <div
@@ -742,7 +602,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
               rows={rows}
               readOnly={phone}
               compact={compact}
-              ratings={shownRatings}
+              ratings={dragging.shownRatings}
               pending={pending}
               flagged={flaggedKeys}
               onOpen={openDetails}
@@ -768,10 +628,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         <ReasonDialog
           ask={ask.ask}
           saving={saveMutation.isPending}
-          onCancel={() => setAsk(null)}
+          onCancel={() => dispatch({ type: 'ask', ask: null })}
           onSubmit={(reason) => {
             const a = ask;
-            setAsk(null);
+            dispatch({ type: 'ask', ask: null });
             const changes = a.changes.map((c) => (a.breakKeys.has(keyOf(c)) ? { ...c, reason, pinned: true } : c));
             void save(changes, a.label, a.undoable);
           }}
