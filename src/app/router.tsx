@@ -2,7 +2,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
 import { ANY_ROLE, ATHLETE, HEAD_COACH, STAFF, homeFor, requireUser, type LoaderMaker } from './guards';
-import { AppLayout } from './routes/app-layout';
+import { AppLayout, type PageHandle } from './routes/app-layout';
 import { RouteError } from './routes/route-error';
 import { NotFound } from './routes/not-found';
 import { makeLoader as myWeekLoader } from './routes/my-week.loader';
@@ -70,7 +70,11 @@ export function createAppRouter(queryClient: QueryClient) {
               index: true,
               loader: async ({ request }) => redirect(homeFor(await requireUser(queryClient, request))),
             },
-            { path: 'board', ...page(queryClient, STAFF, () => import('./routes/board')) },
+            {
+              path: 'board',
+              ...page(queryClient, STAFF, () => import('./routes/board')),
+              handle: { skipLink: { href: '#board-grid', label: 'Skip to the board' } } satisfies PageHandle,
+            },
             { path: 'library', ...page(queryClient, STAFF, () => import('./routes/library')) },
             { path: 'roster', ...page(queryClient, STAFF, () => import('./routes/roster')) },
             { path: 'athletes/:athleteId', ...page(queryClient, STAFF, () => import('./routes/athlete')) },

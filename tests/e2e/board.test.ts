@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Locator, Page, Response } from 'playwright-core';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
-import { athleteNames, cell, library, libraryNames, mouseDrag, showOnly } from './support/board';
+import { athleteNames, cell, keyboardTo, library, libraryNames, mouseDrag, showOnly } from './support/board';
 import { openBrowser, signInAs, type Browser } from './support/browser';
 
 const thisWeek = weekOfDate(new Date());
@@ -232,41 +232,3 @@ describe('the board', () => {
     expect(b.problems.filter((p) => !/409|422/.test(p))).toEqual([]);
   });
 });
-
-/**
- * Moves a keyboard drag to the cell named `label`, one arrow key at a time, steering by what dnd-kit's
- * live region announces after each key. Returns the last announcement.
- */
-async function keyboardTo(page: Page, label: string, athletes: string[]): Promise<string> {
-  const slots = [LOWER, UPPER];
-  const [athlete, week, slot] = label.split(' · ');
-  const want = { athlete: athlete!, week: week!, slot: slot! };
-  const pos = (c: { athlete: string; slot: string }) =>
-    athletes.indexOf(c.athlete) * slots.length + slots.indexOf(c.slot);
-  let said = await announced(page);
-  let key = 'ArrowLeft';
-  for (let i = 0; i < 80; i++) {
-    await page.keyboard.press(key);
-    let next = said;
-    for (let wait = 0; wait < 20 && next === said; wait++) {
-      await page.waitForTimeout(50);
-      next = await announced(page);
-    }
-    said = next;
-    const at = parse(said);
-    if (!at) continue; // no announcement yet: press again
-    if (at.week === want.week && at.athlete === want.athlete && at.slot === want.slot) return said;
-    if (at.week !== want.week) key = at.week > want.week ? 'ArrowLeft' : 'ArrowRight';
-    else key = pos(at) > pos(want) ? 'ArrowUp' : 'ArrowDown';
-  }
-  throw new Error(`could not reach ${label}; last heard: ${said}`);
-}
-
-function parse(text: string): { athlete: string; week: string; slot: string } | null {
-  const m = /^(.+?) · (\d{4}-W\d{2}) · (.+?): /.exec(text);
-  return m ? { athlete: m[1]!, week: m[2]!, slot: m[3]! } : null;
-}
-
-async function announced(page: Page): Promise<string> {
-  return page.evaluate(() => document.querySelector('[id^="DndLiveRegion"]')?.textContent ?? '');
-}

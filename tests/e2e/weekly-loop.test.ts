@@ -145,13 +145,27 @@ describe('the weekly loop', () => {
     await athlete.page.screenshot({ path: '.tmp/e2e-loop-athlete-after.png', fullPage: true });
   });
 
-  it('on a phone the board opens with the library hidden, so the grid has the width', async () => {
+  it('on a phone the board is read-only with the library hidden: no drag, a pick opens its details', async () => {
     const phone = await openBrowser({ width: 390, height: 844 });
     try {
       await signInAs(phone, 'coach@rackturn.test');
       await phone.page.getByRole('table').waitFor();
       await expect(phone.page.getByRole('complementary', { name: 'Library' }).count()).resolves.toBe(0);
-      await expect(phone.page.getByRole('button', { name: 'Show library' }).isVisible()).resolves.toBe(true);
+      await expect(phone.page.getByRole('button', { name: 'Show library' }).count()).resolves.toBe(0);
+      await expect(phone.page.getByRole('button', { name: 'Fill next week' }).count()).resolves.toBe(0);
+      await phone.page.getByText('On a phone the board is read-only').waitFor();
+      // Nothing can be picked up or dropped on.
+      await expect(phone.page.locator('[aria-roledescription="movable pick"], [data-drop-id]').count()).resolves.toBe(
+        0,
+      );
+      // A pick this week opens its details, with nothing to apply from there.
+      const pick = phone.page.locator(`[data-cell*="|${weekOfDate(new Date())}|"] button`).first();
+      await pick.click();
+      const details = phone.page.getByRole('dialog');
+      await details.waitFor();
+      await expect(details.getByRole('button', { name: /^Use / }).count()).resolves.toBe(0);
+      expect(await axeViolations(phone.page)).toEqual([]);
+      await details.getByRole('button', { name: 'Close' }).first().click();
       await phone.page.screenshot({ path: '.tmp/e2e-loop-board-390.png' });
     } finally {
       await phone.close();

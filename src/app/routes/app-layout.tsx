@@ -1,6 +1,8 @@
 // The signed-in frame: the ink-blue bar with the role's navigation, and the page below it.
-import { NavLink, Outlet, useNavigation } from 'react-router-dom';
+import type { MouseEvent } from 'react';
+import { NavLink, Outlet, useMatches, useNavigation } from 'react-router-dom';
 import type { Role } from '../../../shared/schemas';
+import { SKIP_LINK_CLASS } from '../../components/ui/page';
 import { useMe } from '../../features/auth/api/queries';
 import { useSignOut } from '../../features/auth/api/use-sign-out';
 import { AccountMenu } from '../../features/auth/components/account-menu';
@@ -17,15 +19,38 @@ const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/my-fee', label: 'Coaching fee', roles: ['athlete'] },
 ];
 
+/** What a route may tell the frame: a skip link of its own, offered before "Skip to main content". */
+export interface PageHandle {
+  skipLink?: { href: string; label: string };
+}
+
+/** Moves the focus to the link's target itself (not only the scroll position), without touching the URL. */
+function skipTo(e: MouseEvent<HTMLAnchorElement>) {
+  const target = document.querySelector(e.currentTarget.hash);
+  if (!(target instanceof HTMLElement)) return;
+  e.preventDefault();
+  target.focus();
+}
+
 export function AppLayout() {
   const { data: me } = useMe();
   const signOut = useSignOut();
   const navigation = useNavigation();
+  const skipLinks = useMatches().flatMap((m) => (m.handle as PageHandle | undefined)?.skipLink ?? []);
   if (!me) return null;
   const links = NAV.filter((n) => n.roles.includes(me.role));
 
   return (
     <div className="min-h-dvh">
+      {/* The first stops for the Tab key: the page's own skip link (the board has one), then the main content. */}
+      {skipLinks.map((s) => (
+        <a key={s.href} href={s.href} onClick={skipTo} className={SKIP_LINK_CLASS}>
+          {s.label}
+        </a>
+      ))}
+      <a href="#main" onClick={skipTo} className={SKIP_LINK_CLASS}>
+        Skip to main content
+      </a>
       <header className="bg-ink-900 text-chalk-100 print:hidden">
         <div className="mx-auto flex max-w-screen-2xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <NavLink to="/" className="flex items-center gap-2 text-xl font-bold tracking-wide text-chalk-50">
@@ -69,7 +94,7 @@ export function AppLayout() {
           <div className="h-0.5" />
         )}
       </header>
-      <main className="mx-auto max-w-screen-2xl px-3 py-4 sm:px-6 sm:py-6">
+      <main id="main" tabIndex={-1} className="mx-auto outline-none max-w-screen-2xl px-3 py-4 sm:px-6 sm:py-6">
         <Outlet />
       </main>
     </div>

@@ -2,6 +2,10 @@
 import type { ReactNode } from 'react';
 import { WarningIcon } from './icons';
 
+/** A skip link: hidden until it has the focus, then shown over the top left corner. */
+export const SKIP_LINK_CLASS =
+  'sr-only focus:not-sr-only focus:fixed focus:left-2 focus:top-2 focus:z-50 focus:rounded-md focus:bg-chalk-50 focus:px-3 focus:py-2 focus:font-semibold focus:text-ink-900 focus:shadow-lg';
+
 export function PageHeader({ title, subtitle, actions }: { title: string; subtitle?: ReactNode; actions?: ReactNode }) {
   return (
     <div className="mb-4 flex flex-wrap items-end justify-between gap-3">

@@ -7,6 +7,7 @@ import { SortableContext } from '@dnd-kit/sortable';
 import { BreakIcon, CleanIcon, WarningIcon } from '../../../components/ui/icons';
 import { restrictionTag } from '../../../../shared/planning/words';
 import { BOARD_DATA_MARK } from '../api/queries';
+import type { BoardAthlete } from '../../../../shared/schemas';
 import { cellKey, type AthleteView, type BoardModel, type CellKey, type Ratings } from '../model/board-model';
 import { cellDndId } from '../model/dnd';
 import { reviewOf } from '../model/review';
@@ -32,7 +33,7 @@ export const BOARD_PAINT_MEASURE = 'board:paint';
  * Every athlete row has the same height (its slots and the joint strip), so rows far off screen can be
  * left out of the document and replaced by one spacer of the right height.
  */
-export const rowHeight = (slots: number) => 68 + 62 * slots; // 24 of it for the rest-week line
+export const rowHeight = (slots: number, compact = false) => (compact ? 12 + 40 * slots : 80 + 62 * slots); // 24 of it for the rest-week line, 12 for joint names
 const HEAD_HEIGHT = 52;
 /** Rows kept in the document beyond the visible ones, above and below (px). */
 const OVERSCAN = 200;
@@ -77,6 +78,12 @@ function useRowWindow(scrollRef: RefObject<HTMLElement | null>, rows: number, ro
 
 interface GridProps {
   model: BoardModel;
+  /** The athletes whose rows are shown (all of them, or those the filters keep), in board order. */
+  rows: readonly BoardAthlete[];
+  /** On a phone: nothing to drop on, cells only open their details. */
+  readOnly: boolean;
+  /** Compact rows: one line per pick, no joint strip or rest-week line, so more athletes fit on screen. */
+  compact: boolean;
   ratings: Ratings | null;
   pending: ReadonlySet<CellKey>;
   /** Cells whose status the last save changed. */
@@ -89,6 +96,9 @@ interface GridProps {
 
 export const BoardGrid = memo(function BoardGrid({
   model,
+  rows,
+  readOnly,
+  compact,
   ratings,
   pending,
   flagged,
@@ -107,26 +117,27 @@ export const BoardGrid = memo(function BoardGrid({
     requestAnimationFrame(() => setTimeout(() => performance.measure(BOARD_PAINT_MEASURE, { start: arrived })));
   }, [model]);
 
-  const rowH = rowHeight(model.slots.length);
-  const [start, end] = useRowWindow(scrollRef, model.athletes.length, rowH);
-  const shown = model.athletes.slice(start, end);
+  const rowH = rowHeight(model.slots.length, compact);
+  const [start, end] = useRowWindow(scrollRef, rows.length, rowH);
+  const shown = rows.slice(start, end);
   useEffect(() => {
-    shownRef.current = model.athletes.slice(start, end).map((a) => a.id);
-  }, [model.athletes, start, end, shownRef]);
+    shownRef.current = rows.slice(start, end).map((a) => a.id);
+  }, [rows, start, end, shownRef]);
   const targetIds = useMemo(() => {
     const ids = new Set(shown.map((a) => a.id));
     return model.targets.filter((t) => ids.has(t.athleteId)).map(cellDndId);
     // `shown` is derived from these three.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [model.targets, model.athletes, start, end]);
+  }, [model.targets, rows, start, end]);
 
   const current = model.data.currentWeek;
   const cols = model.weeks.length + 1;
   return (
     <SortableContext id="board" items={targetIds} strategy={noSorting}>
       <table
-        className="w-max table-fixed border-separate border-spacing-0 text-left"
-        aria-rowcount={model.athletes.length + 1}
+        data-compact={compact}
+        className="group/board w-max table-fixed border-separate border-spacing-0 text-left"
+        aria-rowcount={rows.length + 1}
       >
         <caption className="sr-only">
           Plan by athlete and week. Past weeks are read-only; drag a card from the library or from another cell onto a
@@ -174,6 +185,13 @@ export const BoardGrid = memo(function BoardGrid({
           </tr>
         </thead>
         <tbody>
+          {rows.length === 0 ? (
+            <tr>
+              <td colSpan={cols} className="sticky left-0 p-4 text-ink-700">
+                No athlete matches these filters.
+              </td>
+            </tr>
+          ) : null}
           {start > 0 ? (
             <tr aria-hidden style={{ height: start * rowH }}>
               <td colSpan={cols} />
@@ -189,11 +207,12 @@ export const BoardGrid = memo(function BoardGrid({
               ratings={ratings}
               pending={pending}
               flagged={flagged}
+              readOnly={readOnly}
               onOpen={onOpen}
             />
           ))}
-          {end < model.athletes.length ? (
-            <tr aria-hidden style={{ height: (model.athletes.length - end) * rowH }}>
+          {end < rows.length ? (
+            <tr aria-hidden style={{ height: (rows.length - end) * rowH }}>
               <td colSpan={cols} />
             </tr>
           ) : null}
@@ -210,7 +229,7 @@ function PeakLine({ view }: { view: AthleteView }) {
   const Icon = state === 'breach' ? BreakIcon : state === 'caution' ? WarningIcon : CleanIcon;
   const tone = state === 'breach' ? 'text-breach-700' : state === 'caution' ? 'text-caution-700' : 'text-clean-700';
   return (
-    <span className={`mt-1 flex items-center gap-1 text-xs ${tone}`}>
+    <span className={`mt-1 flex items-center gap-1 text-xs group-data-[compact=true]/board:hidden ${tone}`}>
       <Icon width={13} height={13} />
       Peak load: {jointWords(p.joint)} {percent(p.ratio)} ({shortWeek(p.week)})
     </span>
@@ -225,6 +244,7 @@ interface RowProps {
   ratings: Ratings | null;
   pending: ReadonlySet<CellKey>;
   flagged: ReadonlySet<CellKey>;
+  readOnly: boolean;
   onOpen: (key: CellKey) => void;
 }
 
@@ -236,6 +256,7 @@ const AthleteRow = memo(function AthleteRow({
   ratings,
   pending,
   flagged,
+  readOnly,
   onOpen,
 }: RowProps) {
   const a = view.athlete;
@@ -244,6 +265,8 @@ const AthleteRow = memo(function AthleteRow({
     <tr className="align-top" aria-rowindex={index + 2} style={{ height }}>
       <th
         scope="row"
+        tabIndex={-1}
+        data-athlete={a.id}
         className="sticky left-0 z-10 overflow-hidden border-b border-r border-ink-200 bg-chalk-50 px-2 py-2 text-left font-normal"
       >
         <span className="block font-semibold text-ink-900">{a.name}</span>
@@ -265,7 +288,7 @@ const AthleteRow = memo(function AthleteRow({
         <PeakLine view={view} />
         {view.loads[0]?.length ? (
           <span
-            className="absolute bottom-1.5 left-2 text-[10px] font-semibold uppercase tracking-wide text-ink-400"
+            className="absolute bottom-1.5 left-2 group-data-[compact=true]/board:hidden text-[10px] font-semibold uppercase tracking-wide text-ink-500"
             title={`Bars per week, left to right: ${view.loads[0].map((p) => jointWords(p.joint)).join(', ')}; the line is the budget`}
           >
             Joint load ▸
@@ -277,7 +300,7 @@ const AthleteRow = memo(function AthleteRow({
         return (
           <td
             key={week}
-            className={`space-y-2 border-b border-ink-200 px-1 pb-1 pt-2 ${
+            className={`space-y-2 border-b border-ink-200 px-1 pb-1 pt-2 group-data-[compact=true]/board:space-y-1 group-data-[compact=true]/board:pt-1 ${
               past
                 ? 'bg-chalk-200/70'
                 : week === current
@@ -285,7 +308,9 @@ const AthleteRow = memo(function AthleteRow({
                   : 'bg-chalk-100'
             }`}
           >
-            <RestWeekControl athlete={a} week={week} editable={!past} />
+            <div className="group-data-[compact=true]/board:hidden">
+              <RestWeekControl athlete={a} week={week} editable={!past && !readOnly} />
+            </div>
             {model.slots.map((slot) => {
               const key = cellKey(a.id, week, slot.id);
               const entry = model.entryAt.get(key);
@@ -302,13 +327,15 @@ const AthleteRow = memo(function AthleteRow({
                 flagged: flagged.has(key),
                 onOpen,
               };
-              return past ? (
-                <PastSlot key={slot.id} {...props} />
+              return past || readOnly ? (
+                <PastSlot key={slot.id} {...props} past={past} />
               ) : (
                 <EditableSlot key={slot.id} {...props} rating={ratings?.get(key)} pending={pending.has(key)} />
               );
             })}
-            <JointBars points={view.loads[wi] ?? []} week={week} />
+            <div className="group-data-[compact=true]/board:hidden">
+              <JointBars points={view.loads[wi] ?? []} week={week} />
+            </div>
           </td>
         );
       })}

@@ -13,7 +13,10 @@ export function BoardToolbar({
   libraryOpen,
   onToggleLibrary,
   extra,
+  readOnly = false,
 }: {
+  /** On a phone: no planning from here, only a word on why. */
+  readOnly?: boolean;
   busy: 'fill' | 'meet' | 'reshuffle' | null;
   onFill: () => void;
   onPlanToMeet: () => void;
@@ -26,6 +29,14 @@ export function BoardToolbar({
   /** Further actions for the planned weeks (such as publishing a week) go here, after the planning ones. */
   extra?: ReactNode;
 }) {
+  if (readOnly) {
+    return (
+      <p className="mb-3 rounded-md border border-ink-200 bg-chalk-50 p-3 text-sm text-ink-800">
+        On a phone the board is read-only: tap a pick to see it and its reasons. Plan and publish on a tablet or a
+        computer.
+      </p>
+    );
+  }
   return (
     <div aria-label="Board actions" role="group" className="mb-3 flex flex-wrap items-center gap-2">
       <Button onClick={onFill} disabled={busy !== null}>

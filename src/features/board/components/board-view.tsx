@@ -1,34 +1,20 @@
 // The coach's board: the grid and the library inside one drag-and-drop context, live rule checks while
 // dragging, saves that show at once, reasons for rule breaks, conflicts with another coach, plan runs and undo.
 import {
-  startTransition,
   useCallback,
   useEffect,
   useLayoutEffect,
   useMemo,
+  useReducer,
   useRef,
   useState,
+  useSyncExternalStore,
+  type FocusEvent as ReactFocusEvent,
   type ReactNode,
 } from 'react';
-import {
-  DndContext,
-  DragOverlay,
-  MeasuringStrategy,
-  TouchSensor,
-  useSensor,
-  useSensors,
-  type Announcements,
-  type DragEndEvent,
-  type DragStartEvent,
-} from '@dnd-kit/core';
+import { DndContext, DragOverlay, MeasuringStrategy } from '@dnd-kit/core';
 import { useQueryClient } from '@tanstack/react-query';
-import type {
-  BoardData,
-  CellStatusChange,
-  GenerateBody,
-  GenerateResult,
-  PlanEntryDto,
-} from '../../../../shared/schemas';
+import type { BoardData, GenerateBody, PlanEntryDto } from '../../../../shared/schemas';
 import { Notice, PageHeader, TrainingCaution } from '../../../components/ui/page';
 import { isApiError, type ApiError } from '../../../lib/api-client';
 import { decodeConflict, decodeRuleBreak } from '../api/errors';
@@ -42,24 +28,16 @@ import {
   cellLabel,
   keyOf,
   parseCellKey,
-  prepareRatings,
   type BoardModel,
   type CellKey,
   type CellRef,
-  type DragSource,
-  type Ratings,
 } from '../model/board-model';
-import { inverseChange, pushUndo, type CellChange, type UndoItem } from '../model/changes';
-import {
-  MouseAndPenSensor,
-  OVERLAY_CLASS,
-  boardCollision,
-  BoardKeyboardSensor,
-  cellOfDndId,
-  variantOfLibraryId,
-} from '../model/dnd';
+import { inverseChange, type CellChange } from '../model/changes';
+import { OVERLAY_CLASS, boardCollision, DROP_ATTR } from '../model/dnd';
 import { needsALook, reviewOf } from '../model/review';
 import { STATUS_WORDS } from '../model/words';
+import { NO_FILTER, filterAthletes, restrictionTags, type BoardFilter } from '../model/filters';
+import { BoardFilters } from './board-filters';
 import { BoardGrid, NAME_WIDTH, WEEK_WIDTH, rowHeight } from './board-grid';
 import { BoardToolbar } from './board-toolbar';
 import { CellDetails } from './cell-details';
@@ -67,31 +45,45 @@ import { ConflictNotice, type ConflictView } from './conflict-notice';
 import { GenerateReport } from './generate-report';
 import { LibraryDrawer } from './library-drawer';
 import { NeedsALook } from './needs-a-look';
-import { ReasonDialog, type ReasonAsk } from './reason-dialog';
+import { ReasonDialog } from './reason-dialog';
+import { editorReducer, initialEditor, type EditorNotice, type RunKind } from './board-editor';
+import { useBoardDrag, type DragState, type DropOutcome } from './use-board-drag';
 
-export const RATE_MEASURE = 'board:rate';
-
-interface DragState {
-  source: DragSource;
-  ratings: Ratings;
+const PHONE = '(max-width: 767.98px)';
+/** True on a phone-sized screen, and kept up to date when the window is resized or turned. */
+function usePhone(): boolean {
+  return useSyncExternalStore(
+    (notify) => {
+      const q = window.matchMedia(PHONE);
+      q.addEventListener('change', notify);
+      return () => q.removeEventListener('change', notify);
+    },
+    () => window.matchMedia(PHONE).matches,
+    () => false,
+  );
 }
 
-interface PendingAsk {
-  ask: ReasonAsk;
-  changes: CellChange[];
-  breakKeys: Set<CellKey>;
-  label: string;
-  undoable: boolean;
+const COMPACT_KEY = 'rackturn.board.compact';
+/** Compact rows, remembered on this device. */
+function useCompactRows(): [boolean, (on: boolean) => void] {
+  const [compact, setCompact] = useState(() => {
+    try {
+      return window.localStorage.getItem(COMPACT_KEY) === '1';
+    } catch {
+      return false;
+    }
+  });
+  const set = useCallback((on: boolean) => {
+    setCompact(on);
+    try {
+      window.localStorage.setItem(COMPACT_KEY, on ? '1' : '0');
+    } catch {
+      // Private browsing may refuse storage: the choice then lasts until the page is left.
+    }
+  }, []);
+  return [compact, set];
 }
 
-interface PendingConflict {
-  view: ConflictView;
-  changes: CellChange[];
-  label: string;
-  undoable: boolean;
-}
-
-type RunKind = 'fill' | 'meet' | 'reshuffle';
 const RUNS: Record<RunKind, { body: GenerateBody; title: string }> = {
   fill: { body: { weeks: 'next' }, title: 'Fill next week' },
   meet: { body: { weeks: 'toMeet' }, title: 'Plan to meet' },
@@ -132,32 +124,33 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const shownRef = useRef<number[]>([]);
   const saveMutation = useSavePlanEntries();
   const generateMutation = useGeneratePlan();
-  const [drag, setDrag] = useState<DragState | null>(null);
-  // The cells' badges come in a transition: drawn in slices between frames, so picking a card up never
-  // stalls the pointer, while the preview follows at once.
-  const [shownRatings, setShownRatings] = useState<Ratings | null>(null);
-  const dragRef = useRef<DragState | null>(null);
-  const [pending, setPending] = useState<ReadonlySet<CellKey>>(() => new Set());
-  const [undoStack, setUndoStack] = useState<UndoItem[]>([]);
-  const [ask, setAsk] = useState<PendingAsk | null>(null);
-  const [conflict, setConflict] = useState<PendingConflict | null>(null);
-  const [notice, setNotice] = useState<{ tone: 'error' | 'info'; text: string } | null>(null);
-  const [status, setStatus] = useState('');
-  const [busy, setBusy] = useState<RunKind | null>(null);
-  const [report, setReport] = useState<{ title: string; result: GenerateResult } | null>(null);
+  const [editor, dispatch] = useReducer(editorReducer, undefined, initialEditor);
+  const { pending, undoStack, ask, conflict, notice, status, busy, report, lookWeeks, flagged } = editor;
   const [details, setDetails] = useState<CellKey | null>(null);
-  // On a phone the grid needs the whole width: the library starts hidden there.
-  const [libraryOpen, setLibraryOpen] = useState(
-    () => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches,
-  );
-  /** The weeks "Needs a look" covers (those of the last plan run), and cells a save changed. */
-  const [lookWeeks, setLookWeeks] = useState<string[] | null>(null);
-  const [flagged, setFlagged] = useState<ReadonlyMap<CellKey, CellStatusChange>>(() => new Map());
+  // On a phone the board is read-only (no drag; a card opens its details) and the library stays hidden,
+  // so the grid has the whole width.
+  const phone = usePhone();
+  const [libraryWanted, setLibraryOpen] = useState(true);
+  const libraryOpen = libraryWanted && !phone;
   const flaggedKeys = useMemo(() => new Set(flagged.keys()), [flagged]);
   const lookItems = useMemo(
     () => (lookWeeks || flagged.size ? needsALook(model, lookWeeks ?? [], flaggedKeys) : []),
     [model, lookWeeks, flagged.size, flaggedKeys],
   );
+
+  // The rows shown: every athlete, or those the filters keep.
+  const [filter, setFilter] = useState<BoardFilter>(NO_FILTER);
+  const rows = useMemo(() => filterAthletes(model, filter, flaggedKeys), [model, filter, flaggedKeys]);
+  const rowsRef = useRef(rows);
+  useLayoutEffect(() => {
+    rowsRef.current = rows;
+  }, [rows]);
+  const tags = useMemo(() => restrictionTags(model.athletes), [model.athletes]);
+  const [compact, setCompact] = useCompactRows();
+  const rowHRef = useRef(0);
+  useLayoutEffect(() => {
+    rowHRef.current = rowHeight(model.slots.length, compact);
+  }, [model.slots.length, compact]);
 
   const labelOf = useCallback((c: CellRef) => cellLabel(modelRef.current, c), []);
   const variantName = useCallback(
@@ -194,33 +187,32 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     async (changes: CellChange[], label: string, undoable: boolean) => {
       const before = new Map(changes.map((c) => [keyOf(c), modelRef.current.entryAt.get(keyOf(c))]));
       const keys = changes.map(keyOf);
-      setPending((p) => new Set([...p, ...keys]));
-      setNotice(null);
+      dispatch({ type: 'saveStarted', keys });
       try {
         const { saved, affected } = await saveMutation.mutateAsync({ changes });
-        setFlagged((f) => {
-          const next = new Map(f);
-          for (const k of keys) next.delete(k);
-          for (const a of affected) next.set(cellKey(a.athleteId, a.week, a.slotId), a);
-          return next;
-        });
+        let notice: EditorNotice | null = null;
         if (affected.length) {
           const turned = affected.filter((a) => a.to !== 'clean').length;
-          setNotice({
+          notice = {
             tone: 'info',
             text: `This save also changed ${affected.length} other ${affected.length === 1 ? 'cell' : 'cells'}${
               turned ? ` (${turned} now ${turned === 1 ? 'needs' : 'need'} a look)` : ''
             }: ${affected.map((a) => `${labelOf(a)} is now ${STATUS_WORDS[a.to].toLowerCase()}`).join('; ')}. They are marked on the board and listed under Needs a look.`,
-          });
+          };
         }
-        if (undoable) {
-          const inverse = saved.map((e) => inverseChange(e, before.get(cellKey(e.athleteId, e.week, e.slotId))));
-          setUndoStack((s) => pushUndo(s, { label, changes: inverse }));
-        }
-        setStatus(`Saved: ${label}.`);
+        const undo = undoable
+          ? {
+              label,
+              changes: saved.map((e) => inverseChange(e, before.get(cellKey(e.athleteId, e.week, e.slotId)))),
+            }
+          : null;
+        dispatch({ type: 'saved', keys, affected, notice, undo, status: `Saved: ${label}.` });
       } catch (err) {
         if (isApiError(err, 409)) {
-          setConflict({ view: conflictView(err, changes, label), changes, label, undoable });
+          dispatch({
+            type: 'conflict',
+            conflict: { view: conflictView(err, changes, label), changes, label, undoable },
+          });
           await queryClient.invalidateQueries({ queryKey: planKeys.boards() });
         } else if (isApiError(err, 422) && err.code === 'rule_break') {
           const violations = decodeRuleBreak(err);
@@ -229,22 +221,28 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
             const k = cellKey(v.athleteId, v.week, v.slotId);
             byCell.set(k, [...(byCell.get(k) ?? []), v.message]);
           }
-          setAsk({
+          dispatch({
+            type: 'ask',
             ask: {
+              ask: {
+                label,
+                breaks: [...byCell].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })),
+              },
+              changes,
+              breakKeys: new Set(byCell.keys()),
               label,
-              breaks: [...byCell].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })),
+              undoable,
             },
-            changes,
-            breakKeys: new Set(byCell.keys()),
-            label,
-            undoable,
           });
         } else {
           const why = err instanceof Error ? err.message : 'unknown error';
-          setNotice({ tone: 'error', text: `Not saved (${label}): ${why} The board shows what is stored.` });
+          dispatch({
+            type: 'notice',
+            notice: { tone: 'error', text: `Not saved (${label}): ${why} The board shows what is stored.` },
+          });
         }
       } finally {
-        setPending((p) => new Set([...p].filter((k) => !keys.includes(k))));
+        dispatch({ type: 'saveEnded', keys });
       }
     },
     [saveMutation, conflictView, queryClient, labelOf],
@@ -253,7 +251,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
   const undo = useCallback(() => {
     const item = undoStack[undoStack.length - 1];
     if (!item) return;
-    setUndoStack((s) => s.slice(0, -1));
+    dispatch({ type: 'undoTaken' });
     void save(item.changes, `undo ${item.label}`, false);
   }, [undoStack, save]);
 
@@ -272,104 +270,50 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
 
   const run = useCallback(
     async (kind: RunKind) => {
-      setBusy(kind);
-      setNotice(null);
+      dispatch({ type: 'runStarted', kind });
       try {
         const result = await generateMutation.mutateAsync(RUNS[kind].body);
-        setReport({ title: RUNS[kind].title, result });
-        setLookWeeks(result.weeks);
-        setUndoStack((s) =>
-          pushUndo(s, {
-            label: RUNS[kind].title,
-            changes: result.changes.map((c) => inverseChange(c.entry, c.previous)),
-          }),
-        );
-        setStatus(`${RUNS[kind].title}: ${result.changes.length} cells changed, ${result.unfilled.length} not filled.`);
+        dispatch({
+          type: 'ran',
+          title: RUNS[kind].title,
+          result,
+          undo: { label: RUNS[kind].title, changes: result.changes.map((c) => inverseChange(c.entry, c.previous)) },
+          status: `${RUNS[kind].title}: ${result.changes.length} cells changed, ${result.unfilled.length} not filled.`,
+        });
       } catch (err) {
         const why = err instanceof Error ? err.message : 'unknown error';
-        setNotice({ tone: 'error', text: `${RUNS[kind].title} did not run: ${why}` });
+        dispatch({ type: 'notice', notice: { tone: 'error', text: `${RUNS[kind].title} did not run: ${why}` } });
       } finally {
-        setBusy(null);
+        dispatch({ type: 'runEnded' });
       }
     },
     [generateMutation],
   );
 
-  // ---- dragging ----
-
-  const sensors = useSensors(
-    useSensor(MouseAndPenSensor, { activationConstraint: { distance: 5 } }),
-    useSensor(TouchSensor, { activationConstraint: { delay: 180, tolerance: 6 } }),
-    useSensor(BoardKeyboardSensor, {
-      // Enter opens a card's details; Space picks it up.
-      keyboardCodes: { start: ['Space'], cancel: ['Escape'], end: ['Space', 'Enter'] },
-    }),
-  );
-
-  const sourceOf = (id: string | number): DragSource | null => {
-    const m = modelRef.current;
-    const variantId = variantOfLibraryId(id);
-    if (variantId !== null) return { kind: 'library', variantId };
-    const cell = cellOfDndId(id);
-    const entry = cell ? m.entryAt.get(keyOf(cell)) : undefined;
-    if (cell && entry?.variantId != null) return { kind: 'cell', cell, variantId: entry.variantId, entry };
-    return null;
-  };
-
-  const onDragStart = ({ active }: DragStartEvent) => {
-    const source = sourceOf(active.id);
-    if (!source) return;
-    // The engine is prepared once for this drag and judges every target cell on screen now; cells that
-    // scroll into view later are judged as they appear.
-    const m = modelRef.current;
-    performance.mark(`${RATE_MEASURE}:start`);
-    const ratings = prepareRatings(m, source);
-    const shown = new Set(shownRef.current);
-    for (const t of m.targets) if (shown.has(t.athleteId)) ratings.get(keyOf(t));
-    performance.measure(RATE_MEASURE, `${RATE_MEASURE}:start`);
-    const next = { source, ratings };
-    dragRef.current = next;
-    setDrag(next);
-    startTransition(() => setShownRatings(ratings));
-  };
-
-  // The Space or click that ends a drag must not also open the card it lands on.
-  const lastDragEnd = useRef(0);
-  const endDrag = () => {
-    dragRef.current = null;
-    lastDragEnd.current = performance.now();
-    setDrag(null);
-    startTransition(() => setShownRatings(null));
-  };
-
-  const onDragEnd = ({ over }: DragEndEvent) => {
-    const d = dragRef.current;
-    endDrag();
-    const target = cellOfDndId(over?.id);
-    if (!d || !target) return;
-    drop(d, target);
-  };
-
-  const drop = (d: DragState, target: CellRef) => {
+  /** Saves a drop, or asks for a reason first; says which. */
+  const drop = (d: DragState, target: CellRef): DropOutcome => {
     const m = modelRef.current;
     const key = keyOf(target);
     const rating = d.ratings.get(key);
     const variant = m.variantById.get(d.source.variantId);
-    if (!rating || !variant || rating.status === 'source' || pending.has(key)) return;
+    if (!rating || !variant || rating.status === 'source' || pending.has(key)) return 'refused';
     const slot = m.slots.find((s) => s.id === target.slotId);
     if (rating.status === 'wrongLift') {
-      setNotice({
-        tone: 'info',
-        text: `${variant.name} is a ${variant.lift} variant; ${slot?.label ?? 'this slot'} takes ${slot?.lifts.join(' or ')}.`,
+      dispatch({
+        type: 'notice',
+        notice: {
+          tone: 'info',
+          text: `${variant.name} is a ${variant.lift} variant; ${slot?.label ?? 'this slot'} takes ${slot?.lifts.join(' or ')}.`,
+        },
       });
-      return;
+      return 'refused';
     }
     const targetEntry = m.entryAt.get(key);
     let changes: CellChange[];
     let label: string;
     let breaks: Map<CellKey, string[]>;
     if (d.source.kind === 'library') {
-      if (targetEntry?.variantId === variant.id) return;
+      if (targetEntry?.variantId === variant.id) return 'refused';
       changes = [{ ...target, variantId: variant.id, version: targetEntry?.version ?? 0 }];
       label = `${variant.name} to ${labelOf(target)}`;
       breaks = rating.status === 'break' ? new Map([[key, rating.breaks]]) : new Map();
@@ -379,11 +323,14 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       const backVariant = back === null ? undefined : m.variantById.get(back);
       const fromSlot = m.slots.find((s) => s.id === from.slotId);
       if (backVariant && !fromSlot?.lifts.includes(backVariant.lift)) {
-        setNotice({
-          tone: 'info',
-          text: `Cannot swap: ${backVariant.name} does not fit ${fromSlot?.label ?? from.slotId}.`,
+        dispatch({
+          type: 'notice',
+          notice: {
+            tone: 'info',
+            text: `Cannot swap: ${backVariant.name} does not fit ${fromSlot?.label ?? from.slotId}.`,
+          },
         });
-        return;
+        return 'refused';
       }
       changes = [
         { ...target, variantId: variant.id, version: targetEntry?.version ?? 0 },
@@ -397,44 +344,31 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
       ]);
     }
     if (breaks.size) {
-      setAsk({
-        ask: { label, breaks: [...breaks].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })) },
-        changes,
-        breakKeys: new Set(breaks.keys()),
-        label,
-        undoable: true,
+      dispatch({
+        type: 'ask',
+        ask: {
+          ask: { label, breaks: [...breaks].map(([k, rules]) => ({ cell: labelOf(parseCellKey(k)), rules })) },
+          changes,
+          breakKeys: new Set(breaks.keys()),
+          label,
+          undoable: true,
+        },
       });
-      return;
+      return 'asked';
     }
     void save(changes, label, true);
+    return 'saved';
   };
 
-  const announcements: Announcements = {
-    onDragStart: ({ active }) => {
-      const s = sourceOf(active.id);
-      const name = s ? variantName(s.variantId) : 'the card';
-      return `Picked up ${name}. Arrow keys move between cells and say whether a drop is clean; Space drops it, Escape puts it back.`;
-    },
-    onDragOver: ({ active, over }) => {
-      const s = dragRef.current?.source;
-      const name = s ? variantName(s.variantId) : String(active.id);
-      const cell = cellOfDndId(over?.id);
-      if (!cell) return `${name} is not over a cell.`;
-      const r = dragRef.current?.ratings.get(keyOf(cell));
-      const why = r ? [...r.breaks, ...r.warnings][0] : undefined;
-      return `${labelOf(cell)}: ${r ? STATUS_WORDS[r.status] : 'not a target'}${why ? ` (${why})` : ''}.`;
-    },
-    onDragEnd: ({ active, over }) => {
-      const cell = cellOfDndId(over?.id);
-      const s = sourceOf(active.id);
-      const name = s ? variantName(s.variantId) : 'The card';
-      return cell ? `${name} dropped on ${labelOf(cell)}.` : `${name} was not dropped on a cell and went back.`;
-    },
-    onDragCancel: ({ active }) => {
-      const s = sourceOf(active.id);
-      return `Cancelled: ${s ? variantName(s.variantId) : 'the card'} went back.`;
-    },
-  };
+  const dragging = useBoardDrag({
+    modelRef,
+    shownRef,
+    scrollRef,
+    labelOf,
+    variantName,
+    onDrop: drop,
+    disabled: phone,
+  });
 
   // Opens with one past week to the left of this week, so the weeks still to plan are in view on a
   // tablet too. Set before the first paint (no jump); the layout it needs is the one that paint needs.
@@ -445,22 +379,38 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
-  const openDetails = useCallback((key: CellKey) => {
-    if (dragRef.current || performance.now() - lastDragEnd.current < 400) return;
-    setDetails(key);
-  }, []);
+  const { justDragged } = dragging;
+  const openDetails = useCallback(
+    (key: CellKey) => {
+      if (justDragged()) return;
+      setDetails(key);
+    },
+    [justDragged],
+  );
   /** Brings a cell into view (its row may not be drawn yet) and puts the focus on its card. */
   const goToCell = useCallback((key: CellKey, then?: () => void) => {
     const m = modelRef.current;
     const box = scrollRef.current;
     const c = parseCellKey(key);
     if (!box) return;
-    const row = m.athletes.findIndex((a) => a.id === c.athleteId);
     const col = m.weeks.indexOf(c.week);
-    if (row < 0 || col < 0) return;
-    box.scrollTo({ top: row * rowHeight(m.slots.length), left: Math.max(0, col - 1) * WEEK_WIDTH });
+    if (col < 0 || !m.athleteById.has(c.athleteId)) return;
+    /** Scrolls to the cell once its row is among those shown. */
+    const place = () => {
+      const row = rowsRef.current.findIndex((a) => a.id === c.athleteId);
+      if (row >= 0) box.scrollTo({ top: row * rowHRef.current, left: Math.max(0, col - 1) * WEEK_WIDTH });
+      return row >= 0;
+    };
+    let placed = place();
+    // The athlete's row is filtered out: show everyone, then go there.
+    if (!placed) setFilter(NO_FILTER);
     let tries = 0;
     const attempt = () => {
+      if (!placed) {
+        placed = place();
+        if (tries++ < 30) requestAnimationFrame(attempt);
+        return;
+      }
       const el = box.querySelector<HTMLElement>(`[data-cell="${key}"]`);
       const target = el?.querySelector<HTMLElement>('button') ?? null;
       if (target) {
@@ -470,6 +420,23 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         return;
       }
       if (tries++ < 30) requestAnimationFrame(attempt);
+    };
+    requestAnimationFrame(attempt);
+  }, []);
+
+  /** Scrolls an athlete's row into view and puts the focus on its name. */
+  const jumpTo = useCallback((athleteId: number) => {
+    const box = scrollRef.current;
+    const row = rowsRef.current.findIndex((a) => a.id === athleteId);
+    if (!box || row < 0) return;
+    box.scrollTo({ top: row * rowHRef.current });
+    let tries = 0;
+    const attempt = () => {
+      const th = box.querySelector<HTMLElement>(`th[data-athlete="${athleteId}"]`);
+      if (th) {
+        th.focus();
+        th.scrollIntoView({ block: 'nearest' });
+      } else if (tries++ < 30) requestAnimationFrame(attempt);
     };
     requestAnimationFrame(attempt);
   }, []);
@@ -491,12 +458,15 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     ];
     setDetails(null);
     if (status === 'break' && !reason) {
-      setAsk({
-        ask: { label, breaks: [{ cell: labelOf(cell), rules: why }] },
-        changes,
-        breakKeys: new Set([key]),
-        label,
-        undoable: true,
+      dispatch({
+        type: 'ask',
+        ask: {
+          ask: { label, breaks: [{ cell: labelOf(cell), rules: why }] },
+          changes,
+          breakKeys: new Set([key]),
+          label,
+          undoable: true,
+        },
       });
       return;
     }
@@ -505,9 +475,19 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     requestAnimationFrame(() => goToCell(key));
   };
 
+  // The page's skip link ("Skip to the board") lands on the grid itself: hand the focus on to the first
+  // card still to plan, so one Tab and Enter reach it.
+  const onGridFocus = (e: ReactFocusEvent<HTMLDivElement>) => {
+    if (e.target !== e.currentTarget) return;
+    const box = e.currentTarget;
+    const first =
+      box.querySelector<HTMLElement>(`[${DROP_ATTR}] button`) ?? box.querySelector<HTMLElement>('[data-cell] button');
+    first?.focus();
+  };
+
   const detailCell = details ? parseCellKey(details) : null;
   const detailEntry = details ? model.entryAt.get(details) : undefined;
-  const dragged = drag ? model.variantById.get(drag.source.variantId) : undefined;
+  const dragged = dragging.drag ? model.variantById.get(dragging.drag.source.variantId) : undefined;
   const top = undoStack[undoStack.length - 1];
 
   return (
@@ -527,6 +507,17 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         libraryOpen={libraryOpen}
         onToggleLibrary={() => setLibraryOpen((o) => !o)}
         extra={weekActions}
+        readOnly={phone}
+      />
+      <BoardFilters
+        filter={filter}
+        onChange={setFilter}
+        tags={tags}
+        rows={rows}
+        total={model.athletes.length}
+        onJump={jumpTo}
+        compact={compact}
+        onCompact={setCompact}
       />
       <p role="status" className="sr-only">
         {status}
@@ -535,10 +526,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         <ConflictNotice
           conflict={conflict.view}
           busy={saveMutation.isPending}
-          onDismiss={() => setConflict(null)}
+          onDismiss={() => dispatch({ type: 'conflict', conflict: null })}
           onReapply={() => {
             const c = conflict;
-            setConflict(null);
+            dispatch({ type: 'conflict', conflict: null });
             const m = modelRef.current;
             const again = c.changes.map((ch) => ({ ...ch, version: m.entryAt.get(keyOf(ch))?.version ?? 0 }));
             void save(again, c.label, c.undoable);
@@ -564,34 +555,43 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           // To the cell, with its details open on "What fits here"; closing them leaves the focus on the card.
           onGo={(key) => goToCell(key, () => setDetails(key))}
           onClose={() => {
-            setLookWeeks(null);
-            setFlagged(new Map());
+            dispatch({ type: 'lookClosed' });
           }}
         />
       ) : null}
       {report ? (
-        <GenerateReport title={report.title} result={report.result} model={model} onClose={() => setReport(null)} />
+        <GenerateReport
+          title={report.title}
+          result={report.result}
+          model={model}
+          onClose={() => dispatch({ type: 'reportClosed' })}
+        />
       ) : null}
       <DndContext
-        sensors={sensors}
+        sensors={dragging.sensors}
         collisionDetection={boardCollision}
         measuring={{ droppable: { strategy: MeasuringStrategy.WhileDragging } }}
         // Scroll only when the pointer is close to the board's edge, so a drop on a cell in view stays put.
         autoScroll={{ threshold: { x: 0.08, y: 0.12 } }}
         accessibility={{
-          announcements,
+          announcements: dragging.announcements,
+          // The board puts the focus where the card went (see onDragEnd), not back on where it came from.
+          restoreFocus: false,
           screenReaderInstructions: {
             draggable:
               'To move this pick, press Space, then use the arrow keys to reach a cell; each cell says whether the drop is clean, a warning or a rule break. Press Space to drop, Escape to cancel.',
           },
         }}
-        onDragStart={onDragStart}
-        onDragEnd={onDragEnd}
-        onDragCancel={endDrag}
+        onDragStart={dragging.onDragStart}
+        onDragEnd={dragging.onDragEnd}
+        onDragCancel={dragging.onDragCancel}
       >
         <div className="flex h-[calc(100dvh-13rem)] min-h-[28rem] overflow-hidden rounded-lg border border-ink-200 bg-chalk-100">
           <div
             ref={scrollRef}
+            id="board-grid"
+            tabIndex={-1}
+            onFocus={onGridFocus}
             // Cells brought into view land clear of the sticky names and week headings.
             style={{ scrollPaddingLeft: NAME_WIDTH + 8, scrollPaddingTop: 60 }}
             className="min-w-0 flex-1 overflow-auto"
@@ -599,7 +599,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           >
             <BoardGrid
               model={model}
-              ratings={shownRatings}
+              rows={rows}
+              readOnly={phone}
+              compact={compact}
+              ratings={dragging.shownRatings}
               pending={pending}
               flagged={flaggedKeys}
               onOpen={openDetails}
@@ -625,10 +628,10 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
         <ReasonDialog
           ask={ask.ask}
           saving={saveMutation.isPending}
-          onCancel={() => setAsk(null)}
+          onCancel={() => dispatch({ type: 'ask', ask: null })}
           onSubmit={(reason) => {
             const a = ask;
-            setAsk(null);
+            dispatch({ type: 'ask', ask: null });
             const changes = a.changes.map((c) => (a.breakKeys.has(keyOf(c)) ? { ...c, reason, pinned: true } : c));
             void save(changes, a.label, a.undoable);
           }}
@@ -642,7 +645,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           entry={detailEntry}
           variant={detailEntry?.variantId != null ? model.variantById.get(detailEntry.variantId) : undefined}
           review={reviewOf(model, details)}
-          editable={detailCell.week >= model.editableFrom}
+          editable={!phone && detailCell.week >= model.editableFrom}
           onApply={(variantId, status, why, reason) => applyAlternative(detailCell, variantId, status, why, reason)}
           onClose={() => setDetails(null)}
           onClear={() => {

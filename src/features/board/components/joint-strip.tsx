@@ -5,7 +5,7 @@
 import { memo } from 'react';
 import type { JointLoadPoint } from '../../../../shared/engine';
 import { NEAR_BUDGET } from '../../../../shared/engine';
-import { jointWords, percent } from '../model/words';
+import { jointShort, jointWords, percent } from '../model/words';
 
 export function loadState(ratio: number): 'clean' | 'caution' | 'breach' {
   return ratio > 1 + 1e-9 ? 'breach' : ratio >= NEAR_BUDGET - 1e-9 ? 'caution' : 'clean';
@@ -42,13 +42,23 @@ export const JointBars = memo(
     const text = points.map((p) => `${jointWords(p.joint)} ${percent(p.ratio)}`).join(', ');
     const layers = barLayers(points);
     return (
-      <div
-        role="img"
-        aria-label={`Joint load ${week}: ${text}`}
-        title={`Joint load over the span ending ${week}, as a share of each budget: ${text}`}
-        className="mt-1 h-5 w-full bg-no-repeat"
-        style={{ backgroundImage: layers.image, backgroundSize: layers.size, backgroundPosition: layers.position }}
-      />
+      <div className="mt-1">
+        <div
+          role="img"
+          aria-label={`Joint load ${week}: ${text}`}
+          title={`Joint load over the span ending ${week}, as a share of each budget: ${text}`}
+          className="h-5 w-full bg-no-repeat"
+          style={{ backgroundImage: layers.image, backgroundSize: layers.size, backgroundPosition: layers.position }}
+        />
+        {/* Each bar named in place, under it (the picture's own label already says it all to a screen reader). */}
+        <div aria-hidden data-joint-labels className="flex text-[9px] font-semibold leading-3 text-ink-600">
+          {points.map((p) => (
+            <span key={p.joint} className="flex-1 text-center">
+              {jointShort(p.joint)}
+            </span>
+          ))}
+        </div>
+      </div>
     );
   },
   (a, b) =>

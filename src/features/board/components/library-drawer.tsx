@@ -50,7 +50,13 @@ const LibraryCard = memo(function LibraryCard({ variant }: { variant: BoardVaria
     disabled: { draggable: false, droppable: true },
   });
   return (
-    <li>
+    // The button is the variant's name; its ::after covers the whole card, so the card is grabbed
+    // anywhere while the button's name stays the name alone (the details are its description).
+    <li
+      className={`relative flex flex-col rounded-md border bg-chalk-50 px-2 py-1.5 hover:border-ink-500 has-[:focus-visible]:outline has-[:focus-visible]:outline-[3px] has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-rust-400 ${
+        isDragging ? 'border-dashed border-ink-500' : 'border-ink-200'
+      }`}
+    >
       <button
         type="button"
         ref={setNodeRef}
@@ -59,19 +65,17 @@ const LibraryCard = memo(function LibraryCard({ variant }: { variant: BoardVaria
         aria-label={variant.name}
         aria-roledescription="library card"
         aria-describedby={`${descId} ${attributes['aria-describedby']}`}
-        className={`flex w-full cursor-grab touch-manipulation flex-col rounded-md border border-ink-200 bg-chalk-50 px-2 py-1.5 text-left hover:border-ink-500 active:cursor-grabbing ${
-          isDragging ? 'opacity-50' : ''
-        }`}
+        className="cursor-grab touch-manipulation text-left text-sm font-semibold leading-tight text-ink-900 outline-none after:absolute after:inset-0 after:content-[''] active:cursor-grabbing"
       >
-        <span className="text-sm font-semibold leading-tight text-ink-900">{variant.name}</span>
-        <span id={descId} className="mt-0.5 text-xs text-ink-600">
-          {LIFT_WORDS[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORDS[variant.risk]})
-          <span className="block text-ink-500">
-            {stressLine(variant)}
-            {variant.equipment.length ? ` · needs ${variant.equipment.join(', ')}` : ''}
-          </span>
-        </span>
+        {variant.name}
       </button>
+      <span id={descId} className="mt-0.5 text-xs text-ink-600">
+        {LIFT_WORDS[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORDS[variant.risk]})
+        <span className="block text-ink-500">
+          {stressLine(variant)}
+          {variant.equipment.length ? ` · needs ${variant.equipment.join(', ')}` : ''}
+        </span>
+      </span>
     </li>
   );
 });

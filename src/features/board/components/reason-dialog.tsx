@@ -7,7 +7,7 @@ import { reasonField } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { TextAreaField } from '../../../components/ui/field';
 import { BreakIcon } from '../../../components/ui/icons';
-import { Dialog } from './dialog';
+import { Dialog } from '../../../components/ui/dialog';
 
 const reasonForm = z.object({ reason: reasonField });
 type ReasonForm = z.infer<typeof reasonForm>;
@@ -36,7 +36,7 @@ export function ReasonDialog({
   const submit = form.handleSubmit((v) => onSubmit(v.reason));
   const error = form.formState.errors.reason?.message ?? ask.serverError;
   return (
-    <Dialog title="This pick breaks a rule" onClose={onCancel} wide>
+    <Dialog open title="This pick breaks a rule" onClose={onCancel} size="md">
       <p className="text-ink-700">{ask.label}</p>
       <ul className="my-3 space-y-2">
         {ask.breaks.map((b) => (

@@ -33,7 +33,7 @@ const STATUS_STYLE: Record<DropStatus, string> = {
   clean: 'border-clean-600 bg-clean-100',
   warning: 'border-caution-600 bg-caution-100',
   break: 'border-breach-600 bg-breach-100',
-  wrongLift: 'border-ink-200 bg-chalk-200 opacity-60',
+  wrongLift: 'border-ink-300 bg-chalk-200',
   source: 'border-dashed border-ink-400 bg-chalk-100',
 };
 
@@ -138,38 +138,47 @@ function PlanCard({ slotShort, variant, entry, review, past, handle, onOpen }: C
   const sourceText = coach ? (entry.pinned ? 'Coach pick, pinned' : 'Coach pick') : 'Engine pick';
   const attrs: HTMLAttributes<HTMLButtonElement> = handle ? { ...handle.attributes, ...handle.listeners } : {};
   return (
-    <button
-      type="button"
-      ref={handle?.setRef}
-      {...attrs}
-      aria-label={variant.name}
-      aria-description={`${sourceText}${entry.reason ? `: ${entry.reason}` : ''}.${
-        flaggedStatus
-          ? ` ${flaggedStatus.status === 'break' ? 'Breaks a rule' : 'Worth a look'}: ${flaggedStatus.reasons.join('; ')}.`
-          : ''
-      }`}
-      aria-roledescription={handle ? 'movable pick' : undefined}
-      onClick={onOpen}
-      className={`flex h-full w-full flex-col justify-between overflow-hidden rounded border px-1.5 py-[3px] text-left ${
-        past
-          ? 'border-ink-200 bg-chalk-100 text-ink-500'
-          : coach
-            ? 'border-rust-300 bg-chalk-50'
-            : 'border-ink-200 bg-chalk-50'
-      } ${handle ? 'cursor-grab touch-manipulation hover:border-ink-500 active:cursor-grabbing' : ''}`}
-    >
-      <span className={`line-clamp-2 text-[12.5px] font-semibold leading-[15px] ${past ? '' : 'text-ink-900'}`}>
-        {variant.name}
-      </span>
-      <span className="flex items-center gap-x-1.5 whitespace-nowrap text-[10px] font-semibold uppercase leading-3 tracking-wide">
-        <span className="text-ink-400">{slotShort}</span>
+    <>
+      <button
+        type="button"
+        ref={handle?.setRef}
+        {...attrs}
+        aria-label={variant.name}
+        aria-description={`${sourceText}${entry.reason ? `: ${entry.reason}` : ''}.${
+          flaggedStatus
+            ? ` ${flaggedStatus.status === 'break' ? 'Breaks a rule' : 'Worth a look'}: ${flaggedStatus.reasons.join('; ')}.`
+            : ''
+        }`}
+        aria-roledescription={handle ? 'movable pick' : undefined}
+        onClick={onOpen}
+        className={`flex h-full w-full flex-col overflow-hidden rounded border px-1.5 py-[3px] text-left ${
+          past
+            ? 'border-ink-200 bg-chalk-100 text-ink-500'
+            : coach
+              ? 'border-rust-300 bg-chalk-50'
+              : 'border-ink-200 bg-chalk-50'
+        } ${handle ? 'cursor-grab touch-manipulation hover:border-ink-500 active:cursor-grabbing' : ''}`}
+      >
+        <span
+          className={`line-clamp-2 text-[12.5px] group-data-[compact=true]/board:line-clamp-1 font-semibold leading-[15px] ${past ? '' : 'text-ink-900'}`}
+        >
+          {variant.name}
+        </span>
+      </button>
+      {/* Beside the button, not in it, so the button's name is the variant's name and nothing else (the
+        description says who picked it and why it needs a look). */}
+      <span
+        aria-hidden
+        className="pointer-events-none absolute bottom-[5px] left-2 flex group-data-[compact=true]/board:hidden items-center gap-x-1.5 whitespace-nowrap text-[10px] font-semibold uppercase leading-3 tracking-wide"
+      >
+        <span className="text-ink-500">{slotShort}</span>
         <span className={coach ? 'inline-flex items-center gap-0.5 text-rust-600' : 'text-ink-500'}>
           {coach && entry.pinned ? <PinIcon width={11} height={11} /> : null}
           {coach ? 'Coach' : 'Engine'}
         </span>
         {flaggedStatus ? <PickBadge review={flaggedStatus} /> : null}
       </span>
-    </button>
+    </>
   );
 }
 
@@ -212,7 +221,7 @@ const SlotBody = memo(function SlotBody({
           onOpen={onOpen}
         />
       ) : (
-        <span className="block h-full rounded border border-dashed border-ink-200 px-1.5 py-1.5 text-[11px] text-ink-400">
+        <span className="block h-full rounded border border-dashed border-ink-200 px-1.5 py-1.5 text-[11px] text-ink-600">
           <span className="font-semibold uppercase tracking-wide">{slotShort}</span> · {past ? 'no pick' : 'empty'}
         </span>
       )}
@@ -229,24 +238,25 @@ const SlotBody = memo(function SlotBody({
 
 const noop = () => undefined;
 
-/** A slot in a past week: shown, not a drop target. */
-export const PastSlot = memo(function PastSlot(p: Omit<SlotProps, 'rating' | 'pending'>) {
+/** A slot in a past week, or any slot on a phone (where the board is read-only): shown, not a drop target. */
+export const PastSlot = memo(function PastSlot(p: Omit<SlotProps, 'rating' | 'pending'> & { past?: boolean }) {
+  const past = p.past ?? true;
   const open = () => p.onOpen(p.cellKey);
   return (
     <div
       role="group"
       aria-label={p.label}
       data-cell={p.cellKey}
-      className="relative h-[54px] rounded-md border-2 border-transparent"
+      className="relative h-[54px] rounded-md border-2 border-transparent group-data-[compact=true]/board:h-9"
     >
       <SlotBody
         slotLabel={p.slotLabel}
         entry={p.entry}
         variant={p.variant}
-        review={undefined}
+        review={past ? undefined : p.review}
         rating={undefined}
         isOver={false}
-        past
+        past={past}
         pending={false}
         handle={undefined}
         onOpen={p.entry ? open : noop}
@@ -260,7 +270,7 @@ export const EditableSlot = memo(function EditableSlot(p: SlotProps) {
   const { onOpen, cellKey } = p;
   const hasPick = !!p.entry && p.entry.variantId !== null && !!p.variant;
   const id = cellDndId(p);
-  const { setDroppableNodeRef, setDraggableNodeRef, listeners, attributes, isOver, isDragging } = useSortable({
+  const { setDroppableNodeRef, setDraggableNodeRef, listeners, attributes, isOver } = useSortable({
     id,
     disabled: { draggable: !hasPick || p.pending, droppable: p.pending },
     // Cells do not change size while dragging; watching each one would cost more than it saves.
@@ -272,6 +282,8 @@ export const EditableSlot = memo(function EditableSlot(p: SlotProps) {
     [hasPick, setDraggableNodeRef, listeners, attributes],
   );
   const open = useCallback(() => onOpen(cellKey), [onOpen, cellKey]);
+  // Cells whose slot does not take the carried card's lift stay quiet, unless the card is right over one.
+  const rating = p.rating?.status === 'wrongLift' && !isOver ? undefined : p.rating;
   return (
     <div
       ref={setDroppableNodeRef}
@@ -279,19 +291,19 @@ export const EditableSlot = memo(function EditableSlot(p: SlotProps) {
       role="group"
       aria-label={p.label}
       data-cell={p.cellKey}
-      data-rating={p.rating?.status}
+      data-rating={rating?.status}
       data-over={isOver || undefined}
       data-flagged={p.flagged || undefined}
-      className={`relative h-[54px] rounded-md border-2 ${
-        p.rating ? STATUS_STYLE[p.rating.status] : p.flagged ? 'border-caution-600 border-dashed' : 'border-transparent'
-      } ${isOver ? 'ring-2 ring-ink-800' : ''} ${isDragging ? 'opacity-60' : ''}`}
+      className={`relative h-[54px] rounded-md border-2 group-data-[compact=true]/board:h-9 ${
+        rating ? STATUS_STYLE[rating.status] : p.flagged ? 'border-caution-600 border-dashed' : 'border-transparent'
+      } ${isOver ? 'ring-2 ring-ink-800' : ''}`}
     >
       <SlotBody
         slotLabel={p.slotLabel}
         entry={p.entry}
         variant={p.variant}
         review={p.review}
-        rating={p.rating}
+        rating={rating}
         isOver={isOver}
         past={false}
         pending={p.pending}

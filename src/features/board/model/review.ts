@@ -60,7 +60,7 @@ const pct = (r: number) => `${Math.round(r * 100)}%`;
  * that holds it; the softer drag hints (a window only just kept, the same emphasis twice) stay off the
  * cards and the list.
  */
-function athleteReviews(model: BoardModel, athleteId: number): Map<CellKey, CellReview> {
+export function athleteReviews(model: BoardModel, athleteId: number): Map<CellKey, CellReview> {
   const cache = cacheOf(model);
   const hit = cache.byAthlete.get(athleteId);
   if (hit) return hit;

@@ -44,6 +44,19 @@ export function jointWords(joint: Joint): string {
   return jointName(joint);
 }
 
+/** The joint's short name, printed under its bar in the joint-load strip. */
+const JOINT_SHORT: Record<Joint, string> = {
+  shoulder: 'Shd',
+  elbow: 'Elb',
+  wrist: 'Wst',
+  lowerBack: 'Back',
+  hip: 'Hip',
+  knee: 'Knee',
+};
+export function jointShort(joint: Joint): string {
+  return JOINT_SHORT[joint];
+}
+
 export function percent(ratio: number): string {
   return Number.isFinite(ratio) ? `${Math.round(ratio * 100)}%` : 'over budget';
 }

@@ -44,7 +44,7 @@ function RowActions({ fee, plans }: { fee: AthleteFee; plans: FeePlan[] }) {
         {error ? <p className="w-full text-sm text-breach-700">{error.message}</p> : null}
       </div>
     ) : (
-      <Button size="sm" variant="ghost" onClick={() => setMode('confirm')} aria-label={`End ${fee.name}'s fee`}>
+      <Button size="sm" variant="ghost" onClick={() => setMode('confirm')} aria-label={`End fee for ${fee.name}`}>
         End fee
       </Button>
     );

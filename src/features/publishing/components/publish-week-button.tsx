@@ -37,19 +37,50 @@ function CheckList({
   );
 }
 
-function InviteLine({ athleteId, athleteName }: { athleteId: number; athleteName: string }) {
+/**
+ * An athlete without an account, with one button: it sends the invitation at once when the roster has
+ * their e-mail; otherwise it opens the invitation form for that athlete right here, asking only for it.
+ */
+function InviteLine({
+  athleteId,
+  athleteName,
+  email: onFile,
+}: {
+  athleteId: number;
+  athleteName: string;
+  email: string | null;
+}) {
   const invite = useInviteAthlete();
-  const [email, setEmail] = useState('');
+  const [email, setEmail] = useState(onFile ?? '');
+  const [editing, setEditing] = useState(false);
   const id = useId();
   if (invite.isSuccess)
     return (
-      <li>
+      <li role="status">
         {athleteName}: invitation sent to {invite.data.email}.
+      </li>
+    );
+  if (!editing && !invite.isError)
+    return (
+      <li className="flex flex-wrap items-center gap-2">
+        <span>
+          {athleteName}
+          {onFile ? ` (${onFile})` : ''}
+        </span>
+        <Button
+          size="sm"
+          variant="secondary"
+          disabled={invite.isPending}
+          onClick={() => (onFile ? invite.mutate({ athleteId, email: onFile }) : setEditing(true))}
+        >
+          {invite.isPending ? 'Inviting…' : `Invite ${athleteName}`}
+        </Button>
       </li>
     );
   return (
     <li>
       <form
+        aria-label={`Invite ${athleteName}`}
         className="flex flex-wrap items-center gap-2"
         onSubmit={(e) => {
           e.preventDefault();
@@ -61,6 +92,7 @@ function InviteLine({ athleteId, athleteName }: { athleteId: number; athleteName
           id={id}
           type="email"
           required
+          autoFocus
           value={email}
           onChange={(e) => setEmail(e.target.value)}
           aria-invalid={invite.isError || undefined}
@@ -68,7 +100,7 @@ function InviteLine({ athleteId, athleteName }: { athleteId: number; athleteName
           className="min-h-9 rounded-md border border-ink-300 bg-chalk-50 px-2 text-ink-900"
         />
         <Button type="submit" size="sm" variant="secondary" disabled={invite.isPending}>
-          Invite {athleteName}
+          Send invitation
         </Button>
         {invite.isError ? (
           <span id={`${id}-error`} role="alert" className="text-sm text-breach-700">
@@ -99,7 +131,7 @@ function CheckView({ check }: { check: PublishCheck }) {
       </CheckList>
       <CheckList title="Athletes without an account" count={check.withoutAccount.count} tone="caution">
         {check.withoutAccount.items.map((a) => (
-          <InviteLine key={a.athleteId} athleteId={a.athleteId} athleteName={a.athleteName} />
+          <InviteLine key={a.athleteId} athleteId={a.athleteId} athleteName={a.athleteName} email={a.email} />
         ))}
       </CheckList>
       <CheckList title="E-mails to send" count={check.wouldEmail.count} tone="ok">

@@ -114,7 +114,6 @@ export function AthleteReview({ athleteId }: { athleteId: number }) {
             {data.suggestions.map((s) => (
               <li
                 key={s.joint}
-                role="alert"
                 className="flex gap-2 rounded-md border border-caution-600/50 bg-caution-100 p-3 text-ink-900"
               >
                 <WarningIcon className="mt-0.5 shrink-0 text-caution-700" />

@@ -42,7 +42,13 @@ function HistoryBody({
       <p className="text-sm text-ink-600">
         Every week&apos;s pick per slot, newest first, with the top set done on it. Picks change on the board.
       </p>
-      <div className="max-h-[32rem] overflow-auto rounded-md border border-chalk-300">
+      {/* Scrolls on its own, so it takes focus and the arrow keys can scroll it. */}
+      <div
+        tabIndex={0}
+        role="region"
+        aria-label="Pick history"
+        className="max-h-[32rem] overflow-auto rounded-md border border-chalk-300"
+      >
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Picks and top sets by week, newest first</caption>
           <thead className="sticky top-0 bg-chalk-200">
