@@ -8,6 +8,7 @@ import { Button } from '../../components/ui/button';
 import { TextField } from '../../components/ui/field';
 import { Notice } from '../../components/ui/page';
 import { useSignIn } from '../../features/auth/api/use-sign-in';
+import { useForgetPreviousUser } from '../../features/auth/api/use-sign-out';
 import { meQueryOptions } from '../../features/auth/api/queries';
 import { homeFor } from '../guards';
 import { AuthFrame } from '../../features/auth/components/auth-frame';
@@ -19,6 +20,7 @@ export function Component() {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const signIn = useSignIn();
+  useForgetPreviousUser();
   const form = useForm<LoginBody>({ resolver: zodResolver(loginBody), defaultValues: { email: '', password: '' } });
   const { errors } = form.formState;
 

@@ -36,7 +36,8 @@ export async function openBrowser(opts: { width?: number; height?: number } = {}
   const page = context.pages()[0] ?? (await context.newPage());
   const problems: string[] = [];
   page.on('console', (m) => {
-    if (m.type() === 'error') problems.push(m.text());
+    // A failed request's message does not say which one: its location does.
+    if (m.type() === 'error') problems.push(m.location().url ? `${m.text()} (${m.location().url})` : m.text());
   });
   page.on('pageerror', (e) => problems.push(e.message));
   return {

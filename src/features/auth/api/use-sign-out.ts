@@ -1,18 +1,24 @@
 // Sign out (this device, or every device of the account) and forget every cached answer of the previous user.
+import { useEffect } from 'react';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import type { SignOutEverywhereResponse } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 
 function useLeave() {
-  const queryClient = useQueryClient();
   const navigate = useNavigate();
-  // Leave first, then forget: cleared while the signed-in page is still mounted, its queries would
-  // ask the server again (and be refused) before the page goes.
-  return async () => {
-    await navigate('/sign-in', { replace: true });
+  // The sign-in page forgets every cached answer once it is on screen (useForgetPreviousUser): cleared
+  // here, while the signed-in page is still mounted, its queries would ask the server again and be refused.
+  return () => navigate('/sign-in', { replace: true });
+}
+
+/** Called by the sign-in page when it mounts: nothing the previous user read stays in the cache. */
+export function useForgetPreviousUser() {
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    void queryClient.cancelQueries();
     queryClient.clear();
-  };
+  }, [queryClient]);
 }
 
 export function useSignOut() {
