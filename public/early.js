@@ -2,7 +2,7 @@
 // signed-in user and the week at once, so the answers are on their way while the code still downloads.
 // Plain JavaScript served as is, loaded async from the page's head; src/lib/early-requests.ts hands the
 // answers over to the API client, which takes each one once.
-/* global window, location, fetch, URLSearchParams */
+/* global window, document, location, fetch, URLSearchParams */
 (() => {
   const early = {};
   const start = (url) => {
@@ -15,6 +15,15 @@
     const week = new URLSearchParams(location.search).get('week');
     start('/api/auth/me');
     start(week && /^\d{4}-W\d{2}$/.test(week) ? `/api/my-week?week=${encodeURIComponent(week)}` : '/api/my-week');
+    // The page's own code too (named by the build), fetched beside the app's instead of after it has run
+    // (after the data, which matters most and would otherwise queue behind these files).
+    const code = document.querySelector('meta[name="rackturn-my-week-code"]');
+    for (const href of (code?.getAttribute('content') ?? '').split(' ').filter(Boolean)) {
+      const link = document.createElement('link');
+      link.rel = 'modulepreload';
+      link.href = href;
+      document.head.appendChild(link);
+    }
   }
   window.__rackturnEarly = early;
 })();

@@ -107,6 +107,27 @@ describe('My week on a phone', () => {
     await expect(b.page.getByRole('complementary', { name: 'Training caution' }).isVisible()).resolves.toBe(true);
   });
 
+  it('asks for the page’s own code and data before the app’s code has run', async () => {
+    // The app's entry never arrives here: what is requested comes from the page and early.js alone.
+    const page = await b.page.context().newPage();
+    const requested: string[] = [];
+    page.on('request', (r) => requested.push(new URL(r.url()).pathname));
+    await page.route(/\/assets\/index-[\w-]+\.js$/, (route) => route.abort());
+    try {
+      await page.goto(new URL('/my-week', b.page.url()).href);
+      const named = (await page.locator('meta[name="rackturn-my-week-code"]').getAttribute('content'))!.split(' ');
+      expect(named.some((f) => /^\/assets\/my-week-[\w-]+\.js$/.test(f))).toBe(true);
+      await expect.poll(() => named.filter((f) => !requested.includes(f)), { timeout: 15_000 }).toEqual([]);
+      expect(requested).toContain('/api/my-week');
+      const preloads = await page
+        .locator('link[rel="modulepreload"]')
+        .evaluateAll((ls) => ls.map((l) => new URL((l as HTMLLinkElement).href).pathname));
+      expect(preloads).toEqual(named);
+    } finally {
+      await page.close();
+    }
+  });
+
   it('opens the warm-up with a plate diagram for every step', async () => {
     const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: picks[0]!.name, exact: true }) });
     await card.getByRole('button', { name: 'Warm-up and plates' }).click();

@@ -1,15 +1,20 @@
 // The athlete's week, rebuilt on one query per concern, answers exactly as the earlier implementation
 // (kept in tests/support as the reference) did, for every demo athlete over past, current and coming weeks;
-// and what it keeps between requests (parsed rules, generated tissue work) never shows one athlete another's
-// week or a stale one after a coach's change.
+// and what it keeps between requests (parsed rules, generated tissue work, whole answers checked against the
+// fingerprint of their rows) never shows one athlete another's week, or a stale one after any write an
+// athlete or coach makes, even when the write goes through another app instance on the same database.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { and, eq } from 'drizzle-orm';
+import { drizzle } from 'drizzle-orm/mysql2';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import type { MyWeek } from '../../shared/schemas';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { createDatabase, type Database } from '../../server/db/client';
+import * as schema from '../../server/db/schema';
 import { athletes, planEntries, teams, users } from '../../server/db/schema';
 import { seedDemoIfEmpty } from '../../server/db/seed/demo';
+import { FINGERPRINT_TABLES } from '../../server/modules/my-week/my-week.repository';
 import { myWeek } from '../../server/modules/my-week/my-week.service';
 import { useTestApp } from '../support/app';
 import {
@@ -80,6 +85,16 @@ describe('my-week answers on the demo data', () => {
   });
 });
 
+/** A pin squat, a box squat and a deficit deadlift in the team's library, by name. */
+async function threeVariants(db: Database['db'], teamId: number) {
+  const ids: Record<string, number> = {};
+  for (const name of ['Pin squat', 'Box squat', 'Deficit deadlift']) {
+    const lift = name.includes('dead') ? 'deadlift' : 'squat';
+    ids[name] = await createVariant(db, teamId, { name: `${name} ${Date.now()}`, lift });
+  }
+  return ids;
+}
+
 describe('what my-week keeps between requests', () => {
   const t = useTestApp();
   const thisWeek = weekOfDate(new Date());
@@ -95,10 +110,7 @@ describe('what my-week keeps between requests', () => {
     const db = t.ctx.database.db;
     team = await createTeam(db);
     other = await createTeam(db);
-    for (const name of ['Pin squat', 'Box squat', 'Deficit deadlift']) {
-      const lift = name.includes('dead') ? 'deadlift' : 'squat';
-      variantsOf[name] = await createVariant(db, team.teamId, { name: `${name} ${Date.now()}`, lift });
-    }
+    Object.assign(variantsOf, await threeVariants(db, team.teamId));
     const secondUser = await createUser(db, team.teamId, 'athlete');
     secondId = await createAthlete(db, team.teamId, { userId: secondUser.id, name: 'Second Athlete' });
     await createPlanEntry(db, team.teamId, team.athleteId, variantsOf['Pin squat']!, { week: thisWeek });
@@ -172,5 +184,165 @@ describe('what my-week keeps between requests', () => {
     // dropped as a change of account would drop it; what is checked is that My week keeps no copy of it.
     t.ctx.sessions.forgetWhere((a) => a.userId === team.athleteUser.id);
     expect((await first.get('/api/my-week')).body.unit).toBe('lb');
+  });
+});
+
+describe('kept answers across two app instances on one database', () => {
+  // Two instances, each with its own pool and its own kept answers: the athlete reads through the first,
+  // every write goes through the second, and the first must show it on the very next request.
+  const reader = useTestApp();
+  const writer = useTestApp();
+  const thisWeek = weekOfDate(new Date());
+  const nextWeek = addWeeks(thisWeek, 1);
+  let team: TestTeam;
+  let athlete: request.Agent;
+  let athleteThere: request.Agent;
+  let coachThere: request.Agent;
+  let lowerEntry: number;
+  const variantsOf: Record<string, number> = {};
+
+  beforeAll(async () => {
+    const db = reader.ctx.database.db;
+    team = await createTeam(db);
+    Object.assign(variantsOf, await threeVariants(db, team.teamId));
+    lowerEntry = await createPlanEntry(db, team.teamId, team.athleteId, variantsOf['Pin squat']!, { week: thisWeek });
+    await createPlanEntry(db, team.teamId, team.athleteId, variantsOf['Deficit deadlift']!, {
+      week: nextWeek,
+      slotId: 'lower',
+    });
+    await publishAthleteWeek(db, team.teamId, team.athleteId, thisWeek);
+    athlete = await reader.signIn(team.athleteUser.email);
+    athleteThere = await writer.signIn(team.athleteUser.email);
+    coachThere = await writer.signIn(team.headCoach.email);
+  });
+
+  /** The page through the first instance, checked against a fresh read that keeps nothing. */
+  const page = async (week?: string) => {
+    const res = await athlete.get(week ? `/api/my-week?week=${week}` : '/api/my-week');
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const who = { teamId: team.teamId, athleteId: team.athleteId, unit: res.body.unit as 'kg' | 'lb' };
+    const fresh = JSON.parse(JSON.stringify(await myWeek(reader.ctx, who, week))) as unknown;
+    expect(res.body).toStrictEqual(fresh);
+    return res.body as MyWeek;
+  };
+
+  /** Reads the page (so the first instance keeps it), writes through the second, reads again. */
+  async function afterWrite(write: () => Promise<{ status: number; body: unknown }>, week?: string) {
+    const before = await page(week);
+    expect(await page(week)).toStrictEqual(before);
+    const res = await write();
+    expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+    const after = await page(week);
+    expect(after).not.toStrictEqual(before);
+    return after;
+  }
+
+  it('shows a coach’s changed pick, renamed variant and renamed slot', async () => {
+    const [cell] = await reader.ctx.database.db.select().from(planEntries).where(eq(planEntries.id, lowerEntry));
+    let after = await afterWrite(() =>
+      coachThere
+        .put(`/api/plans/${team.athleteId}/${thisWeek}/lower`)
+        .send({ variantId: variantsOf['Box squat'], version: cell!.version, reason: 'Coach’s call this week' }),
+    );
+    expect(after.picks.map((p) => p.variant.id)).toEqual([variantsOf['Box squat']]);
+
+    const variant = await coachThere.get(`/api/variants/${variantsOf['Box squat']}`);
+    after = await afterWrite(() =>
+      coachThere
+        .patch(`/api/variants/${variantsOf['Box squat']}`)
+        .send({ name: 'Box squat, high box', version: variant.body.version }),
+    );
+    expect(after.picks[0]!.variant.name).toBe('Box squat, high box');
+
+    const rules = await coachThere.get('/api/rules');
+    const renamed = {
+      ...rules.body.rules,
+      slots: rules.body.rules.slots.map((s: { id: string; label: string }) =>
+        s.id === 'lower' ? { ...s, label: 'Heavy lower' } : s,
+      ),
+    };
+    after = await afterWrite(() =>
+      coachThere
+        .put('/api/rules')
+        .send({ rules: renamed, equipment: rules.body.equipment, version: rules.body.version }),
+    );
+    expect(after.picks[0]!.slotLabel).toBe('Heavy lower');
+  });
+
+  it('shows the athlete’s renamed roster entry and a week the coach publishes', async () => {
+    const entry = await coachThere.get(`/api/athletes/${team.athleteId}`);
+    const after = await afterWrite(() =>
+      coachThere.patch(`/api/athletes/${team.athleteId}`).send({ name: 'Renamed Lifter', version: entry.body.version }),
+    );
+    expect(after.athlete.name).toBe('Renamed Lifter');
+
+    const draft = await page(nextWeek);
+    expect(draft).toMatchObject({ published: false, picks: [] });
+    const published = await afterWrite(() => coachThere.post(`/api/weeks/${nextWeek}/publish`).send({}), nextWeek);
+    expect(published.published).toBe(true);
+    expect(published.picks.map((p) => p.variant.id)).toEqual([variantsOf['Deficit deadlift']]);
+  });
+
+  it('shows the athlete’s own top set, check-in and bodyweights, written on the other instance', async () => {
+    let after = await afterWrite(() =>
+      athleteThere.post('/api/top-sets').send({ planEntryId: lowerEntry, unit: 'kg', weight: 140, reps: 3, rpe: 8 }),
+    );
+    expect(after.picks[0]!.logged.map((s) => s.weightKg)).toEqual([140]);
+
+    after = await afterWrite(() =>
+      athleteThere.post('/api/tissue/checkins').send({ week: thisWeek, soreness: 3, painJoints: ['knee'] }),
+    );
+    expect(after.checkins[0]!.done.map((c) => c.soreness)).toEqual([3]);
+
+    const today = new Date().toISOString().slice(0, 10);
+    after = await afterWrite(() => athleteThere.put(`/api/bodyweights/${today}`).send({ unit: 'kg', weight: 81.5 }));
+    expect(after.bodyweight.latest?.weightKg).toBe(81.5);
+    // The same day again replaces the reading in place: same row, new weight.
+    after = await afterWrite(() => athleteThere.put(`/api/bodyweights/${today}`).send({ unit: 'kg', weight: 82.25 }));
+    expect(after.bodyweight.latest?.weightKg).toBe(82.25);
+  });
+
+  it('shows a meet the athlete is entered in, its new name and the entry taken away', async () => {
+    const date = new Date(Date.now() + 40 * 86_400_000).toISOString().slice(0, 10);
+    const made = await coachThere.post('/api/meets').send({ name: 'Autumn Open', date });
+    expect(made.status).toBe(201);
+    let after = await afterWrite(() =>
+      coachThere.post(`/api/meets/${made.body.id}/entries`).send({ athleteId: team.athleteId, weightClass: '76' }),
+    );
+    expect(after.meet?.name).toBe('Autumn Open');
+    expect(after.bodyweight.enteredClass).toBe('76');
+
+    after = await afterWrite(() =>
+      coachThere.patch(`/api/meets/${made.body.id}`).send({ name: 'Autumn Open II', version: made.body.version }),
+    );
+    expect(after.meet?.name).toBe('Autumn Open II');
+
+    const meet = await coachThere.get(`/api/meets/${made.body.id}`);
+    const entryId = (meet.body.entries as { id: number; athlete: { id: number } }[]).find(
+      (e) => e.athlete.id === team.athleteId,
+    )!.id;
+    after = await afterWrite(() => coachThere.delete(`/api/meets/${made.body.id}/entries/${entryId}`));
+    expect(after.meet).toBeNull();
+  });
+
+  it('reads only tables its kept answers are checked against', async () => {
+    // Every query the page runs, logged: a table read here but left out of the fingerprint would let a
+    // kept answer go stale after a write to it.
+    const read = new Set<string>();
+    const db = drizzle(reader.ctx.database.pool, {
+      schema,
+      mode: 'planetscale',
+      logger: {
+        logQuery: (query) => {
+          for (const m of query.matchAll(/(?<!key )\b(?:from|join|into|update)\s+`(\w+)`/gi)) read.add(m[1]!);
+        },
+      },
+    });
+    const ctx = { database: { ...reader.ctx.database, db } };
+    const who = { teamId: team.teamId, athleteId: team.athleteId, unit: 'kg' as const };
+    for (const week of [undefined, addWeeks(thisWeek, -1), nextWeek, addWeeks(thisWeek, 2)])
+      await myWeek(ctx, who, week);
+    expect(read.size).toBeGreaterThanOrEqual(8);
+    expect([...read].filter((table) => !FINGERPRINT_TABLES.includes(table))).toEqual([]);
   });
 });

@@ -7,7 +7,7 @@ import { ATHLETE, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { historyOf } from '../top-sets/history.service';
 import { athleteVideos } from '../videos/videos.service';
-import { myWeek } from './my-week.service';
+import { myWeekJson } from './my-week.service';
 import { ownAthleteId } from './whose';
 
 export function myWeekRouter(ctx: AppContext): Router {
@@ -16,9 +16,11 @@ export function myWeekRouter(ctx: AppContext): Router {
   router.get(
     '/my-week',
     requireRole(ATHLETE),
-    validate({ query: myWeekQuery }, ({ query }, req) => {
+    validate({ query: myWeekQuery }, async ({ query }, req, res) => {
       const auth = authOf(req);
-      return myWeek(ctx, { teamId: auth.teamId, athleteId: ownAthleteId(req), unit: auth.unit }, query.week);
+      const who = { teamId: auth.teamId, athleteId: ownAthleteId(req), unit: auth.unit };
+      // Already JSON: kept between requests while nothing it shows has changed.
+      res.type('json').send(await myWeekJson(ctx, who, query.week));
     }),
   );
 

@@ -13,7 +13,8 @@ import { findTeamRulesText, listCheckins, listPrescriptionsThrough, meetsFrom } 
 import { recordOf } from '../top-sets/records';
 import { topSetsAroundWeek } from '../top-sets/top-sets.repository';
 import { findTeamAthlete } from './athlete.repository';
-import { isWeekPublished, weekPicks } from './my-week.repository';
+import { keptAnswer } from './answer-cache';
+import { isWeekPublished, weekFingerprint, weekPicks } from './my-week.repository';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
@@ -24,6 +25,9 @@ const RECENT_CHECKINS = 20;
 function isoDay(d: Date): string {
   return d.toISOString().slice(0, 10);
 }
+
+/** The first day of the bodyweight readings shown. */
+const recentSince = (now: Date) => isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS));
 
 export async function myWeek(
   ctx: Pick<AppContext, 'database'>,
@@ -51,7 +55,7 @@ export async function myWeek(
       // From the earlier of today and the week's Monday: the page shows the next meet from today, the
       // tissue work counts down to the next one from the week's start.
       meetsFrom(db, teamId, athleteId, today < monday ? today : monday),
-      allBodyweights(db, teamId, athleteId, isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS))),
+      allBodyweights(db, teamId, athleteId, recentSince(now)),
       week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
     ],
   );
@@ -141,4 +145,21 @@ export async function myWeek(
       caution: gainCaution({ readings, today, meet, thresholdKg: rules.bodyweightGainCautionKg }),
     },
   };
+}
+
+/**
+ * The athlete's week as JSON text, as myWeek() answers it: a copy kept by this instance is sent while the
+ * fingerprint of everything it was read from is unchanged (one query), otherwise it is read afresh. The
+ * answer depends on the day only through `now`, so the day is part of the key.
+ */
+export async function myWeekJson(
+  ctx: Pick<AppContext, 'database'>,
+  who: { teamId: number; athleteId: number; unit: 'kg' | 'lb' },
+  requestedWeek: string | undefined,
+  now = new Date(),
+): Promise<string> {
+  const week = requestedWeek ?? weekOfDate(now);
+  const fingerprint = await weekFingerprint(ctx.database.pool, who, week, recentSince(now));
+  const key = `${who.teamId}:${who.athleteId}:${week}:${who.unit}:${isoDay(now)}`;
+  return keptAnswer(ctx.database, key, fingerprint, () => myWeek(ctx, who, week, now));
 }
