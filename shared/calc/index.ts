@@ -66,7 +66,6 @@ export {
   GYM_STEP,
   LOAD_PCT_MAX,
   LOAD_PCT_MIN,
-  SPEED_SETS_REPS,
   TRAINING_MAX_PCT_MIN,
   backOffSets,
   openingRange,

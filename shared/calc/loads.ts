@@ -6,6 +6,7 @@ import { requireFinite, requireInteger, requireOneOf, requirePositive } from './
 import { roundToLoadable } from './plates';
 import { rpeToRir } from './rpe';
 import type { WeightUnit } from './units';
+import { SPEED_SETS_REPS } from '../engine/week';
 
 export type TrainingLift = 'squat' | 'bench' | 'deadlift';
 export type Accommodation = 'none' | 'bands' | 'chains';
@@ -23,13 +24,6 @@ export const TRAINING_MAX_PCT_MIN = 50;
  * the rest (common practice, value from memory: coaches quote about 20–25 % at lockout).
  */
 export const ACCOMMODATION_SHARE = 0.2;
-
-/** Default speed-day sets × reps per lift (common practice, no published source). */
-export const SPEED_SETS_REPS: Readonly<Record<TrainingLift, { sets: number; reps: number }>> = {
-  squat: { sets: 10, reps: 2 },
-  bench: { sets: 9, reps: 3 },
-  deadlift: { sets: 8, reps: 1 },
-};
 
 function requirePct(name: string, pct: number, min = LOAD_PCT_MIN, max = LOAD_PCT_MAX): number {
   requireFinite(name, pct);

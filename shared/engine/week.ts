@@ -1,8 +1,41 @@
 // The rest of the training week around the max-effort picks: the default speed wave of a week and what a
 // deload takes off. Pure; the server and the browser resolve a week with the same rules.
-import { speedWave, type SpeedWaveOptions } from '../calc';
-import type { AccessoryWork, Session, SessionWork, SpeedWork } from '../schemas/week';
+import type { Lift } from './types';
 import { weekNumber, type IsoWeek } from './weeks';
+
+// The shapes the engine works on (the zod contracts in shared/schemas match them).
+export interface SpeedWork {
+  pct: number;
+  sets: number;
+  reps: number;
+  accommodation: 'none' | 'bands' | 'chains';
+}
+export interface AccessoryWork {
+  name: string;
+  category: string;
+  sets: number;
+  reps: number;
+  loadKg: number | null;
+  rpe: number | null;
+}
+export interface SessionWork {
+  speed: SpeedWork | null;
+  accessories: AccessoryWork[];
+}
+interface SessionParts {
+  parts: readonly string[];
+  speedLift: Lift | null;
+}
+
+/** Default speed-day sets × reps per lift (common practice, no published source). */
+export const SPEED_SETS_REPS: Readonly<Record<Lift, { sets: number; reps: number }>> = {
+  squat: { sets: 10, reps: 2 },
+  bench: { sets: 9, reps: 3 },
+  deadlift: { sets: 8, reps: 1 },
+};
+/** The default wave: 50, 55, 60 % of the training max (common practice, no published source). */
+export const SPEED_WAVE_START_PCT = 50;
+export const SPEED_WAVE_STEP_PCT = 5;
 
 /** Weeks in a speed wave before it starts again (common practice: about three, no published source). */
 export const SPEED_WAVE_WEEKS = 3;
@@ -15,21 +48,19 @@ export function waveWeek(week: IsoWeek, weeks = SPEED_WAVE_WEEKS): number {
 }
 
 /** The speed work a session gets when the coach has not set the week: this week of the default wave. */
-export function defaultSpeedWork(lift: SpeedWaveOptions['lift'], week: IsoWeek): SpeedWork {
-  // A nominal 100 kg max: only the percentage, sets and reps are taken from the wave.
-  const wave = speedWave(100, { weeks: SPEED_WAVE_WEEKS, lift });
-  const w = wave[waveWeek(week) - 1]!;
-  return { pct: w.pct, sets: w.sets, reps: w.reps, accommodation: 'none' };
+export function defaultSpeedWork(lift: Lift, week: IsoWeek): SpeedWork {
+  const pct = SPEED_WAVE_START_PCT + SPEED_WAVE_STEP_PCT * (waveWeek(week) - 1);
+  return { pct, ...SPEED_SETS_REPS[lift], accommodation: 'none' };
 }
 
 /** A session's work for the week: what the coach stored, else the defaults of its parts. */
-export function sessionWorkFor(session: Session, week: IsoWeek, stored: SessionWork | undefined): SessionWork {
+export function sessionWorkFor<W extends SessionWork>(session: SessionParts, week: IsoWeek, stored: W | undefined): W {
   const speed =
     session.parts.includes('speed') && session.speedLift
       ? (stored?.speed ?? defaultSpeedWork(session.speedLift, week))
       : null;
   const accessories = session.parts.includes('accessories') ? (stored?.accessories ?? []) : [];
-  return { speed, accessories };
+  return { ...stored, speed, accessories } as W;
 }
 
 /**
@@ -37,7 +68,7 @@ export function sessionWorkFor(session: Session, week: IsoWeek, stored: SessionW
  * 10 points lower (never under 30 %) with a third fewer sets, accessories one set fewer (at least one) and
  * an RPE target at most 7.
  */
-export function deloaded(work: SessionWork): SessionWork {
+export function deloaded<W extends SessionWork>(work: W): W {
   const speed = work.speed
     ? {
         ...work.speed,
@@ -45,10 +76,10 @@ export function deloaded(work: SessionWork): SessionWork {
         sets: Math.max(1, Math.round((work.speed.sets * 2) / 3)),
       }
     : null;
-  const accessories = work.accessories.map((a): AccessoryWork => ({
+  const accessories = work.accessories.map((a) => ({
     ...a,
     sets: Math.max(1, a.sets - 1),
     rpe: a.rpe === null ? null : Math.min(a.rpe, 7),
   }));
-  return { speed, accessories };
+  return { ...work, speed, accessories };
 }
