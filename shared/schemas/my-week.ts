@@ -5,6 +5,7 @@ import type { Division, Sex } from '../calc';
 import { isoWeek, type Unit } from './common';
 import type { Scheme, TissueCheckinRow, TissueWorkWeek, TopSet, VariantRecord, Bodyweight } from './training';
 import type { TissueKind } from '../engine/tissue';
+import type { MyWeekSession } from './week';
 
 export const myWeekQuery = z.object({ week: isoWeek.optional() });
 
@@ -69,6 +70,10 @@ export interface MyWeek {
   unit: Unit;
   athlete: { id: number; name: string; sex: Sex; division: Division };
   picks: MyWeekPick[];
+  /** A deload week: no max-effort work, lighter speed and accessory work. */
+  deload: boolean;
+  /** The week's sessions in the order of the week (none while the week is a draft). */
+  sessions: MyWeekSession[];
   tissue: TissueWorkWeek;
   /** This week and last week: what was there to report on, and what was reported. */
   checkins: MyWeekCheckin[];

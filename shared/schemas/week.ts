@@ -233,3 +233,8 @@ export interface SessionLog {
   done: boolean;
   version: number;
 }
+
+/** A session on the athlete's week page: the plan and what was logged of it. */
+export interface MyWeekSession extends WeekSession {
+  log: SessionLog | null;
+}

@@ -8,7 +8,7 @@ import { and, eq } from 'drizzle-orm';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { createDatabase, type Database } from '../../server/db/client';
-import { athletes, planEntries, teams, users } from '../../server/db/schema';
+import { athletes, planEntries, sessionLogs, teams, users } from '../../server/db/schema';
 import { seedDemoIfEmpty } from '../../server/db/seed/demo';
 import { myWeek } from '../../server/modules/my-week/my-week.service';
 import { useTestApp } from '../support/app';
@@ -49,6 +49,16 @@ describe('my-week answers on the demo data', () => {
       performedOn: now.toISOString().slice(0, 10),
       weightKg: 182.5,
       reps: 2,
+    });
+    // A session logged this week, so the sessions' logs are compared too.
+    await db.insert(sessionLogs).values({
+      teamId: entry!.teamId,
+      athleteId: entry!.athleteId,
+      week: thisWeek,
+      sessionId: 'upper-speed',
+      speedSetsDone: 5,
+      accessorySetsDone: [3],
+      done: true,
     });
     const ctx = { database };
     const weeks = [undefined, ...[-12, -6, -2, -1, 0, 1, 2, 5].map((n) => addWeeks(thisWeek, n))];

@@ -7,7 +7,7 @@ import { addWeeks, mondayOf, weekOfDate } from '../../shared/engine/weeks';
 import { restWeeks } from '../../server/db/schema';
 import type { AthleteWeek, Session } from '../../shared/schemas';
 import { useTestApp } from '../support/app';
-import { createTeam, createTopSet, createVariant, type TestTeam } from '../support/factories';
+import { createTeam, createTopSet, createVariant, publishAthleteWeek, type TestTeam } from '../support/factories';
 
 const t = useTestApp();
 let team: TestTeam;
@@ -242,5 +242,24 @@ describe('PUT /api/my-week/sessions/:sessionId', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.speedSetsDone).toBeDefined();
     expect((await coach.put('/api/my-week/sessions/lower-me').send(log(0))).status).toBe(403);
+  });
+});
+
+describe('GET /api/my-week with sessions', () => {
+  it('shows a published week’s sessions in the order of the week with what was logged', async () => {
+    await publishAthleteWeek(t.ctx.database.db, team.teamId, team.athleteId, thisWeek);
+    const res = await athlete.get('/api/my-week');
+    expect(res.status).toBe(200);
+    expect(res.body.deload).toBe(false);
+    const ids = res.body.sessions.map((s: { id: string }) => s.id);
+    expect(ids).toEqual(['lower-me', 'upper-me', 'upper-speed', 'lower-speed']); // Bench speed moved to Thursday
+    const speed = res.body.sessions.find((s: { id: string }) => s.id === 'upper-speed');
+    expect(speed.log).toMatchObject({ done: true, speedSetsDone: 6 });
+    expect(speed.speed.barKg).toBeGreaterThan(0);
+  });
+
+  it('a draft week has no sessions', async () => {
+    const res = await athlete.get(`/api/my-week?week=${addWeeks(thisWeek, 3)}`);
+    expect(res.body).toMatchObject({ published: false, sessions: [] });
   });
 });

@@ -1,5 +1,5 @@
 // The athlete's week in one answer: picks with last time and records, tissue work, check-ins,
-// bodyweight with weight class and the pre-meet gain caution, and the next meet.
+// bodyweight with weight class and the pre-meet gain caution, the next meet, and the week's sessions.
 // Read in one round of queries, one per concern (never one per pick), all scoped to the team.
 import { weightClass } from '../../../shared/calc';
 import { addWeeks, mondayOf, weekOfDate, weeksBetween } from '../../../shared/engine/weeks';
@@ -14,6 +14,7 @@ import { recordOf } from '../top-sets/records';
 import { topSetsAroundWeek } from '../top-sets/top-sets.repository';
 import { findTeamAthlete } from './athlete.repository';
 import { isWeekPublished, weekPicks } from './my-week.repository';
+import { myWeekSessions, weekInputs } from '../week/week.service';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
@@ -40,8 +41,8 @@ export async function myWeek(
 
   // A week the coach has not published is a draft the athlete does not see; weeks gone by are history.
   const thisWeek = weekOfDate(now);
-  const [athlete, rulesText, rows, sets, prescriptions, checkinRows, upcoming, readings, published] = await Promise.all(
-    [
+  const [athlete, rulesText, rows, sets, prescriptions, checkinRows, upcoming, readings, published, weekParts] =
+    await Promise.all([
       findTeamAthlete(db, teamId, athleteId),
       findTeamRulesText(db, teamId),
       weekPicks(db, teamId, athleteId, week),
@@ -53,8 +54,8 @@ export async function myWeek(
       meetsFrom(db, teamId, athleteId, today < monday ? today : monday),
       allBodyweights(db, teamId, athleteId, isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS))),
       week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
-    ],
-  );
+      weekInputs(db, teamId, athleteId, week),
+    ]);
   if (!athlete) throw new NotFoundError('A roster entry linked to your account');
   const rules = rulesFromText(teamId, rulesText);
   const meet = upcoming.find((m) => m.date >= today) ?? null;
@@ -126,6 +127,7 @@ export async function myWeek(
     unit: who.unit,
     athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
     picks,
+    ...myWeekSessions(rules, athleteId, week, weekParts, published),
     tissue,
     checkins: checkinWeeks,
     meet: meetInfo || null,

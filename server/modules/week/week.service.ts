@@ -15,6 +15,7 @@ import {
   type SessionWork,
   type TeamRules,
   type WeekSession,
+  type MyWeekSession,
 } from '../../../shared/schemas';
 import type { z } from 'zod';
 import type { athleteWeekBody, sessionLogBody } from '../../../shared/schemas';
@@ -123,7 +124,12 @@ async function mustFindAthlete(db: Queryable, teamId: number, athleteId: number)
   if (!(await repo.athleteInTeam(db, teamId, athleteId))) throw new NotFoundError('That athlete');
 }
 
-export async function getAthleteWeek(ctx: AppContext, teamId: number, athleteId: number, week: string) {
+export async function getAthleteWeek(
+  ctx: Pick<AppContext, 'database'>,
+  teamId: number,
+  athleteId: number,
+  week: string,
+) {
   const db = ctx.database.db;
   await mustFindAthlete(db, teamId, athleteId);
   const [rules, row, sets] = await Promise.all([
@@ -240,4 +246,31 @@ export async function logSession(
   const row = rows.find((r) => r.sessionId === sessionId);
   if (!ok) throw new ConflictError(STALE_LOG, row ? toSessionLog(row) : null);
   return toSessionLog(row!);
+}
+
+/** What an athlete's week page needs of the training week, read in one round (three queries side by side). */
+export async function weekInputs(db: Queryable, teamId: number, athleteId: number, week: string) {
+  const [row, logs, sets] = await Promise.all([
+    repo.findAthleteWeek(db, teamId, athleteId, week),
+    repo.sessionLogsOf(db, teamId, athleteId, week),
+    closeLiftSetsOf(db, teamId, athleteId, maxesSince(week)),
+  ]);
+  return { row, logs, sets };
+}
+
+/** The athlete's sessions of a week with what they logged; none while the week is a draft. */
+export function myWeekSessions(
+  rules: TeamRules,
+  athleteId: number,
+  week: string,
+  inputs: Awaited<ReturnType<typeof weekInputs>>,
+  published: boolean,
+): { deload: boolean; sessions: MyWeekSession[] } {
+  if (!published) return { deload: false, sessions: [] };
+  const plan = athleteWeekOf(rules, athleteId, week, inputs.row, inputs.sets);
+  const sessions = plan.sessions.map((s) => {
+    const log = inputs.logs.find((l) => l.sessionId === s.id);
+    return { ...s, log: log ? toSessionLog(log) : null };
+  });
+  return { deload: plan.deload, sessions };
 }
