@@ -21,6 +21,7 @@ function setText(s: TopSet, unit: WeightUnit): string {
 
 export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit }) {
   const [warmup, setWarmup] = useState(false);
+  const [logging, setLogging] = useState(false);
   const best = pick.record.bestE1rm;
   const suggested = best ? suggestedTopSet(best.e1rmKg, pick.schemeReps, unit) : null;
   const headingId = `pick-${pick.planEntryId}`;
@@ -108,9 +109,23 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
 
       <div className="flex flex-col gap-2 border-t border-ink-200 pt-4">
         <h3 className="text-lg font-semibold text-ink-900">Log the top set</h3>
-        <Suspense fallback={formLoading}>
-          <TopSetForm pick={pick} unit={unit} />
-        </Suspense>
+        {/* Opened on demand: the page stays short on a phone until the athlete is ready to log. */}
+        <Button
+          variant={logging ? 'secondary' : 'primary'}
+          aria-expanded={logging}
+          aria-controls={`${headingId}-log`}
+          onClick={() => setLogging((l) => !l)}
+          className="self-stretch sm:self-start"
+        >
+          {logging ? 'Close the log form' : 'Open the log form'}
+        </Button>
+        {logging ? (
+          <div id={`${headingId}-log`}>
+            <Suspense fallback={formLoading}>
+              <TopSetForm pick={pick} unit={unit} />
+            </Suspense>
+          </div>
+        ) : null}
       </div>
     </section>
   );
