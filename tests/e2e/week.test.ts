@@ -26,8 +26,28 @@ afterAll(async () => {
 });
 
 describe('the training week', () => {
-  it('the coach sets up the week’s four sessions for an athlete', async () => {
+  it('the head coach sees the four sessions in the rules and moves one to another day', async () => {
     await signInAs(b, 'coach@rackturn.test');
+    await b.page.goto(`${b.baseUrl}/rules`);
+    const names = b.page.getByLabel('Session name');
+    await names.first().waitFor();
+    expect(await names.count()).toBe(4);
+    const days = b.page.getByLabel('Day', { exact: true });
+    await days.nth(2).selectOption({ label: 'Thursday' });
+    await b.page.getByRole('button', { name: 'Save rules' }).click();
+    await b.page.getByText(/The rules are saved/).waitFor();
+    expect(await axeViolations(b.page)).toEqual([]);
+    const [[row]] = (await db.query(
+      'SELECT r.rules FROM team_rules r JOIN teams t ON t.id = r.team_id WHERE t.name = ?',
+      ['Copperkettle Barbell Club'],
+    )) as unknown as [{ rules: string | { sessions: { id: string; weekday: number }[] } }[]];
+    const rules = (typeof row!.rules === 'string' ? JSON.parse(row!.rules) : row!.rules) as {
+      sessions: { id: string; weekday: number }[];
+    };
+    expect(rules.sessions.find((x) => x.id === 'lower-speed')!.weekday).toBe(4);
+  });
+
+  it('the coach sets up the week’s four sessions for an athlete', async () => {
     await b.page.goto(`${b.baseUrl}/athletes/${noorId}`);
     await b.page.getByRole('link', { name: 'Training week' }).click();
     await b.page.waitForURL(new RegExp(`/athletes/${noorId}/weeks/${thisWeek}$`));
