@@ -1,7 +1,7 @@
 // The athlete's week page: this week's max-effort picks with their history, connective-tissue work,
 // check-ins, bodyweight and the next meet. Weights are kilograms; the page shows them in `unit`.
 import { z } from 'zod';
-import type { Division, Sex } from '../calc';
+import type { Division, OpeningRange, Sex } from '../calc';
 import { isoWeek, type Unit } from './common';
 import type { Scheme, TissueCheckinRow, TissueWorkWeek, TopSet, VariantRecord, Bodyweight } from './training';
 import type { TissueKind } from '../engine/tissue';
@@ -31,6 +31,8 @@ export interface MyWeekPick {
   record: VariantRecord;
   /** Top sets logged against this pick. */
   logged: TopSet[];
+  /** Never done before: a suggested opening range from the competition lift's estimate (an estimate). */
+  opening: OpeningRange | null;
 }
 
 export interface BodyweightChange {

@@ -7,7 +7,14 @@ import { addWeeks, mondayOf, weekOfDate } from '../../shared/engine/weeks';
 import { restWeeks } from '../../server/db/schema';
 import type { AthleteWeek, Session } from '../../shared/schemas';
 import { useTestApp } from '../support/app';
-import { createTeam, createTopSet, createVariant, publishAthleteWeek, type TestTeam } from '../support/factories';
+import {
+  createPlanEntry,
+  createTeam,
+  createTopSet,
+  createVariant,
+  publishAthleteWeek,
+  type TestTeam,
+} from '../support/factories';
 
 const t = useTestApp();
 let team: TestTeam;
@@ -256,6 +263,21 @@ describe('GET /api/my-week with sessions', () => {
     const speed = res.body.sessions.find((s: { id: string }) => s.id === 'upper-speed');
     expect(speed.log).toMatchObject({ done: true, speedSetsDone: 6 });
     expect(speed.speed.barKg).toBeGreaterThan(0);
+  });
+
+  it('suggests an opening range for a never-done variant from the competition lift, marked as an estimate', async () => {
+    const db = t.ctx.database.db;
+    const fresh = await createVariant(db, team.teamId, {
+      lift: 'bench',
+      family: 'floor press',
+      name: 'Fresh floor press',
+    });
+    await createPlanEntry(db, team.teamId, team.athleteId, fresh, { week: thisWeek, slotId: 'upper' });
+    const res = await athlete.get('/api/my-week');
+    const pick = res.body.picks.find((p: { variant: { id: number } }) => p.variant.id === fresh);
+    // Bench e1RM 175 (above); a single: 75 % = 131.25 → 130, 85 % = 148.75 → 147.5 in 2.5 kg steps
+    // (common practice, no published source).
+    expect(pick.opening).toEqual({ low: 130, high: 147.5, estimate: true, basedOn: 1 });
   });
 
   it('a draft week has no sessions', async () => {

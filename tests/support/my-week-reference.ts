@@ -1,6 +1,6 @@
 // The athlete's week as it was computed before the answer was rebuilt on fewer queries (one per concern):
 // kept, frozen, as the reference the rebuilt service must match answer for answer on the demo data.
-import { weightClass } from '../../shared/calc';
+import { openingRange, weightClass } from '../../shared/calc';
 import { addWeeks, weekOfDate, weeksBetween } from '../../shared/engine/weeks';
 import { SCHEME_REPS, type MyWeek, type MyWeekCheckin, type MyWeekPick } from '../../shared/schemas';
 import type { AppContext } from '../../server/context';
@@ -77,6 +77,14 @@ export async function referenceMyWeek(
         lastTime,
         record,
         logged: logged.filter((s) => s.planEntryId === r.planEntryId),
+        // Never done: 75–85 % of a triple/single/five from the competition lift's current estimate.
+        opening:
+          record.bestE1rm === null
+            ? await getAthleteWeek(ctx, teamId, athleteId, week).then((w) => {
+                const max = w.maxes[r.variant.lift];
+                return max ? openingRange([max.e1rmKg], SCHEME_REPS[r.variant.scheme]) : null;
+              })
+            : null,
       };
     }),
   );

@@ -14,7 +14,7 @@ import { recordOf } from '../top-sets/records';
 import { topSetsAroundWeek } from '../top-sets/top-sets.repository';
 import { findTeamAthlete } from './athlete.repository';
 import { isWeekPublished, weekPicks } from './my-week.repository';
-import { myWeekSessions, weekInputs } from '../week/week.service';
+import { myWeekSessions, openingFor, weekInputs } from '../week/week.service';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
@@ -102,6 +102,10 @@ export async function myWeek(
       lastTime: onVariant.find((s) => s.week < week) ?? null,
       record: recordOf(onVariant),
       logged: logged.filter((s) => s.planEntryId === r.planEntryId),
+      opening:
+        onVariant.length === 0 && published
+          ? openingFor(weekParts.sets, week, r.variant.lift, SCHEME_REPS[r.variant.scheme])
+          : null,
     };
   });
 

@@ -1,7 +1,13 @@
 // The training week of one athlete: the team's sessions resolved for a week with the coach's speed and
 // accessory work, the training maxes behind the speed loads, the deload mark (kept in step with the
 // max-effort rest week) and what the athlete logged of each session.
-import { DEFAULT_TRAINING_MAX_PCT, speedWave, trainingMax } from '../../../shared/calc';
+import {
+  DEFAULT_TRAINING_MAX_PCT,
+  openingRange,
+  speedWave,
+  trainingMax,
+  type OpeningRange,
+} from '../../../shared/calc';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import { deloaded, sessionWorkFor } from '../../../shared/engine/week';
 import {
@@ -273,4 +279,13 @@ export function myWeekSessions(
     return { ...s, log: log ? toSessionLog(log) : null };
   });
   return { deload: plan.deload, sessions };
+}
+
+/**
+ * A suggested opening range for a variant the athlete has never done: from the current estimate of its
+ * competition lift (an estimate, shown as such), or null without one.
+ */
+export function openingFor(sets: readonly CloseSet[], week: string, lift: Lift, reps: number): OpeningRange | null {
+  const max = liftMaxes(sets, week, DEFAULT_TRAINING_MAX_PCT)[lift];
+  return max ? openingRange([max.e1rmKg], reps) : null;
 }
