@@ -21,6 +21,7 @@ import { reviewRouter } from './review/review.router';
 import { tissueRouter } from './tissue/tissue.router';
 import { topSetsRouter } from './top-sets/top-sets.router';
 import { videosRouter } from './videos/videos.router';
+import { weekRouter } from './week/week.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
@@ -39,6 +40,7 @@ export const apiModules: ((ctx: AppContext) => Router)[] = [
   videosRouter,
   bodyweightsRouter,
   tissueRouter,
+  weekRouter,
   reviewRouter,
   feesRouter,
   paymentsRouter,

@@ -1,4 +1,4 @@
-// Trade maths shared by browser and server: e1RM, units, bar loading, warm-ups, weight classes, DOTS, RPE, meet day.
+// Trade maths shared by browser and server: e1RM, units, bar loading, warm-ups, weight classes, DOTS, RPE, meet day, training loads.
 
 export {
   E1RM_FORMULAS,
@@ -59,3 +59,24 @@ export {
   type Standing,
   type PreviousAttempt,
 } from './meet';
+export {
+  ACCOMMODATIONS,
+  ACCOMMODATION_SHARE,
+  DEFAULT_TRAINING_MAX_PCT,
+  GYM_STEP,
+  LOAD_PCT_MAX,
+  LOAD_PCT_MIN,
+  TRAINING_MAX_PCT_MIN,
+  backOffSets,
+  openingRange,
+  setE1rm,
+  speedWave,
+  trainingMax,
+  weightForReps,
+  type Accommodation,
+  type BackOffOptions,
+  type OpeningRange,
+  type SpeedWaveOptions,
+  type SpeedWeek,
+  type TrainingLift,
+} from './loads';

@@ -14,3 +14,4 @@ export * from './roster';
 export * from './meets';
 export * from './meet-day';
 export * from './loop';
+export * from './week';

@@ -1,10 +1,11 @@
 // The athlete's week page: this week's max-effort picks with their history, connective-tissue work,
 // check-ins, bodyweight and the next meet. Weights are kilograms; the page shows them in `unit`.
 import { z } from 'zod';
-import type { Division, Sex } from '../calc';
+import type { Division, OpeningRange, Sex } from '../calc';
 import { isoWeek, type Unit } from './common';
 import type { Scheme, TissueCheckinRow, TissueWorkWeek, TopSet, VariantRecord, Bodyweight } from './training';
 import type { TissueKind } from '../engine/tissue';
+import type { MyWeekSession } from './week';
 
 export const myWeekQuery = z.object({ week: isoWeek.optional() });
 
@@ -30,6 +31,8 @@ export interface MyWeekPick {
   record: VariantRecord;
   /** Top sets logged against this pick. */
   logged: TopSet[];
+  /** Never done before: a suggested opening range from the competition lift's estimate (an estimate). */
+  opening: OpeningRange | null;
 }
 
 export interface BodyweightChange {
@@ -69,6 +72,10 @@ export interface MyWeek {
   unit: Unit;
   athlete: { id: number; name: string; sex: Sex; division: Division };
   picks: MyWeekPick[];
+  /** A deload week: no max-effort work, lighter speed and accessory work. */
+  deload: boolean;
+  /** The week's sessions in the order of the week (none while the week is a draft). */
+  sessions: MyWeekSession[];
   tissue: TissueWorkWeek;
   /** This week and last week: what was there to report on, and what was reported. */
   checkins: MyWeekCheckin[];

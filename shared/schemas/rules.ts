@@ -1,6 +1,7 @@
 // Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
 import { z } from 'zod';
 import { DEFAULT_TISSUE_RULES } from '../engine/tissue';
+import { DEFAULT_SESSIONS, defaultSessionsFor, sessionsSchema } from './week';
 
 export const liftSchema = z.enum(['squat', 'bench', 'deadlift']);
 export const jointSchema = z.enum(['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee']);
@@ -55,14 +56,27 @@ const teamRulesShape = {
   /** Bodyweight gained over the last 7 days before a meet that earns a caution, in kg (common practice). */
   bodyweightGainCautionKg: z.number().min(0.1).max(10),
   tissue: tissueSettingsSchema,
+  /** The week's sessions in order of the week: what each holds and on which day. */
+  sessions: sessionsSchema,
 };
 
-function distinctSlots(r: { slots: { id: string }[] }, ctx: z.RefinementCtx) {
+function distinctSlots(
+  r: { slots: { id: string }[]; sessions: { id: string; slotId: string | null }[] },
+  ctx: z.RefinementCtx,
+) {
   const ids = new Set<string>();
   r.slots.forEach((s, i) => {
     if (ids.has(s.id))
       ctx.addIssue({ code: 'custom', path: ['slots', i, 'id'], message: 'Slot ids must be different' });
     ids.add(s.id);
+  });
+  const sessionIds = new Set<string>();
+  r.sessions.forEach((s, i) => {
+    if (sessionIds.has(s.id))
+      ctx.addIssue({ code: 'custom', path: ['sessions', i, 'id'], message: 'Session ids must be different' });
+    sessionIds.add(s.id);
+    if (s.slotId && !ids.has(s.slotId))
+      ctx.addIssue({ code: 'custom', path: ['sessions', i, 'slotId'], message: 'Pick one of the max-effort slots' });
   });
 }
 
@@ -104,6 +118,7 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
     sorenessThreshold: DEFAULT_TISSUE_RULES.sorenessThreshold,
     focusJoints: ['elbow', 'knee', 'shoulder'],
   },
+  sessions: DEFAULT_SESSIONS,
 };
 
 /**
@@ -112,7 +127,14 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
 export function readTeamRules(stored: unknown): TeamRules {
   const merged = { ...DEFAULT_TEAM_RULES, ...(typeof stored === 'object' && stored ? stored : {}) };
   const parsed = storedTeamRulesSchema.safeParse(merged);
-  return parsed.success ? parsed.data : DEFAULT_TEAM_RULES;
+  if (parsed.success) return parsed.data;
+  // Rules saved before sessions existed, with slots of their own: sessions built from those slots.
+  const slots = (merged as { slots?: unknown }).slots;
+  if (!('sessions' in (stored as object)) && Array.isArray(slots)) {
+    const again = storedTeamRulesSchema.safeParse({ ...merged, sessions: defaultSessionsFor(slots) });
+    if (again.success) return again.data;
+  }
+  return DEFAULT_TEAM_RULES;
 }
 
 /** What a coach may change for one athlete: the rotation windows and joint budgets. */

@@ -78,6 +78,10 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'library', ...page(queryClient, STAFF, () => import('./routes/library')) },
             { path: 'roster', ...page(queryClient, STAFF, () => import('./routes/roster')) },
             { path: 'athletes/:athleteId', ...page(queryClient, STAFF, () => import('./routes/athlete')) },
+            {
+              path: 'athletes/:athleteId/weeks/:week',
+              ...page(queryClient, STAFF, () => import('./routes/athlete-week')),
+            },
             { path: 'meets', ...page(queryClient, STAFF, () => import('./routes/meets')) },
             { path: 'meets/:meetId/day', ...page(queryClient, STAFF, () => import('./routes/meet-day')) },
             { path: 'meets/:meetId/sheet', ...page(queryClient, STAFF, () => import('./routes/meet-sheet')) },

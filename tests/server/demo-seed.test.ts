@@ -14,6 +14,7 @@ import { buildAthleteRequest, buildPlanRequests } from '../../shared/planning';
 import { readTeamRules } from '../../shared/schemas/rules';
 import { createDatabase, type Database } from '../../server/db/client';
 import {
+  athleteWeeks,
   athletes,
   bodyweights,
   meetAttempts,
@@ -49,6 +50,24 @@ describe('demo seed', () => {
     const all = await database.db.select().from(teams);
     expect(all.map((t) => t.name).sort()).toEqual(['Copperkettle Barbell Club', 'Quillmoor Strength Co.']);
   }, 60_000);
+
+  it('has speed days, accessories and one deload week, in step with the rest week', async () => {
+    const rows = await database.db.select().from(athleteWeeks);
+    expect(rows.length).toBeGreaterThanOrEqual(12 * 3);
+    const deloads = rows.filter((r) => r.deload);
+    expect(deloads).toHaveLength(1);
+    const rest = await database.db
+      .select()
+      .from(restWeeks)
+      .where(and(eq(restWeeks.athleteId, deloads[0]!.athleteId), eq(restWeeks.week, deloads[0]!.week)));
+    expect(rest).toHaveLength(1);
+    for (const r of rows.filter((x) => x.week === thisWeek)) {
+      expect(Object.values(r.work).every((w) => w.accessories.length > 0)).toBe(true);
+    }
+    const [club] = await database.db.select().from(teamRules);
+    const sessions = readTeamRules(club!.rules).sessions;
+    expect(sessions.filter((s) => s.parts.includes('speed'))).toHaveLength(2);
+  });
 
   it('has the demo accounts with the documented password', async () => {
     for (const email of [

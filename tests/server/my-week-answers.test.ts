@@ -12,7 +12,7 @@ import type { MyWeek } from '../../shared/schemas';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { createDatabase, type Database } from '../../server/db/client';
 import * as schema from '../../server/db/schema';
-import { athletes, planEntries, teams, users } from '../../server/db/schema';
+import { athletes, planEntries, sessionLogs, teams, users } from '../../server/db/schema';
 import { seedDemoIfEmpty } from '../../server/db/seed/demo';
 import { FINGERPRINT_TABLES } from '../../server/modules/my-week/my-week.repository';
 import { myWeek } from '../../server/modules/my-week/my-week.service';
@@ -54,6 +54,16 @@ describe('my-week answers on the demo data', () => {
       performedOn: now.toISOString().slice(0, 10),
       weightKg: 182.5,
       reps: 2,
+    });
+    // A session logged this week, so the sessions' logs are compared too.
+    await db.insert(sessionLogs).values({
+      teamId: entry!.teamId,
+      athleteId: entry!.athleteId,
+      week: thisWeek,
+      sessionId: 'upper-speed',
+      speedSetsDone: 5,
+      accessorySetsDone: [3],
+      done: true,
     });
     const ctx = { database };
     const weeks = [undefined, ...[-12, -6, -2, -1, 0, 1, 2, 5].map((n) => addWeeks(thisWeek, n))];
@@ -323,6 +333,27 @@ describe('kept answers across two app instances on one database', () => {
     )!.id;
     after = await afterWrite(() => coachThere.delete(`/api/meets/${made.body.id}/entries/${entryId}`));
     expect(after.meet).toBeNull();
+  });
+
+  it('shows a session the athlete logs and the deload week the coach sets, written on the other instance', async () => {
+    let after = await afterWrite(() =>
+      athleteThere
+        .put('/api/my-week/sessions/upper-speed')
+        .send({ week: thisWeek, version: 0, speedSetsDone: 5, accessorySetsDone: [3], done: true }),
+    );
+    expect(after.sessions.find((s) => s.id === 'upper-speed')?.log).toMatchObject({ speedSetsDone: 5, done: true });
+
+    const week = await coachThere.get(`/api/athletes/${team.athleteId}/weeks/${thisWeek}`);
+    expect(week.status).toBe(200);
+    after = await afterWrite(() =>
+      coachThere.put(`/api/athletes/${team.athleteId}/weeks/${thisWeek}`).send({
+        version: week.body.version,
+        deload: !week.body.deload,
+        trainingMaxPct: week.body.trainingMaxPct,
+        sessions: week.body.work,
+      }),
+    );
+    expect(after.deload).toBe(!week.body.deload);
   });
 
   it('reads only tables its kept answers are checked against', async () => {

@@ -69,13 +69,21 @@ describe('POST /api/top-sets', () => {
     expect(toFailure.body.error.fields.rpe[0]).toMatch(/at most 12/);
   });
 
-  it('logs a set below the record without marking one, e1RM by Epley on the reps done', async () => {
+  it('logs a set below the record without marking one, e1RM by Epley on reps done plus reps in reserve', async () => {
     const res = await athlete
       .post('/api/top-sets')
       .send({ planEntryId: entryId, unit: 'kg', weight: 140, reps: 3, rpe: 8 });
     expect(res.status).toBe(201);
-    // Epley (1985): w × (1 + r/30) = 140 × 1.1 = 154.
-    expect(res.body.topSet).toMatchObject({ weightKg: 140, reps: 3, rpe: 8, e1rmKg: 154, week: thisWeek, variantId });
+    // RPE 8 leaves two reps (Zourdos et al., JSCR 2016), so 3 + 2 = 5 reps to failure (common practice);
+    // Epley (1985): w × (1 + r/30) = 140 × (1 + 5/30) = 163.33.
+    expect(res.body.topSet).toMatchObject({
+      weightKg: 140,
+      reps: 3,
+      rpe: 8,
+      e1rmKg: 163.33,
+      week: thisWeek,
+      variantId,
+    });
     expect(res.body).toMatchObject({ newRecord: false, newHeaviest: false, firstOnVariant: false });
     expect(res.body.previousBest.e1rmKg).toBe(165);
   });

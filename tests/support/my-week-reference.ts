@@ -1,6 +1,6 @@
 // The athlete's week as it was computed before the answer was rebuilt on fewer queries (one per concern):
 // kept, frozen, as the reference the rebuilt service must match answer for answer on the demo data.
-import { weightClass } from '../../shared/calc';
+import { openingRange, weightClass } from '../../shared/calc';
 import { addWeeks, weekOfDate, weeksBetween } from '../../shared/engine/weeks';
 import { SCHEME_REPS, type MyWeek, type MyWeekCheckin, type MyWeekPick } from '../../shared/schemas';
 import type { AppContext } from '../../server/context';
@@ -13,6 +13,9 @@ import { topSetsOfWeek } from '../../server/modules/top-sets/top-sets.repository
 import { variantSummary } from '../../server/modules/top-sets/top-sets.service';
 import { findTeamAthlete } from '../../server/modules/my-week/athlete.repository';
 import { isWeekPublished, weekPicks } from '../../server/modules/my-week/my-week.repository';
+import { getAthleteWeek } from '../../server/modules/week/week.service';
+import { sessionLogs } from '../../server/db/schema';
+import { and, eq } from 'drizzle-orm';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
@@ -74,6 +77,14 @@ export async function referenceMyWeek(
         lastTime,
         record,
         logged: logged.filter((s) => s.planEntryId === r.planEntryId),
+        // Never done: 75–85 % of a triple/single/five from the competition lift's current estimate.
+        opening:
+          record.bestE1rm === null
+            ? await getAthleteWeek(ctx, teamId, athleteId, week).then((w) => {
+                const max = w.maxes[r.variant.lift];
+                return max ? openingRange([max.e1rmKg], SCHEME_REPS[r.variant.scheme]) : null;
+              })
+            : null,
       };
     }),
   );
@@ -94,6 +105,29 @@ export async function referenceMyWeek(
     daysOut: daysUntil(today, meet.date),
     weeksOut: weeksBetween(week, weekOfDate(new Date(`${meet.date}T00:00:00Z`))),
   };
+  // The training week, read on its own: the coach's view of the week and the athlete's logs.
+  const plan = published ? await getAthleteWeek(ctx, teamId, athleteId, week) : null;
+  const logs = plan
+    ? await ctx.database.db
+        .select()
+        .from(sessionLogs)
+        .where(and(eq(sessionLogs.teamId, teamId), eq(sessionLogs.athleteId, athleteId), eq(sessionLogs.week, week)))
+    : [];
+  const sessions = (plan?.sessions ?? []).map((s) => {
+    const l = logs.find((x) => x.sessionId === s.id);
+    return {
+      ...s,
+      log: l
+        ? {
+            sessionId: l.sessionId,
+            speedSetsDone: l.speedSetsDone,
+            accessorySetsDone: l.accessorySetsDone,
+            done: l.done,
+            version: l.version,
+          }
+        : null,
+    };
+  });
   return {
     week,
     published,
@@ -101,6 +135,8 @@ export async function referenceMyWeek(
     unit: who.unit,
     athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
     picks,
+    deload: plan?.deload ?? false,
+    sessions,
     tissue,
     checkins: checkinWeeks,
     meet: meetInfo || null,

@@ -7,3 +7,4 @@ export * from './training';
 export * from './mail';
 export * from './billing';
 export * from './meetday';
+export * from './week';

@@ -3,7 +3,7 @@
 // but not yet trained. Every number here is made up for the demo.
 import { eq } from 'drizzle-orm';
 import seedrandom from 'seedrandom';
-import { estimateOneRepMax } from '../../../shared/calc';
+import { setE1rm } from '../../../shared/calc';
 import { addWeeks, generatePlan, mondayOf, weekOfDate, type PlanResult } from '../../../shared/engine';
 import { buildPlanRequests, type PlanningFacts } from '../../../shared/planning';
 import { readTeamRules } from '../../../shared/schemas/rules';
@@ -173,7 +173,7 @@ function topSetFor(
     weightKg,
     reps,
     rpe,
-    e1rmKg: Math.round(estimateOneRepMax(weightKg, reps) * 100) / 100,
+    e1rmKg: setE1rm(weightKg, reps, rpe),
     note: rng() < 0.15 ? 'Moved well; last rep slowed down.' : null,
   };
 }

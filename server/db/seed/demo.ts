@@ -3,6 +3,7 @@
 import { inTransaction } from '../transaction';
 import { sql } from 'drizzle-orm';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
+import { demoWeekRows } from './demo-week';
 import { weightClass } from '../../../shared/calc';
 import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
 import { suggestAttempts } from '../../../shared/schemas/meets';
@@ -14,6 +15,7 @@ import {
   meets,
   memberships,
   restWeeks,
+  athleteWeeks,
   restrictions,
   teamRules,
   teams,
@@ -145,6 +147,9 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
           .insert(restWeeks)
           .values({ teamId, athleteId: row!.id, week: addWeeks(thisWeek, w), createdBy: staffIds[0] ?? null });
       }
+      await tx
+        .insert(athleteWeeks)
+        .values(demoWeekRows(teamId, row!.id, athleteIds.size, thisWeek, a.restInWeeks ?? [], staffIds[0] ?? null));
     }
 
     for (const m of DEMO_MEETS) {

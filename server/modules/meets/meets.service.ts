@@ -43,6 +43,12 @@ export function checkWeightClass(label: string | null | undefined, sex: 'M' | 'F
   }
 }
 
+/** One athlete's top sets since `since` on variants close to a competition lift: what current maxes come from. */
+export async function closeLiftSetsOf(db: Queryable, teamId: number, athleteId: number, since: string) {
+  const rows = await repo.recentCompetitionSets(db, teamId, [athleteId], since, CURRENT_MAX_MIN_SPECIFICITY);
+  return rows.map((s) => ({ ...s, weightKg: Number(s.weightKg), rpe: s.rpe === null ? null : Number(s.rpe) }));
+}
+
 async function toDtos(db: Queryable, teamId: number, rows: repo.MeetRow[]): Promise<Meet[]> {
   const entries = await repo.entriesOf(
     db,

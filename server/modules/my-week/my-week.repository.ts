@@ -7,10 +7,12 @@ import type { Queryable } from '../../db/client';
 import {
   athletes,
   athleteWeekPublications,
+  athleteWeeks,
   bodyweights,
   meetEntries,
   meets,
   planEntries,
+  sessionLogs,
   teamRules,
   tissueCheckins,
   tissuePrescriptions,
@@ -122,6 +124,9 @@ const FINGERPRINT_PARTS: FingerprintPart[] = [
     params: ['team', 'athlete', 'since'],
   },
   own(athleteWeekPublications, true),
+  // The week's sessions: the coach's training week of the athlete and what the athlete logged of it.
+  own(athleteWeeks, true),
+  own(sessionLogs, true),
 ];
 
 /** The tables the fingerprint covers (for the test that holds the page to them). */

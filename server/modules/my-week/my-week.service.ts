@@ -1,5 +1,5 @@
 // The athlete's week in one answer: picks with last time and records, tissue work, check-ins,
-// bodyweight with weight class and the pre-meet gain caution, and the next meet.
+// bodyweight with weight class and the pre-meet gain caution, the next meet, and the week's sessions.
 // Read in one round of queries, one per concern (never one per pick), all scoped to the team.
 import { weightClass } from '../../../shared/calc';
 import { addWeeks, mondayOf, weekOfDate, weeksBetween } from '../../../shared/engine/weeks';
@@ -15,6 +15,7 @@ import { topSetsAroundWeek } from '../top-sets/top-sets.repository';
 import { findTeamAthlete } from './athlete.repository';
 import { keptAnswer } from './answer-cache';
 import { isWeekPublished, weekFingerprint, weekPicks } from './my-week.repository';
+import { myWeekSessions, openingFor, weekInputs } from '../week/week.service';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
@@ -44,8 +45,8 @@ export async function myWeek(
 
   // A week the coach has not published is a draft the athlete does not see; weeks gone by are history.
   const thisWeek = weekOfDate(now);
-  const [athlete, rulesText, rows, sets, prescriptions, checkinRows, upcoming, readings, published] = await Promise.all(
-    [
+  const [athlete, rulesText, rows, sets, prescriptions, checkinRows, upcoming, readings, published, weekParts] =
+    await Promise.all([
       findTeamAthlete(db, teamId, athleteId),
       findTeamRulesText(db, teamId),
       weekPicks(db, teamId, athleteId, week),
@@ -57,8 +58,8 @@ export async function myWeek(
       meetsFrom(db, teamId, athleteId, today < monday ? today : monday),
       allBodyweights(db, teamId, athleteId, recentSince(now)),
       week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
-    ],
-  );
+      weekInputs(db, teamId, athleteId, week),
+    ]);
   if (!athlete) throw new NotFoundError('A roster entry linked to your account');
   const rules = rulesFromText(teamId, rulesText);
   const meet = upcoming.find((m) => m.date >= today) ?? null;
@@ -105,6 +106,10 @@ export async function myWeek(
       lastTime: onVariant.find((s) => s.week < week) ?? null,
       record: recordOf(onVariant),
       logged: logged.filter((s) => s.planEntryId === r.planEntryId),
+      opening:
+        onVariant.length === 0 && published
+          ? openingFor(weekParts.sets, week, r.variant.lift, SCHEME_REPS[r.variant.scheme])
+          : null,
     };
   });
 
@@ -130,6 +135,7 @@ export async function myWeek(
     unit: who.unit,
     athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
     picks,
+    ...myWeekSessions(rules, athleteId, week, weekParts, published),
     tissue,
     checkins: checkinWeeks,
     meet: meetInfo || null,

@@ -1,14 +1,14 @@
 // Per-variant records and the e1RM of a logged set: pure, so the rules are tested on their own.
-import { estimateOneRepMax } from '../../../shared/calc';
+import { setE1rm } from '../../../shared/calc';
 import type { TopSet } from '../../../shared/schemas';
 
 /**
- * e1RM stored with a top set: Epley on the reps actually done, rounded to 0.01 kg like the column. The RPE
- * is kept beside it but not folded in, so every stored estimate (seeded history included) is made the
- * same way and a record means the same thing from week to week.
+ * e1RM stored with a top set, rounded to 0.01 kg like the column: Epley on the reps done plus the reps in
+ * reserve the logged RPE says were left (a single at RPE 8 is not a max), plain Epley without an RPE. The
+ * seeded history is made the same way, so a record means the same thing from week to week.
  */
-export function topSetE1rmKg(weightKg: number, reps: number): number {
-  return Math.round(estimateOneRepMax(weightKg, reps) * 100) / 100;
+export function topSetE1rmKg(weightKg: number, reps: number, rpe: number | null = null): number {
+  return setE1rm(weightKg, reps, rpe);
 }
 
 type Mark = Pick<TopSet, 'weightKg' | 'reps' | 'e1rmKg'>;

@@ -39,7 +39,7 @@ export async function logTopSet(
     throw new ValidationError('Some fields need attention.', { planEntryId: ['That week has not started yet'] });
   }
   const weightKg = Math.round(toKg(body.weight, body.unit) * 100) / 100;
-  const e1rmKg = topSetE1rmKg(weightKg, body.reps);
+  const e1rmKg = topSetE1rmKg(weightKg, body.reps, body.rpe ?? null);
   const variantId = entry.variantId;
   return inTransaction(ctx.database.db, async (tx) => {
     const id = await insertTopSet(tx, {

@@ -4,6 +4,7 @@ import { useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { formatWeight } from '../../../shared/calc';
+import { weekOfDate } from '../../../shared/engine/weeks';
 import type { Athlete } from '../../../shared/schemas';
 import { Button } from '../../components/ui/button';
 import { Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
@@ -89,9 +90,17 @@ export function Component() {
               Restore athlete
             </Button>
           ) : (
-            <Button variant="secondary" onClick={() => archive.mutate(id)}>
-              Archive athlete
-            </Button>
+            <>
+              <Link
+                to={`/athletes/${id}/weeks/${weekOfDate(new Date())}`}
+                className="inline-flex min-h-11 items-center rounded-md border border-ink-600 bg-chalk-50 px-4 font-semibold text-ink-900 hover:bg-chalk-200"
+              >
+                Training week
+              </Link>
+              <Button variant="secondary" onClick={() => archive.mutate(id)}>
+                Archive athlete
+              </Button>
+            </>
           )
         }
       />

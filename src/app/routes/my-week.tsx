@@ -1,5 +1,5 @@
 // My week (athlete, phone first): the week's max-effort picks with warm-ups and logging, connective-
-// tissue work and its check-in, bodyweight, and the training caution.
+// tissue work and its check-in, bodyweight, the training caution below the picks, and the week's sessions.
 import { Suspense, lazy } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { addWeeks, mondayOf } from '../../../shared/engine/weeks';
@@ -7,6 +7,7 @@ import { Loading, Notice, PageHeader, TrainingCaution } from '../../components/u
 import { useMyWeek } from '../../features/my-week/api/queries';
 import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
+import { WeekSessions } from '../../features/my-week/components/week-sessions';
 import { weekParam } from './my-week.loader';
 
 // Below the picks, with forms: their code (and the validation library) loads after the picks are shown.
@@ -53,7 +54,6 @@ export function Component() {
           Next week →
         </Link>
       </nav>
-      <TrainingCaution />
       {!data.published ? (
         <Notice>Your coach is still planning this week. Your max-effort work shows here once it is published.</Notice>
       ) : data.picks.length === 0 ? (
@@ -61,6 +61,16 @@ export function Component() {
       ) : (
         data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)
       )}
+      <TrainingCaution />
+      <WeekSessions
+        sessions={data.sessions}
+        week={data.week}
+        today={data.today}
+        editable={mondayOf(data.week).toISOString().slice(0, 10) <= data.today}
+        unit={data.unit}
+        picks={data.picks}
+        deload={data.deload}
+      />
       <TissueWork tissue={data.tissue} />
       <Suspense fallback={<Loading />}>
         <CheckinForm weeks={data.checkins} thisWeek={data.week} />

@@ -94,3 +94,16 @@ describe('layoutSleeve', () => {
     expect(placed[0]!.colour.name).toBe('red'); // federation colour of the 25 kg disc
   });
 });
+
+describe('liveEstimate with an RPE', () => {
+  it('adds the reps in reserve, like the stored estimate', () => {
+    // 1 × 130 at RPE 8: two reps left (Zourdos et al., JSCR 2016), Epley (1985) at 3 reps: 130 × 1.1 = 143.
+    expect(liveEstimate(130, 1, 'kg', record(140), 8)).toEqual({
+      e1rmKg: 143,
+      beatsRecord: true,
+      firstOnVariant: false,
+    });
+    // An RPE that is not on the scale yet (still being typed) is left out.
+    expect(liveEstimate(130, 1, 'kg', record(140), 8.3)?.e1rmKg).toBe(130);
+  });
+});

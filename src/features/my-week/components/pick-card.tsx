@@ -1,7 +1,7 @@
 // One max-effort pick of the week: the variant and scheme, last time and record, the warm-up with
 // plates, and the log form.
 import { Suspense, lazy, useState } from 'react';
-import { formatWeight, type WeightUnit } from '../../../../shared/calc';
+import { formatWeight, fromKg, roundToLoadable, type WeightUnit } from '../../../../shared/calc';
 import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
@@ -21,8 +21,13 @@ function setText(s: TopSet, unit: WeightUnit): string {
 
 export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit }) {
   const [warmup, setWarmup] = useState(false);
+  const [logging, setLogging] = useState(false);
   const best = pick.record.bestE1rm;
-  const suggested = best ? suggestedTopSet(best.e1rmKg, pick.schemeReps, unit) : null;
+  const suggested = best
+    ? suggestedTopSet(best.e1rmKg, pick.schemeReps, unit)
+    : pick.opening
+      ? roundToLoadable(fromKg(pick.opening.low, unit), unit, { mode: 'down' })
+      : null;
   const headingId = `pick-${pick.planEntryId}`;
   return (
     <section
@@ -47,6 +52,13 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
             {pick.lastTime
               ? `${setText(pick.lastTime, unit)} · ${pick.lastTime.performedOn}`
               : 'First time on this variant'}
+            {!pick.lastTime && pick.opening ? (
+              <span className="block text-sm font-normal text-ink-700" data-testid="opening-range">
+                Suggested start: {formatWeight(pick.opening.low, unit, { decimals: 1 })} –{' '}
+                {formatWeight(pick.opening.high, unit, { decimals: 1 })} (an estimate from your{' '}
+                {LIFT_LABEL[pick.variant.lift].toLowerCase()}; work up by feel)
+              </span>
+            ) : null}
           </dd>
         </div>
         <div className="rounded-md bg-chalk-100 px-3 py-2">
@@ -108,9 +120,23 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
 
       <div className="flex flex-col gap-2 border-t border-ink-200 pt-4">
         <h3 className="text-lg font-semibold text-ink-900">Log the top set</h3>
-        <Suspense fallback={formLoading}>
-          <TopSetForm pick={pick} unit={unit} />
-        </Suspense>
+        {/* Opened on demand: the page stays short on a phone until the athlete is ready to log. */}
+        <Button
+          variant={logging ? 'secondary' : 'primary'}
+          aria-expanded={logging}
+          aria-controls={`${headingId}-log`}
+          onClick={() => setLogging((l) => !l)}
+          className="self-stretch sm:self-start"
+        >
+          {logging ? 'Close the log form' : 'Open the log form'}
+        </Button>
+        {logging ? (
+          <div id={`${headingId}-log`}>
+            <Suspense fallback={formLoading}>
+              <TopSetForm pick={pick} unit={unit} />
+            </Suspense>
+          </div>
+        ) : null}
       </div>
     </section>
   );

@@ -40,8 +40,9 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
     },
   });
   const { errors } = form.formState;
-  const [weight, reps] = useWatch({ control: form.control, name: ['weight', 'reps'] });
-  const live = liveEstimate(Number(String(weight ?? '').replace(',', '.')), Number(reps), unit, pick.record);
+  const [weight, reps, rpe] = useWatch({ control: form.control, name: ['weight', 'reps', 'rpe'] });
+  const typedRpe = String(rpe ?? '').trim() === '' ? null : Number(String(rpe).replace(',', '.'));
+  const live = liveEstimate(Number(String(weight ?? '').replace(',', '.')), Number(reps), unit, pick.record, typedRpe);
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {
@@ -145,7 +146,9 @@ function LivePanel({ live, unit }: { live: ReturnType<typeof liveEstimate>; unit
           )}
         </p>
       ) : (
-        <p className="text-sm text-ink-600">Enter weight and reps to see the e1RM (Epley, from the reps done).</p>
+        <p className="text-sm text-ink-600">
+          Enter weight and reps to see the e1RM (Epley; an RPE adds the reps you had left).
+        </p>
       )}
     </div>
   );

@@ -1,6 +1,6 @@
 // The numbers the week page works out in the browser: the suggested top set, the live e1RM of the
 // form, and how it compares with the variant's record. Same maths as the server (shared/calc).
-import { estimateOneRepMax, fromKg, roundToLoadable, toKg, type WeightUnit } from '../../../../shared/calc';
+import { fromKg, isValidRpe, setE1rm, roundToLoadable, toKg, type WeightUnit } from '../../../../shared/calc';
 import type { Scheme, VariantRecord } from '../../../../shared/schemas';
 
 export const SCHEME_LABEL: Readonly<Record<Scheme, string>> = {
@@ -26,16 +26,20 @@ export interface LiveEstimate {
   firstOnVariant: boolean;
 }
 
-/** The e1RM of what the form holds, or null while the weight or reps are not usable yet. */
+/**
+ * The e1RM of what the form holds (RPE-aware once a valid RPE is typed, like the stored one), or null while
+ * the weight or reps are not usable yet.
+ */
 export function liveEstimate(
   weight: number,
   reps: number,
   unit: WeightUnit,
   record: VariantRecord,
+  rpe: number | null = null,
 ): LiveEstimate | null {
   if (!Number.isFinite(weight) || weight <= 0 || !Number.isInteger(reps) || reps < 1 || reps > 12) return null;
   const weightKg = Math.round(toKg(weight, unit) * 100) / 100;
-  const e1rmKg = Math.round(estimateOneRepMax(weightKg, reps) * 100) / 100;
+  const e1rmKg = setE1rm(weightKg, reps, rpe !== null && isValidRpe(rpe) ? rpe : null);
   const best = record.bestE1rm?.e1rmKg;
   return { e1rmKg, beatsRecord: best === undefined || e1rmKg > best, firstOnVariant: best === undefined };
 }

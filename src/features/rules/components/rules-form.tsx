@@ -14,6 +14,7 @@ import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useSaveRules } from '../api/use-save-rules';
 import { RuleRow, RuleSection } from './rule-row';
+import { SessionsSection } from './sessions-section';
 
 type Form = UseFormReturn<TeamRulesBody>;
 const LIFT_WORD = { squat: 'squat', bench: 'bench', deadlift: 'deadlift' } as const;
@@ -61,6 +62,7 @@ export function RulesForm({ doc }: { doc: TeamRulesDoc }) {
         <Notice tone="error">Some settings need attention: they are marked below.</Notice>
       ) : null}
       <Slots form={form} savedIds={savedSlotIds} />
+      <SessionsSection form={form} />
       <Windows form={form} />
       <Budgets form={form} />
       <Balance form={form} />

@@ -1,0 +1,236 @@
+// The coach's view of one athlete's week beside the Board: every session but the max-effort pick, with
+// the speed work (percentage of the training max, sets × reps, bands or chains), accessories with
+// sets × reps and a load or an RPE target, the training-max share and the deload mark.
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useFieldArray, useForm, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
+import { formatWeight } from '../../../../shared/calc';
+import {
+  ACCESSORY_CATEGORIES,
+  ACCESSORY_CATEGORY_LABELS,
+  SESSION_PART_LABELS,
+  WEEKDAY_LABELS,
+  athleteWeekBody,
+  type AthleteWeek,
+  type AthleteWeekBody,
+  type WeekSession,
+} from '../../../../shared/schemas';
+import { Button } from '../../../components/ui/button';
+import { SelectField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/page';
+import { isApiError } from '../../../lib/api-client';
+import { useSaveWeek } from '../api/use-save-week';
+
+type Values = AthleteWeekBody;
+const num = { valueAsNumber: true } as const;
+/** An empty number box means "none" for an optional load or RPE. */
+const optionalNum = { setValueAs: (v: unknown) => (v === '' || v === null ? null : Number(v)) } as const;
+
+function valuesOf(w: AthleteWeek): Values {
+  return { version: w.version, deload: w.deload, trainingMaxPct: w.trainingMaxPct, sessions: structuredClone(w.work) };
+}
+
+type Errs = FieldErrors<Values>;
+function errorAt(errors: Errs, path: string): string | undefined {
+  let node: unknown = errors;
+  for (const k of path.split('.')) node = (node as Record<string, unknown> | undefined)?.[k];
+  return (node as { message?: string } | undefined)?.message;
+}
+
+function Accessories({
+  sessionId,
+  control,
+  register,
+  errors,
+}: {
+  sessionId: string;
+  control: Control<Values>;
+  register: UseFormRegister<Values>;
+  errors: Errs;
+}) {
+  const { fields, append, remove } = useFieldArray({ control, name: `sessions.${sessionId}.accessories` });
+  const base = `sessions.${sessionId}.accessories` as const;
+  return (
+    <fieldset className="flex flex-col gap-3">
+      <legend className="font-semibold text-ink-900">Accessories</legend>
+      {fields.length === 0 ? <p className="text-sm text-ink-600">None yet.</p> : null}
+      {fields.map((f, i) => (
+        <div key={f.id} className="grid grid-cols-2 gap-2 rounded-md bg-chalk-100 p-3 sm:grid-cols-6">
+          <div className="col-span-2">
+            <TextField
+              label="Exercise"
+              {...register(`${base}.${i}.name`)}
+              error={errorAt(errors, `${base}.${i}.name`)}
+            />
+          </div>
+          <SelectField label="Category" {...register(`${base}.${i}.category`)}>
+            {ACCESSORY_CATEGORIES.map((c) => (
+              <option key={c} value={c}>
+                {ACCESSORY_CATEGORY_LABELS[c]}
+              </option>
+            ))}
+          </SelectField>
+          <TextField
+            label="Sets"
+            type="number"
+            inputMode="numeric"
+            {...register(`${base}.${i}.sets`, num)}
+            error={errorAt(errors, `${base}.${i}.sets`)}
+          />
+          <TextField
+            label="Reps"
+            type="number"
+            inputMode="numeric"
+            {...register(`${base}.${i}.reps`, num)}
+            error={errorAt(errors, `${base}.${i}.reps`)}
+          />
+          <TextField
+            label="Load (kg)"
+            type="number"
+            step="0.5"
+            inputMode="decimal"
+            {...register(`${base}.${i}.loadKg`, optionalNum)}
+            error={errorAt(errors, `${base}.${i}.loadKg`)}
+          />
+          <TextField
+            label="RPE target"
+            type="number"
+            step="0.5"
+            inputMode="decimal"
+            {...register(`${base}.${i}.rpe`, optionalNum)}
+            error={errorAt(errors, `${base}.${i}.rpe`)}
+          />
+          <Button variant="ghost" onClick={() => remove(i)} className="self-end">
+            Remove
+          </Button>
+        </div>
+      ))}
+      <Button
+        variant="secondary"
+        className="self-start"
+        onClick={() => append({ name: '', category: 'upperBack', sets: 3, reps: 10, loadKg: null, rpe: 8 })}
+      >
+        Add an accessory
+      </Button>
+    </fieldset>
+  );
+}
+
+function SessionFields({
+  session,
+  control,
+  register,
+  errors,
+}: {
+  session: WeekSession;
+  control: Control<Values>;
+  register: UseFormRegister<Values>;
+  errors: Errs;
+}) {
+  const sp = `sessions.${session.id}.speed` as const;
+  return (
+    <section
+      aria-labelledby={`edit-${session.id}`}
+      className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-chalk-50 p-4"
+    >
+      <h2 id={`edit-${session.id}`} className="text-lg font-bold text-ink-900">
+        {session.name} <span className="text-sm font-normal text-ink-600">· {WEEKDAY_LABELS[session.weekday - 1]}</span>
+      </h2>
+      <p className="text-sm text-ink-600">{session.parts.map((p) => SESSION_PART_LABELS[p]).join(' · ')}</p>
+      {session.parts.includes('maxEffort') ? (
+        <p className="text-sm text-ink-700">The max-effort pick is planned on the Board.</p>
+      ) : null}
+      {session.speed ? (
+        <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-4">
+          <legend className="col-span-full font-semibold text-ink-900">
+            Speed · {session.speed.lift}
+            {session.speed.barKg !== null
+              ? ` · ${formatWeight(session.speed.barKg, 'kg', { decimals: 1 })} on the bar this week`
+              : ' · no recent max to load from'}
+          </legend>
+          <TextField
+            label="% of training max"
+            type="number"
+            step="0.5"
+            {...register(`${sp}.pct`, num)}
+            error={errorAt(errors, `${sp}.pct`)}
+          />
+          <TextField
+            label="Sets"
+            type="number"
+            {...register(`${sp}.sets`, num)}
+            error={errorAt(errors, `${sp}.sets`)}
+          />
+          <TextField
+            label="Reps"
+            type="number"
+            {...register(`${sp}.reps`, num)}
+            error={errorAt(errors, `${sp}.reps`)}
+          />
+          <SelectField label="Bands or chains" {...register(`${sp}.accommodation`)}>
+            <option value="none">None</option>
+            <option value="bands">Bands</option>
+            <option value="chains">Chains</option>
+          </SelectField>
+        </fieldset>
+      ) : null}
+      {session.parts.includes('accessories') ? (
+        <Accessories sessionId={session.id} control={control} register={register} errors={errors} />
+      ) : null}
+    </section>
+  );
+}
+
+export function WeekEditor({ athleteId, data }: { athleteId: number; data: AthleteWeek }) {
+  const save = useSaveWeek(athleteId, data.week);
+  const [notice, setNotice] = useState<{ tone: 'success' | 'error'; text: string } | null>(null);
+  const form = useForm<Values>({ resolver: zodResolver(athleteWeekBody) as never, values: valuesOf(data) });
+  const { register, control, formState } = form;
+  const errors = formState.errors;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setNotice(null);
+    try {
+      await save.mutateAsync(values);
+      setNotice({ tone: 'success', text: 'Week saved.' });
+    } catch (err) {
+      if (isApiError(err)) {
+        for (const [k, v] of Object.entries(err.fields)) form.setError(k as never, { message: v[0] });
+        setNotice({ tone: 'error', text: err.message });
+      }
+    }
+  });
+
+  const lifts = (['squat', 'bench', 'deadlift'] as const).map((l) => {
+    const m = data.maxes[l];
+    return `${l}: ${m ? `${formatWeight(m.e1rmKg, 'kg', { decimals: 1 })} e1RM → ${formatWeight(m.trainingMaxKg, 'kg', { decimals: 1 })}` : 'no recent estimate'}`;
+  });
+
+  return (
+    <form aria-label={`Training week ${data.week}`} onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
+      {notice ? <Notice tone={notice.tone}>{notice.text}</Notice> : null}
+      <div className="flex flex-wrap items-end gap-4">
+        <label className="inline-flex min-h-11 items-center gap-2 font-semibold text-ink-800">
+          <input type="checkbox" className="size-4 accent-rust-500" {...register('deload')} />
+          Deload week (no max effort, lighter speed and accessory work)
+        </label>
+        <div className="w-48">
+          <TextField
+            label="Training max (% of e1RM)"
+            type="number"
+            {...register('trainingMaxPct', num)}
+            error={errorAt(errors, 'trainingMaxPct')}
+          />
+        </div>
+      </div>
+      {errorAt(errors, 'deload') ? <Notice tone="error">{errorAt(errors, 'deload')}</Notice> : null}
+      <p className="text-sm text-ink-700">Training maxes — {lifts.join(' · ')}</p>
+      {data.sessions.map((s) => (
+        <SessionFields key={s.id} session={s} control={control} register={register} errors={errors} />
+      ))}
+      <Button type="submit" disabled={save.isPending} className="self-start">
+        Save the week
+      </Button>
+    </form>
+  );
+}
