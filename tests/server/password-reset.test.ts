@@ -151,7 +151,12 @@ describe('using the link', () => {
 
 describe('rate limits', () => {
   const limited = useTestApp({ RESET_LIMIT_PER_ADDRESS: '2', RESET_LIMIT_PER_IP: '1000' });
-  const byIp = useTestApp({ RESET_LIMIT_PER_ADDRESS: '1000', RESET_LIMIT_PER_IP: '3' });
+  // Counters are shared through the database, so this app and its twin (another instance) count together;
+  // each test comes from its own client address (forwarded by the proxy in front) to stand alone.
+  const byIp = useTestApp({ RESET_LIMIT_PER_ADDRESS: '1000', RESET_LIMIT_PER_IP: '3', TRUST_PROXY: '1' });
+  const byIpTwin = useTestApp({ RESET_LIMIT_PER_ADDRESS: '1000', RESET_LIMIT_PER_IP: '3', TRUST_PROXY: '1' });
+  let lastOctet = 10 + (process.pid % 200);
+  const clientAddress = () => `203.0.113.${lastOctet++ % 250}`;
 
   it('limits requests per address, whatever the address', async () => {
     const email = `limited-${uniq()}@example.test`;
@@ -166,15 +171,38 @@ describe('rate limits', () => {
   });
 
   it('limits requests per client address across e-mail addresses', async () => {
+    const from = clientAddress();
     const statuses: number[] = [];
     for (let i = 0; i < 4; i++)
       statuses.push(
         (
           await request(byIp.app)
             .post('/api/auth/password-reset')
+            .set('X-Forwarded-For', from)
             .send({ email: `ip-${i}-${uniq()}@example.test` })
         ).status,
       );
     expect(statuses).toEqual([200, 200, 200, 429]);
+  });
+
+  it('counts one client across instances: the limit holds whichever instance answers', async () => {
+    const from = clientAddress();
+    const statuses: number[] = [];
+    for (const [i, app] of [byIp, byIpTwin, byIp, byIpTwin].entries())
+      statuses.push(
+        (
+          await request(app.app)
+            .post('/api/auth/password-reset')
+            .set('X-Forwarded-For', from)
+            .send({ email: `twin-${i}-${uniq()}@example.test` })
+        ).status,
+      );
+    expect(statuses).toEqual([200, 200, 200, 429]);
+    // Another client is not held back.
+    const other = await request(byIpTwin.app)
+      .post('/api/auth/password-reset')
+      .set('X-Forwarded-For', clientAddress())
+      .send({ email: `twin-other-${uniq()}@example.test` });
+    expect(other.status).toBe(200);
   });
 });

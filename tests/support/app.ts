@@ -29,6 +29,8 @@ export function testEnv(overrides: Record<string, string> = {}) {
     LOG_LEVEL: 'silent',
     LOGIN_LIMIT_PER_IP: '10000',
     LOGIN_LIMIT_PER_ACCOUNT: '10000',
+    // Rate-limit counters live in the shared test database: every file's requests come from one address.
+    RESET_LIMIT_PER_IP: '10000',
     CLIENT_DIST: '',
     ...overrides,
   });

@@ -145,3 +145,17 @@ export const signInLimits = mysqlTable(
   },
   (t) => [index('sign_in_limits_last_failure_idx').on(t.lastFailureAt)],
 );
+
+/**
+ * Request counters of the rate-limited routes (password reset, accepting an invitation) per hashed key, with
+ * the end of their window. In MariaDB so every instance counts together.
+ */
+export const rateLimitHits = mysqlTable(
+  'rate_limit_hits',
+  {
+    keyHash: char('key_hash', { length: 64 }).primaryKey(),
+    hits: int('hits', { unsigned: true }).notNull().default(0),
+    resetAt: datetime('reset_at', { mode: 'date', fsp: 3 }).notNull(),
+  },
+  (t) => [index('rate_limit_hits_reset_idx').on(t.resetAt)],
+);

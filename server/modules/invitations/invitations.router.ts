@@ -10,6 +10,7 @@ import {
   listInvitationsQuery,
 } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
+import { MariaDbRateLimitStore } from '../../db/rate-limit-store';
 import { HEAD_COACH, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { AppError } from '../../lib/errors';
@@ -31,6 +32,7 @@ export function invitationsRouter(ctx: AppContext): Router {
   const acceptLimit = rateLimit({
     windowMs: 15 * 60 * 1000,
     limit: ctx.env.LOGIN_LIMIT_PER_IP,
+    store: new MariaDbRateLimitStore(ctx.database.db, 'accept-ip'),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: () => {

@@ -3,6 +3,7 @@ import { Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { forgotPasswordBody, resetPasswordBody, resetTokenQuery } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
+import { MariaDbRateLimitStore } from '../../db/rate-limit-store';
 import { validate } from '../../middleware/validate';
 import { AppError } from '../../lib/errors';
 import { setSessionCookie } from '../../lib/session';
@@ -24,10 +25,15 @@ function resetLimiters(ctx: AppContext) {
     },
   };
   return [
-    rateLimit({ ...common, limit: ctx.env.RESET_LIMIT_PER_IP }),
+    rateLimit({
+      ...common,
+      limit: ctx.env.RESET_LIMIT_PER_IP,
+      store: new MariaDbRateLimitStore(ctx.database.db, 'reset-ip'),
+    }),
     rateLimit({
       ...common,
       limit: ctx.env.RESET_LIMIT_PER_ADDRESS,
+      store: new MariaDbRateLimitStore(ctx.database.db, 'reset-address'),
       keyGenerator: (req) =>
         `reset:${String(req.body?.email ?? '')
           .trim()
