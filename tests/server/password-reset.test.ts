@@ -157,12 +157,27 @@ describe('rate limits', () => {
   const byIpTwin = useTestApp({ RESET_LIMIT_PER_ADDRESS: '1000', RESET_LIMIT_PER_IP: '3', TRUST_PROXY: '1' });
   let lastOctet = 10 + (process.pid % 200);
   const clientAddress = () => `203.0.113.${lastOctet++ % 250}`;
+  /** Sends one request per app, one after another, and gives their statuses. */
+  async function inTurn<A>(apps: A[], send: (app: A, i: number) => PromiseLike<{ status: number }>) {
+    const statuses: number[] = [];
+    for (const [i, app] of apps.entries()) statuses.push((await send(app, i)).status);
+    return statuses;
+  }
+
+  it('counts a body without a valid address against no address: every such request is a 400, never a 429', async () => {
+    const statuses = await inTurn([limited, limited, limited, limited, limited], (app, i) =>
+      request(app.app)
+        .post('/api/auth/password-reset')
+        .send(i < 3 ? {} : { email: 'not an address' }),
+    );
+    expect(statuses).toEqual([400, 400, 400, 400, 400]);
+  });
 
   it('limits requests per address, whatever the address', async () => {
     const email = `limited-${uniq()}@example.test`;
-    const statuses: number[] = [];
-    for (let i = 0; i < 4; i++)
-      statuses.push((await request(limited.app).post('/api/auth/password-reset').send({ email })).status);
+    const statuses = await inTurn([limited, limited, limited, limited], (app) =>
+      request(app.app).post('/api/auth/password-reset').send({ email }),
+    );
     expect(statuses).toEqual([200, 200, 429, 429]);
     const fresh = await request(limited.app)
       .post('/api/auth/password-reset')
@@ -172,31 +187,23 @@ describe('rate limits', () => {
 
   it('limits requests per client address across e-mail addresses', async () => {
     const from = clientAddress();
-    const statuses: number[] = [];
-    for (let i = 0; i < 4; i++)
-      statuses.push(
-        (
-          await request(byIp.app)
-            .post('/api/auth/password-reset')
-            .set('X-Forwarded-For', from)
-            .send({ email: `ip-${i}-${uniq()}@example.test` })
-        ).status,
-      );
+    const statuses = await inTurn([byIp, byIp, byIp, byIp], (app, i) =>
+      request(app.app)
+        .post('/api/auth/password-reset')
+        .set('X-Forwarded-For', from)
+        .send({ email: `ip-${i}-${uniq()}@example.test` }),
+    );
     expect(statuses).toEqual([200, 200, 200, 429]);
   });
 
   it('counts one client across instances: the limit holds whichever instance answers', async () => {
     const from = clientAddress();
-    const statuses: number[] = [];
-    for (const [i, app] of [byIp, byIpTwin, byIp, byIpTwin].entries())
-      statuses.push(
-        (
-          await request(app.app)
-            .post('/api/auth/password-reset')
-            .set('X-Forwarded-For', from)
-            .send({ email: `twin-${i}-${uniq()}@example.test` })
-        ).status,
-      );
+    const statuses = await inTurn([byIp, byIpTwin, byIp, byIpTwin], (app, i) =>
+      request(app.app)
+        .post('/api/auth/password-reset')
+        .set('X-Forwarded-For', from)
+        .send({ email: `twin-${i}-${uniq()}@example.test` }),
+    );
     expect(statuses).toEqual([200, 200, 200, 429]);
     // Another client is not held back.
     const other = await request(byIpTwin.app)

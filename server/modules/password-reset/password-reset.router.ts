@@ -34,6 +34,9 @@ function resetLimiters(ctx: AppContext) {
       ...common,
       limit: ctx.env.RESET_LIMIT_PER_ADDRESS,
       store: new MariaDbRateLimitStore(ctx.database.db, 'reset-address'),
+      // This limit guards an inbox: a body without a valid address (refused as 400 below) counts only
+      // against the caller's address, not against one shared empty key every such request would fill.
+      skip: (req) => !forgotPasswordBody.safeParse(req.body).success,
       keyGenerator: (req) =>
         `reset:${String(req.body?.email ?? '')
           .trim()
