@@ -23,6 +23,25 @@ export async function libraryNames(page: Page, lift: 'Squat' | 'Bench' | 'Deadli
   return names;
 }
 
+/**
+ * Library cards of one lift that the server rates clean or warning for a cell (its "What fits here" list),
+ * best first. The demo's history moves with today's date, so which cards fit a cell changes from day to
+ * day: tests that need a drop that saves without a reason ask, rather than trying cards in library order.
+ */
+export async function fittingCards(page: Page, target: Locator, lift: 'Squat' | 'Bench' | 'Deadlift') {
+  const ofLift = await libraryNames(page, lift);
+  const [athleteId, week, slotId] = (await target.getAttribute('data-cell'))!.split('|');
+  const fits = await page.evaluate(async (url) => {
+    const res = await fetch(url, { credentials: 'same-origin' });
+    return (await res.json()) as { items: { name: string; status: string; current: boolean }[] };
+  }, `/api/plans/${athleteId}/${week}/${slotId}/alternatives`);
+  const names = fits.items
+    .filter((i) => i.status !== 'break' && !i.current && ofLift.includes(i.name))
+    .map((i) => i.name);
+  expect(names.length).toBeGreaterThan(0);
+  return names;
+}
+
 export async function showOnly(page: Page, name: string): Promise<Locator> {
   await library(page).getByLabel('Search', { exact: true }).fill(name);
   const card = library(page).getByRole('button', { name, exact: true });

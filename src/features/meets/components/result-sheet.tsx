@@ -27,7 +27,13 @@ export function ResultSheet({ day }: { day: MeetDay }) {
           struck-through weight was missed · a total counts once every lift has a good attempt
         </p>
       </header>
-      <div className="overflow-x-auto print:overflow-visible">
+      {/* On a phone the table scrolls sideways: the region takes the focus so the keys can scroll it too. */}
+      <div
+        role="region"
+        aria-label="Results table (scrolls sideways on a narrow screen)"
+        tabIndex={0}
+        className="overflow-x-auto focus-visible:outline-2 focus-visible:outline-ink-800 print:overflow-visible"
+      >
         <table className="w-full border-collapse text-left text-sm tabular-nums">
           <thead>
             <tr className="border-b-2 border-ink-800">
