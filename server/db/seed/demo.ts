@@ -7,7 +7,7 @@ import { demoWeekRows } from './demo-week';
 import { weightClass } from '../../../shared/calc';
 import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
 import { suggestAttempts } from '../../../shared/schemas/meets';
-import type { Db, Tx } from '../client';
+import type { Db, Queryable, Tx } from '../client';
 import { hashPassword } from '../../lib/passwords';
 import {
   athletes,
@@ -50,7 +50,7 @@ function saturdayOf(week: string): string {
   return isoDay(new Date(mondayOf(week).getTime() + 5 * 86_400_000));
 }
 
-async function insertLibrary(tx: Tx, teamId: number, library: DemoVariant[]): Promise<Map<string, number>> {
+export async function insertLibrary(tx: Queryable, teamId: number, library: DemoVariant[]): Promise<Map<string, number>> {
   await tx.insert(variants).values(
     library.map((v) => ({
       teamId,
