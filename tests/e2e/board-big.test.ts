@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { axeViolations } from './support/axe';
-import { athleteNames, library, showOnly } from './support/board';
+import { athleteNames, jumpTo, library, showOnly } from './support/board';
 import { openBrowser, signInAs, type Browser } from './support/browser';
 
 let b: Browser;
@@ -68,16 +68,7 @@ describe('a board for many athletes', () => {
     const page = b.page;
     const all = await athleteNames(page);
     const last = all[all.length - 1]!;
-    await filters(page).getByLabel('Jump to athlete').selectOption({ label: last });
-    await expect
-      .poll(() => page.evaluate(() => document.activeElement?.closest('th')?.querySelector('span')?.textContent))
-      .toBe(last);
-    const box = await page.evaluate(() => {
-      const r = document.activeElement!.getBoundingClientRect();
-      return { top: r.top, bottom: r.bottom, height: window.innerHeight };
-    });
-    expect(box.top).toBeGreaterThanOrEqual(0);
-    expect(box.bottom).toBeLessThanOrEqual(box.height);
+    await jumpTo(page, last);
   });
 
   it('while a squat card is carried only the slots that take a squat are rated; the rest stay quiet', async () => {

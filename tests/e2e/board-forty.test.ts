@@ -11,7 +11,7 @@ import { DEMO_LIBRARY } from '../../server/db/seed/demo-library';
 import { createAthlete, createTeam } from '../support/factories';
 import { TEST_PASSWORD } from '../support/app';
 import { axeViolations } from './support/axe';
-import { athleteNames, cell, library, mouseDrag, showOnly } from './support/board';
+import { athleteNames, cell, jumpTo, library, mouseDrag, showOnly } from './support/board';
 import { openBrowser, signInAs, type Browser } from './support/browser';
 
 const ATHLETES = 40;
@@ -90,16 +90,7 @@ describe('a board for forty athletes', () => {
     expect(compact).toBeGreaterThanOrEqual(normal * 1.8);
 
     const last = names[names.length - 1]!;
-    await filters(page).getByLabel('Jump to athlete').selectOption({ label: last });
-    await expect
-      .poll(() => page.evaluate(() => document.activeElement?.closest('th')?.querySelector('span')?.textContent))
-      .toBe(last);
-    const box = await page.evaluate(() => {
-      const r = document.activeElement!.getBoundingClientRect();
-      return { top: r.top, bottom: r.bottom, height: window.innerHeight };
-    });
-    expect(box.top).toBeGreaterThanOrEqual(0);
-    expect(box.bottom).toBeLessThanOrEqual(box.height);
+    await jumpTo(page, last);
 
     await filters(page).getByLabel('Name').fill('lifter 3');
     await expect.poll(() => athleteNames(page)).toEqual(names.filter((n) => n.startsWith('Lifter 3')));

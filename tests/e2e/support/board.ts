@@ -116,3 +116,20 @@ function parse(text: string): { athlete: string; week: string; slot: string } | 
 export async function announced(page: Page): Promise<string> {
   return page.evaluate(() => document.querySelector('[id^="DndLiveRegion"]')?.textContent ?? '');
 }
+
+/** Jumps to an athlete with the board's "Jump to athlete" list; their name must have the focus, in view. */
+export async function jumpTo(page: Page, name: string): Promise<void> {
+  await page
+    .getByRole('search', { name: 'Athletes on the board' })
+    .getByLabel('Jump to athlete')
+    .selectOption({ label: name });
+  await expect
+    .poll(() => page.evaluate(() => document.activeElement?.closest('th')?.querySelector('span')?.textContent))
+    .toBe(name);
+  const box = await page.evaluate(() => {
+    const r = document.activeElement!.getBoundingClientRect();
+    return { top: r.top, bottom: r.bottom, height: window.innerHeight };
+  });
+  expect(box.top).toBeGreaterThanOrEqual(0);
+  expect(box.bottom).toBeLessThanOrEqual(box.height);
+}
