@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDatabase, type Database } from '../../server/db/client';
 import { checkDatabaseServers } from '../../server/db/topology';
 import { createLogger } from '../../server/lib/logger';
-import { startCluster, type Cluster } from '../../scripts/cluster-lib.mjs';
+import type { Cluster } from '../../scripts/cluster-lib.mjs';
 import {
   call,
   outboxExactlyOnce,
@@ -14,35 +14,26 @@ import {
   replicaStoppedFallsBack,
   saveVisibleWhileReplicaLags,
   signOutOnARefusedOnB,
+  startTopology,
+  TOPOLOGY_FREE_FAILURES,
+  TOPOLOGY_SESSION_CACHE_MS,
   writeOnAReadOnB,
 } from '../support/topology';
 import { Writable } from 'node:stream';
 
 const num = (name: string, fallback: number) => Number(process.env[name] ?? fallback);
-const APP_PORT = num('TEST_CLUSTER_APP_PORT', 3110);
-const SESSION_CACHE_MS = 1_000;
-const FREE_FAILURES = 4;
+const SESSION_CACHE_MS = TOPOLOGY_SESSION_CACHE_MS;
+const FREE_FAILURES = TOPOLOGY_FREE_FAILURES;
 
 let cluster: Cluster;
 let database: Database;
 
 beforeAll(async () => {
-  cluster = await startCluster({
+  cluster = await startTopology({
     name: `${process.env.TEST_INSTANCE ?? 'test'}-topology`,
     dbPort: num('TEST_CLUSTER_DB_PORT', 3350),
-    appPorts: [APP_PORT, APP_PORT + 1],
-    balancerPort: num('TEST_CLUSTER_PORT', APP_PORT + 2),
-    standins: 'own',
+    appPort: num('TEST_CLUSTER_APP_PORT', 3110),
     standinBase: num('TEST_CLUSTER_STANDIN_PORT_BASE', 4520),
-    client: false,
-    seedDemo: false,
-    appEnv: {
-      NODE_ENV: 'test',
-      LOG_LEVEL: 'info',
-      MAIL_SEND_INTERVAL_MS: '150',
-      SESSION_CACHE_MS: String(SESSION_CACHE_MS),
-      LOGIN_LIMIT_PER_ACCOUNT: String(FREE_FAILURES),
-    },
   });
   database = createDatabase(cluster.primaryUrl, { connectionLimit: 4 });
 }, 240_000);

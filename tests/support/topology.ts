@@ -10,11 +10,37 @@ import type { Database } from '../../server/db/client';
 import { outbox } from '../../server/db/schema';
 import { queueMail } from '../../server/services/mail/outbox';
 import { inboxClient } from '../../server/standins/smtp';
-import { replicationStatus, rootSql, type Cluster } from '../../scripts/cluster-lib.mjs';
+import { replicationStatus, rootSql, startCluster, type Cluster } from '../../scripts/cluster-lib.mjs';
 import { TEST_PASSWORD } from './app';
 import { createPlanLibrary, createTeam, createVariant } from './factories';
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** Session cache of the instances under test: how long a sign-out elsewhere may take to hold. */
+export const TOPOLOGY_SESSION_CACHE_MS = 1_000;
+/** Failed sign-ins for one account from one address before the hold. */
+export const TOPOLOGY_FREE_FAILURES = 4;
+
+/** The cluster as the checks want it: API only, own stand-ins, quick mail sender, short session cache. */
+export function startTopology(ports: { name: string; dbPort: number; appPort: number; standinBase: number }) {
+  return startCluster({
+    name: ports.name,
+    dbPort: ports.dbPort,
+    appPorts: [ports.appPort, ports.appPort + 1],
+    balancerPort: ports.appPort + 2,
+    standins: 'own',
+    standinBase: ports.standinBase,
+    client: false,
+    seedDemo: false,
+    appEnv: {
+      NODE_ENV: 'test',
+      LOG_LEVEL: 'info',
+      MAIL_SEND_INTERVAL_MS: '150',
+      SESSION_CACHE_MS: String(TOPOLOGY_SESSION_CACHE_MS),
+      LOGIN_LIMIT_PER_ACCOUNT: String(TOPOLOGY_FREE_FAILURES),
+    },
+  });
+}
 
 export interface Reply {
   status: number;
@@ -192,8 +218,12 @@ export async function outboxExactlyOnce(cluster: Cluster, database: Database, co
         `missing: ${missing.slice(0, 5).join(', ') || 'none'}`,
     );
   }
-  const after = sentPerInstance(cluster);
-  const perInstance = after.map((n, i) => n - before[i]!);
+  // Each sender logs its pass just after marking the last row sent: give the lines a moment to land.
+  let perInstance = sentPerInstance(cluster).map((n, i) => n - before[i]!);
+  for (let i = 0; i < 50 && perInstance.reduce((a, b) => a + b, 0) < count; i++) {
+    await sleep(100);
+    perInstance = sentPerInstance(cluster).map((n, j) => n - before[j]!);
+  }
   return { queued: count, delivered: received.length, sentPerInstance: perInstance };
 }
 
