@@ -173,8 +173,8 @@ export async function startCluster(opts = {}) {
   const {
     name = 'cluster',
     dbPort = 3320,
-    appPorts = [3201, 3202],
-    balancerPort = 3200,
+    appPorts = [3031, 3032],
+    balancerPort = 3030,
     standins = 'own',
     standinBase = 4620,
     client = true,

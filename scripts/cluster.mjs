@@ -8,7 +8,7 @@ import { startCluster } from './cluster-lib.mjs';
 
 const args = process.argv.slice(2);
 const num = (name, fallback) => Number(process.env[name] ?? fallback);
-const appPort = num('CLUSTER_APP_PORT', 3201);
+const appPort = num('CLUSTER_APP_PORT', 3031);
 const t0 = Date.now();
 
 ensureNodeModules();
@@ -29,7 +29,7 @@ try {
     name: process.env.CLUSTER_INSTANCE ?? 'cluster',
     dbPort: num('CLUSTER_DB_PORT', 3320),
     appPorts: [appPort, appPort + 1],
-    balancerPort: num('CLUSTER_PORT', 3200),
+    balancerPort: num('CLUSTER_PORT', 3030),
     standinBase: num('CLUSTER_STANDIN_PORT_BASE', 4620),
     fresh: args.includes('--fresh'),
     rebuild: args.includes('--rebuild'),

@@ -42,6 +42,8 @@ interface Fixture {
   coaches: string[];
   cells: Cell[];
   week: string;
+  /** The latest version of each cell the savers have seen. */
+  versions: Map<string, number>;
 }
 
 /** Cookies of the demo people and the board cells a coach will save, read through `base`. */
@@ -60,7 +62,7 @@ async function fixture(base: string): Promise<Fixture> {
   const entries = (board.body as { entries: (Cell & { variantId: number | null })[] }).entries;
   const cells = entries.filter((e): e is Cell => e.variantId !== null);
   if (cells.length === 0) throw new Error('the plan run left no board cells to save');
-  return { athletes, coaches, cells, week };
+  return { athletes, coaches, cells, week, versions: new Map() };
 }
 
 const pick = <T>(xs: readonly T[]): T => xs[Math.floor(Math.random() * xs.length)]!;
@@ -74,10 +76,7 @@ interface Kind {
 /** The mix: connections per kind of user, each connection repeating its kind's requests. */
 function mix(f: Fixture): Kind[] {
   const today = new Date().toISOString().slice(0, 10);
-  // Each saving connection keeps the versions it has seen, as the board does in the browser.
-  const versions = new Map<string, number>();
   const key = (c: Cell) => `${c.athleteId}/${c.week}/${c.slotId}`;
-  let lastCell: Cell | undefined;
   return [
     {
       name: 'athlete opens My week',
@@ -126,22 +125,25 @@ function mix(f: Fixture): Kind[] {
         {
           method: 'PUT',
           headers: { 'content-type': 'application/json' },
-          setupRequest: (r) => {
+          setupRequest: (r, context) => {
             const cell = pick(f.cells);
-            lastCell = cell;
+            (context as { cell?: Cell }).cell = cell;
             return {
               ...r,
               path: `/api/plans/${cell.athleteId}/${cell.week}/${cell.slotId}`,
               headers: { ...r.headers, cookie: f.coaches[0]! },
-              body: JSON.stringify({ variantId: cell.variantId, version: versions.get(key(cell)) ?? cell.version }),
+              body: JSON.stringify({ variantId: cell.variantId, version: f.versions.get(key(cell)) ?? cell.version }),
             };
           },
-          onResponse: (status, body) => {
-            if (!lastCell) return;
+          // The saving coaches learn the version each answer names (a 409 names the current one), as the
+          // board does in the browser; two of them on the same cells still meet a conflict now and then.
+          onResponse: (status, body, context) => {
+            const cell = (context as { cell?: Cell }).cell;
+            if (!cell) return;
             try {
               const parsed = JSON.parse(body) as { version?: number; error?: { current?: { version?: number } } };
               const v = status < 300 ? parsed.version : parsed.error?.current?.version;
-              if (typeof v === 'number') versions.set(key(lastCell), v);
+              if (typeof v === 'number') f.versions.set(key(cell), v);
             } catch {
               /* not JSON: nothing learnt */
             }
