@@ -21,6 +21,8 @@ export function startMariaDb(opts: {
   port: number;
   databases: string[];
   user?: string;
+  /** Further mariadbd options, e.g. for replication. */
+  serverArgs?: string[];
 }): Promise<MariaDbInstance>;
 export function startChild(
   cmd: string,

@@ -91,7 +91,7 @@ function isAlive(pid) {
  * A private MariaDB instance under `.data/<name>/`, bound to 127.0.0.1 on its own port and socket.
  * Returns the connection settings and a stop() that shuts it down cleanly — only if this call started it.
  */
-export async function startMariaDb({ name, port, databases, user = 'rackturn' }) {
+export async function startMariaDb({ name, port, databases, user = 'rackturn', serverArgs = [] }) {
   ensureApt('mariadbd', ['mariadb-server', 'mariadb-client']);
   const dir = join(ROOT, '.data', name);
   const datadir = join(dir, 'mariadb');
@@ -150,6 +150,7 @@ export async function startMariaDb({ name, port, databases, user = 'rackturn' })
         '--collation-server=utf8mb4_unicode_ci',
         '--innodb-buffer-pool-size=128M',
         '--max-connections=300',
+        ...serverArgs,
       ],
       { detached: true, stdio: 'ignore' },
     );

@@ -18,6 +18,8 @@ import {
 const extraArgs = process.argv.slice(2);
 ensureNodeModules();
 ensureApt('chromium', ['chromium', 'fonts-liberation']);
+// The topology test puts HAProxy in front of two app instances.
+ensureApt('haproxy', ['haproxy']);
 
 const tmp = join(ROOT, '.tmp');
 mkdirSync(tmp, { recursive: true });

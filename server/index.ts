@@ -3,6 +3,7 @@ import { loadEnv } from './config/env';
 import { createApp } from './app';
 import { createDatabase } from './db/client';
 import { runMigrations } from './db/migrate';
+import { checkDatabaseServers, serverOf } from './db/topology';
 import { createLogger } from './lib/logger';
 import { SessionKeys } from './lib/session';
 import type { AppContext } from './context';
@@ -10,7 +11,15 @@ import { createServices, stopServices } from './services';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL);
-const database = createDatabase(env.DATABASE_URL);
+const database = createDatabase(env.DATABASE_URL, {
+  replicaUrl: env.DATABASE_REPLICA_URL,
+  onReplicaChange: (state, reason) => {
+    const replica = serverOf(env.DATABASE_REPLICA_URL);
+    if (state === 'down') logger.warn({ replica, reason }, 'the read replica failed a read: reads go to the primary');
+    else logger.info({ replica }, 'the read replica answers again: reads that may lag go back to it');
+  },
+});
+await checkDatabaseServers(database, logger, { primary: env.DATABASE_URL, replica: env.DATABASE_REPLICA_URL });
 
 if (env.DB_MIGRATE) {
   await runMigrations(database.db);

@@ -11,6 +11,10 @@ const schema = z.object({
   HOST: z.string().default('127.0.0.1'),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
   DATABASE_URL: z.string().startsWith('mysql://', 'must be a mysql:// URL'),
+  /** A read replica of DATABASE_URL for reads that may lag; empty: every read on the primary. */
+  DATABASE_REPLICA_URL: z
+    .union([z.literal(''), z.string().startsWith('mysql://', 'must be a mysql:// URL')])
+    .default(''),
   SESSION_SECRET: z.string().min(32, 'must be at least 32 characters'),
   APP_ORIGIN: z.url().default('http://127.0.0.1:3000'),
   EXTRA_ORIGINS: z.string().default(''),

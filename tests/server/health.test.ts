@@ -43,12 +43,12 @@ describe('GET /api/health', () => {
   it('says up while MariaDB answers, down with 503 while it is stopped, and recovers without a restart', async () => {
     const up = await request(app).get('/api/health');
     expect(up.status).toBe(200);
-    expect(up.body).toEqual({ ok: true, db: 'up' });
+    expect(up.body).toEqual({ ok: true, db: 'up', replica: 'none' });
 
     await instance.stop();
     const down = await request(app).get('/api/health');
     expect(down.status).toBe(503);
-    expect(down.body).toEqual({ ok: false, db: 'down' });
+    expect(down.body).toEqual({ ok: false, db: 'down', replica: 'none' });
     // Other routes answer a clear 503 or 401, never a 500 with internals.
     const login = await request(app).post('/api/auth/login').send({ email: 'a@b.test', password: 'whatever-pass' });
     expect(login.status).toBe(503);

@@ -1,7 +1,8 @@
 // `npm run soak`: the reliability suite. Its own MariaDB instances and service stand-ins on loopback, an
-// in-process app, then three parts: bounded fuzzing of every route as four kinds of caller, the
-// invitation races, and MariaDB killed with SIGKILL under a write load. Prints one JSON object and stops
-// by itself (a hard time limit ends it if anything hangs). Sizes and ports can be set in the environment.
+// in-process app, then four parts: bounded fuzzing of every route as four kinds of caller, the invitation
+// races, MariaDB killed with SIGKILL under a write load, and the two-instance topology with a GTID
+// replica (tests/soak/topology.ts). Prints one JSON object and stops by itself (a hard time limit ends it
+// if anything hangs). Sizes and ports can be set in the environment.
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { createApp } from '../../server/app';
@@ -18,6 +19,7 @@ import { crashUnderLoad } from './crash';
 import { fuzzRoutes } from './fuzz';
 import { cookieFor, soakFixture } from './fixture';
 import { invitationRaces } from './races';
+import { topologySoak } from './topology';
 
 const num = (name: string, fallback: number) => Number(process.env[name] ?? fallback);
 const DB_PORT = num('SOAK_DB_PORT', 3340);
@@ -27,6 +29,8 @@ const RACE_ROUNDS = num('SOAK_RACE_ROUNDS', 5);
 const CRASH_ROUNDS = num('SOAK_CRASH_ROUNDS', 2);
 const TIME_LIMIT_MS = num('SOAK_TIME_LIMIT_MS', 20 * 60_000);
 const SEED = num('SOAK_SEED', 20261202);
+const TOPOLOGY_ROUNDS = num('SOAK_TOPOLOGY_ROUNDS', 3);
+const OUTBOX_MESSAGES = num('SOAK_OUTBOX_MESSAGES', 200);
 
 const limit = setTimeout(() => {
   process.stderr.write(`soak: over the ${TIME_LIMIT_MS / 60_000} min limit, stopping\n`);
@@ -96,6 +100,9 @@ try {
     );
   }
 
+  // Two app instances, a primary and a GTID replica on loopback (the cluster `npm run cluster` starts).
+  const topology = await topologySoak({ rounds: TOPOLOGY_ROUNDS, outboxMessages: OUTBOX_MESSAGES });
+
   const racesOk = races.every(
     (r) =>
       r.distinct['201'] === 20 &&
@@ -105,7 +112,7 @@ try {
       r.rosterEntriesForAddress === 1,
   );
   const lost = crashes.reduce((s, c) => s + c.lost, 0);
-  const pass = fuzz.classes['5xx'] === 0 && fuzz.classes['no answer'] === 0 && racesOk && lost === 0;
+  const pass = fuzz.classes['5xx'] === 0 && fuzz.classes['no answer'] === 0 && racesOk && lost === 0 && topology.pass;
   if (!pass) exitCode = 1;
   process.stdout.write(
     JSON.stringify(
@@ -129,6 +136,7 @@ try {
           lostWrites: lost,
           results: crashes,
         },
+        topology,
       },
       null,
       2,

@@ -10,7 +10,8 @@ export function healthRouter(ctx: AppContext): Router {
     '/health',
     validate({}, async (_input, _req, res) => {
       const up = await pingDatabase(ctx.database.pool);
-      res.status(up ? 200 : 503).json({ ok: up, db: up ? 'up' : 'down' });
+      // The replica's state is what this instance believes: 'down' means its reads run on the primary.
+      res.status(up ? 200 : 503).json({ ok: up, db: up ? 'up' : 'down', replica: ctx.database.replica.state });
     }),
   );
   return router;

@@ -31,7 +31,8 @@ export function myWeekRouter(ctx: AppContext): Router {
       const auth = authOf(req);
       const athleteId = ownAthleteId(req);
       const [history, videos] = await Promise.all([
-        historyOf(ctx.database.db, auth.teamId, athleteId),
+        // Charts of past training may lag a moment (the replica); My week itself reads the primary.
+        historyOf(ctx.database.mayLag, auth.teamId, athleteId),
         athleteVideos(ctx.database.db, auth.teamId, athleteId),
       ]);
       return { unit: auth.unit, ...history, videos };

@@ -28,7 +28,8 @@ export function reviewRouter(ctx: AppContext): Router {
         tissueSuggestionsFor(db, teamId, athlete.id, week),
         recentCheckins(db, teamId, athlete.id, 12),
         athleteVideos(db, teamId, athlete.id),
-        historyOf(db, teamId, athlete.id),
+        // The e1RM and bodyweight series are history: a moment's replication lag cannot mislead them.
+        historyOf(ctx.database.mayLag, teamId, athlete.id),
       ]);
       return {
         athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },

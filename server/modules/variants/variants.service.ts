@@ -53,7 +53,8 @@ async function mustFind(db: Queryable, teamId: number, id: number) {
 }
 
 export async function listVariants(ctx: AppContext, teamId: number, f: VariantListFilters) {
-  const { rows, total } = await repo.listVariants(ctx.database.db, teamId, f);
+  // The library list may lag a moment behind a save (the replica); a single variant is read from the primary.
+  const { rows, total } = await repo.listVariants(ctx.database.mayLag, teamId, f);
   return { items: rows.map(toVariantDto), total } satisfies ListResponse<LibraryVariant>;
 }
 
@@ -62,7 +63,7 @@ export async function getVariant(ctx: AppContext, teamId: number, id: number) {
 }
 
 export async function variantFacets(ctx: AppContext, teamId: number): Promise<VariantFacets> {
-  const rows = await repo.variantFacets(ctx.database.db, teamId);
+  const rows = await repo.variantFacets(ctx.database.mayLag, teamId);
   const sorted = (xs: Iterable<string>) => [...new Set(xs)].sort((a, b) => a.localeCompare(b));
   return {
     families: sorted(rows.map((r) => r.family)),
