@@ -50,7 +50,11 @@ function saturdayOf(week: string): string {
   return isoDay(new Date(mondayOf(week).getTime() + 5 * 86_400_000));
 }
 
-export async function insertLibrary(tx: Queryable, teamId: number, library: DemoVariant[]): Promise<Map<string, number>> {
+export async function insertLibrary(
+  tx: Queryable,
+  teamId: number,
+  library: DemoVariant[],
+): Promise<Map<string, number>> {
   await tx.insert(variants).values(
     library.map((v) => ({
       teamId,
