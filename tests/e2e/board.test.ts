@@ -2,7 +2,7 @@
 // the keyboard that survive a reload, a rule-breaking drop that needs a reason, two coaches editing one
 // cell, and the athlete seeing the saved pick on My week.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Locator, Page, Response } from 'playwright-core';
+import type { Locator, Page, Response, Route } from 'playwright-core';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
 import { athleteNames, cell, fittingCards, keyboardTo, library, mouseDrag, showOnly } from './support/board';
 import { openBrowser, signInAs, type Browser } from './support/browser';
@@ -182,7 +182,14 @@ describe('the board', () => {
       const athlete = names[2]!;
       const mine = cell(b.page, athlete, wk(7), LOWER);
       const theirs = cell(other.page, athlete, wk(7), LOWER);
-      // The second coach saves first; this page still shows the cell empty.
+      // The second coach saves first; this page still shows the cell empty. Its board would catch up by
+      // itself (every half minute, or when told of the change): held back here until the refusal, so the
+      // test does not depend on how fast the machine is.
+      const boardReads = (url: URL) => url.pathname === '/api/board';
+      const held: Route[] = [];
+      await b.page.route(boardReads, (route) => {
+        held.push(route);
+      });
       const first = await dropCleanPick(other.page, theirs, 'Deadlift');
       const statuses: number[] = [];
       b.page.on('response', (r) => {
@@ -191,6 +198,8 @@ describe('the board', () => {
       // This coach's drop meets the newer version and is refused.
       await expect(dropCleanPick(b.page, mine, 'Squat')).rejects.toThrow();
       expect(statuses).toEqual([409]);
+      await b.page.unroute(boardReads);
+      for (const route of held) await route.continue();
       const notice = b.page.getByRole('alert').filter({ hasText: 'Someone else changed this first' });
       await notice.waitFor();
       await expect(notice.textContent()).resolves.toContain(first);
