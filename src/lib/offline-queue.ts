@@ -25,6 +25,9 @@ export interface QueuedWrite {
   error?: string;
 }
 
+/** How long a first try may take before the write is kept for later. */
+const SEND_TIMEOUT_MS = 15_000;
+
 export type SendOutcome<T> = { sent: true; answer: T } | { sent: false; queued: QueuedWrite };
 
 const store = typeof indexedDB === 'undefined' ? null : createStore('rackturn-offline', 'writes');
@@ -69,7 +72,14 @@ export async function sendOrQueue<T>(write: Omit<QueuedWrite, 'id' | 'queuedAt' 
   };
   if (!offline()) {
     try {
-      const answer = await api<T>(write.path, { method: write.method, body: write.body, idempotencyKey: queued.id });
+      // A request the lost signal leaves hanging is given up after a while and kept: its key makes a
+      // later resend safe even if this one did reach the server.
+      const answer = await api<T>(write.path, {
+        method: write.method,
+        body: write.body,
+        idempotencyKey: queued.id,
+        signal: AbortSignal.timeout(SEND_TIMEOUT_MS),
+      });
       return { sent: true, answer };
     } catch (err) {
       if (!(err instanceof ApiError && err.status === 0)) throw err;
@@ -90,7 +100,12 @@ export function flushQueue(owner: number): Promise<number> {
     for (const write of items.filter((w) => w.owner === owner && w.state === 'waiting')) {
       if (offline()) break;
       try {
-        await api(write.path, { method: write.method, body: write.body, idempotencyKey: write.id });
+        await api(write.path, {
+          method: write.method,
+          body: write.body,
+          idempotencyKey: write.id,
+          signal: AbortSignal.timeout(SEND_TIMEOUT_MS),
+        });
         await remove(write.id);
         sent++;
       } catch (err) {

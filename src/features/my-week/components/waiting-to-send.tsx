@@ -8,21 +8,32 @@ import { useOnline } from '../../../lib/use-online';
 import { historyKeys } from '../../history/api/queries';
 import { myWeekKeys } from '../api/queries';
 
+const RETRY_MS = 20_000;
+
 export function WaitingToSend({ athleteId }: { athleteId: number }) {
   const writes = useQueuedWrites(athleteId);
   const online = useOnline();
   const queryClient = useQueryClient();
   const waiting = writes.filter((w) => w.state === 'waiting').length;
 
+  // Sent when the browser comes online or something new waits, and tried again every so often while the
+  // server cannot take it (no answer, or an error on its side).
   useEffect(() => {
     if (!online || waiting === 0) return;
-    void flushQueue(athleteId).then(async (sent) => {
-      if (sent === 0) return;
-      await Promise.all([
-        queryClient.invalidateQueries({ queryKey: myWeekKeys.weeks() }),
-        queryClient.invalidateQueries({ queryKey: historyKeys.all }),
-      ]);
-    });
+    const send = () =>
+      void flushQueue(athleteId).then(
+        async (sent) => {
+          if (sent === 0) return;
+          await Promise.all([
+            queryClient.invalidateQueries({ queryKey: myWeekKeys.weeks() }),
+            queryClient.invalidateQueries({ queryKey: historyKeys.all }),
+          ]);
+        },
+        () => undefined,
+      );
+    send();
+    const timer = setInterval(send, RETRY_MS);
+    return () => clearInterval(timer);
   }, [online, waiting, athleteId, queryClient]);
 
   if (writes.length === 0) return null;
