@@ -18,9 +18,16 @@ export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   body?: unknown;
   signal?: AbortSignal;
+  /** A UUID naming this write: the server answers a repeat of it with the first answer, writing nothing. */
+  idempotencyKey?: string;
 }
 
 export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T> {
+  return (await apiWithDate<T>(path, opts)).data;
+}
+
+/** The answer and when the server gave it (its Date header): an answer read from the offline cache is older. */
+export async function apiWithDate<T>(path: string, opts: RequestOptions = {}): Promise<{ data: T; date: Date | null }> {
   const isForm = typeof FormData !== 'undefined' && opts.body instanceof FormData;
   let res: Response;
   try {
@@ -29,10 +36,11 @@ export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T
       fetch(`/api${path}`, {
         method: opts.method ?? 'GET',
         credentials: 'same-origin',
-        headers:
-          opts.body === undefined || isForm
-            ? { Accept: 'application/json' }
-            : { 'Content-Type': 'application/json', Accept: 'application/json' },
+        headers: {
+          Accept: 'application/json',
+          ...(opts.body === undefined || isForm ? {} : { 'Content-Type': 'application/json' }),
+          ...(opts.idempotencyKey ? { 'Idempotency-Key': opts.idempotencyKey } : {}),
+        },
         body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
         signal: opts.signal,
       }));
@@ -40,7 +48,9 @@ export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T
     if (err instanceof DOMException && err.name === 'AbortError') throw err;
     throw new ApiError(0, 'network', 'Cannot reach Rackturn. Check the connection and try again.');
   }
-  if (res.status === 204) return undefined as T;
+  const sent = res.headers.get('Date');
+  const date = sent && !Number.isNaN(Date.parse(sent)) ? new Date(sent) : null;
+  if (res.status === 204) return { data: undefined as T, date };
   const text = await res.text();
   let data: unknown = null;
   try {
@@ -58,7 +68,7 @@ export async function api<T>(path: string, opts: RequestOptions = {}): Promise<T
       err ?? null,
     );
   }
-  return (data ?? (text as unknown)) as T;
+  return { data: (data ?? (text as unknown)) as T, date };
 }
 
 export function isApiError(err: unknown, status?: number): err is ApiError {

@@ -109,7 +109,12 @@ describe('My week on a phone', () => {
   });
 
   it('asks for the page’s own code and data before the app’s code has run', async () => {
-    // The app's entry never arrives here: what is requested comes from the page and early.js alone.
+    // The app's entry never arrives here: what is requested comes from the page and early.js alone. This
+    // is a first visit: the service worker the sign-in installed is taken away (with it, the code would
+    // come from the phone's own copy and never reach the network).
+    await b.page.evaluate(async () => {
+      for (const r of await navigator.serviceWorker.getRegistrations()) await r.unregister();
+    });
     const page = await b.page.context().newPage();
     const requested: string[] = [];
     page.on('request', (r) => requested.push(new URL(r.url()).pathname));

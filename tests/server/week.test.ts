@@ -1,5 +1,6 @@
 // The training week API: sessions in the team rules, an athlete's week edited by coaches (speed work from
 // the training max, accessories, deload as a max-effort rest week), and the athlete logging a session.
+import { randomUUID } from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { and, eq } from 'drizzle-orm';
@@ -238,6 +239,19 @@ describe('PUT /api/my-week/sessions/:sessionId', () => {
     const stale = await athlete.put('/api/my-week/sessions/upper-speed').send(log(1));
     expect(stale.status).toBe(409);
     expect(stale.body.error.current).toMatchObject({ done: true, version: 2 });
+  });
+
+  it('answers a repeat under one Idempotency-Key with the first answer, not a 409', async () => {
+    const key = randomUUID();
+    const first = await athlete.put('/api/my-week/sessions/lower-me').set('Idempotency-Key', key).send(log(0));
+    expect(first.status).toBe(200);
+    expect(first.body).toMatchObject({ version: 1 });
+    const again = await athlete.put('/api/my-week/sessions/lower-me').set('Idempotency-Key', key).send(log(0));
+    expect(again.status).toBe(200);
+    expect(again.headers['idempotent-replayed']).toBe('true');
+    expect(again.body).toEqual(first.body);
+    // Without the key the same stale log is the usual conflict.
+    expect((await athlete.put('/api/my-week/sessions/lower-me').send(log(0))).status).toBe(409);
   });
 
   it('refuses an unknown session, a week not started, bad counts, and coaches', async () => {

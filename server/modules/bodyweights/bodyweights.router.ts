@@ -4,6 +4,7 @@ import { toKg } from '../../../shared/calc';
 import { bodyweightDateParams, bodyweightListQuery, logBodyweightBody } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ANY_ROLE, ATHLETE, authOf, requireRole } from '../../middleware/auth';
+import { idempotent } from '../../middleware/idempotency';
 import { ValidationError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
 import { athleteInScope, ownAthleteId } from '../my-week/whose';
@@ -22,6 +23,7 @@ export function bodyweightsRouter(ctx: AppContext): Router {
   router.put(
     '/bodyweights/:measuredOn',
     requireRole(ATHLETE),
+    idempotent(ctx),
     validate({ params: bodyweightDateParams, body: logBodyweightBody }, async ({ params, body }, req, res) => {
       checkDate(params.measuredOn);
       const { bodyweight, created } = await upsertBodyweight(ctx.database.db, {

@@ -3,6 +3,7 @@ import { Router } from 'express';
 import { tissueCheckinBody } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ATHLETE, authOf, requireRole } from '../../middleware/auth';
+import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
 import { ownAthleteId } from '../my-week/whose';
 import { recordCheckin } from './tissue.service';
@@ -13,6 +14,7 @@ export function tissueRouter(ctx: AppContext): Router {
   router.post(
     '/tissue/checkins',
     requireRole(ATHLETE),
+    idempotent(ctx),
     validate({ body: tissueCheckinBody }, async ({ body }, req, res) => {
       const saved = await recordCheckin(ctx, authOf(req).teamId, ownAthleteId(req), body);
       res.status(201);

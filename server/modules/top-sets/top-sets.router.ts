@@ -3,6 +3,7 @@ import { Router } from 'express';
 import { logTopSetBody, topSetListQuery } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ANY_ROLE, ATHLETE, authOf, requireRole } from '../../middleware/auth';
+import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
 import { athleteInScope, ownAthleteId } from '../my-week/whose';
 import { listTopSets } from './top-sets.repository';
@@ -14,6 +15,7 @@ export function topSetsRouter(ctx: AppContext): Router {
   router.post(
     '/top-sets',
     requireRole(ATHLETE),
+    idempotent(ctx),
     validate({ body: logTopSetBody }, async ({ body }, req, res) => {
       const auth = authOf(req);
       const logged = await logTopSet(

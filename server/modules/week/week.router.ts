@@ -4,6 +4,7 @@ import { Router } from 'express';
 import { athleteWeekBody, athleteWeekParams, sessionLogBody, sessionLogParams } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ATHLETE, STAFF, authOf, requireRole } from '../../middleware/auth';
+import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
 import { ownAthleteId } from '../my-week/whose';
 import * as service from './week.service';
@@ -30,6 +31,7 @@ export function weekRouter(ctx: AppContext): Router {
   router.put(
     '/my-week/sessions/:sessionId',
     requireRole(ATHLETE),
+    idempotent(ctx),
     validate({ params: sessionLogParams, body: sessionLogBody }, ({ params, body }, req) =>
       service.logSession(ctx, { teamId: authOf(req).teamId, athleteId: ownAthleteId(req) }, params.sessionId, body),
     ),

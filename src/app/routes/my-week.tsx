@@ -1,10 +1,13 @@
 // My week (athlete, phone first): the week's max-effort picks with warm-ups and logging, connective-
 // tissue work and its check-in, bodyweight, the training caution below the picks, and the week's sessions.
-import { Suspense, lazy } from 'react';
+import { Suspense, lazy, useEffect } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { Link, useSearchParams } from 'react-router-dom';
 import { addWeeks, mondayOf } from '../../../shared/engine/weeks';
 import { Loading, Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
-import { useMyWeek } from '../../features/my-week/api/queries';
+import { myWeekQueryOptions, useMyWeek } from '../../features/my-week/api/queries';
+import { OfflineLine } from '../../features/my-week/components/offline-line';
+import { WaitingToSend } from '../../features/my-week/components/waiting-to-send';
 import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
 import { WeekSessions } from '../../features/my-week/components/week-sessions';
@@ -32,6 +35,12 @@ export function Component() {
   const [search] = useSearchParams();
   const requested = weekParam(search);
   const { data, error } = useMyWeek(requested);
+  const queryClient = useQueryClient();
+  const nextWeek = data && !requested && !data.fromCache ? addWeeks(data.week, 1) : null;
+  // Next week read once too, so the phone keeps it for a gym without signal.
+  useEffect(() => {
+    if (nextWeek) void queryClient.prefetchQuery(myWeekQueryOptions(nextWeek));
+  }, [queryClient, nextWeek]);
   if (error) return <Notice tone="error">{error.message}</Notice>;
   if (!data) return <Loading />;
   const isCurrent = !requested;
@@ -41,6 +50,8 @@ export function Component() {
         title="My week"
         subtitle={`${data.week} · ${weekSpan(data.week)}${data.meet && data.meet.daysOut >= 0 ? ` · ${data.meet.name} in ${data.meet.daysOut} days` : ''}`}
       />
+      <OfflineLine receivedAt={data.receivedAt} fromCache={data.fromCache} />
+      <WaitingToSend athleteId={data.athlete.id} />
       <nav aria-label="Weeks" className="flex flex-wrap gap-2">
         <Link className={navClass} to={`/my-week?week=${addWeeks(data.week, -1)}`}>
           ← Previous week

@@ -4,6 +4,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import type { SignOutEverywhereResponse } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
+import { clearOfflineCache } from '../../../lib/offline-cache';
 
 function useLeave() {
   const navigate = useNavigate();
@@ -12,12 +13,14 @@ function useLeave() {
   return () => navigate('/sign-in', { replace: true });
 }
 
-/** Called by the sign-in page when it mounts: nothing the previous user read stays in the cache. */
+/** Called by the sign-in page when it mounts: nothing the previous user read stays in a cache. */
 export function useForgetPreviousUser() {
   const queryClient = useQueryClient();
   useEffect(() => {
     void queryClient.cancelQueries();
     queryClient.clear();
+    // And the service worker's copy of their week, kept for reading it offline.
+    void clearOfflineCache();
   }, [queryClient]);
 }
 

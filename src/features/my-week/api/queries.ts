@@ -1,7 +1,7 @@
 // The athlete's week: key factory and query options, shared by the route loader and the components.
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import type { MyWeek } from '../../../../shared/schemas';
-import { api } from '../../../lib/api-client';
+import { apiWithDate } from '../../../lib/api-client';
 
 export const myWeekKeys = {
   all: ['my-week'] as const,
@@ -9,12 +9,32 @@ export const myWeekKeys = {
   week: (week: string | null) => [...myWeekKeys.weeks(), week ?? 'current'] as const,
 };
 
+/** An answer this old when it arrives came from the offline copy, not from the server just now. */
+const FROM_CACHE_AFTER_MS = 2 * 60_000;
+
+/** The week, with when the server gave it and whether it was read from the offline copy. */
+export type MyWeekAnswer = MyWeek & { receivedAt: string | null; fromCache: boolean };
+
 export const myWeekQueryOptions = (week: string | null = null) =>
   queryOptions({
     queryKey: myWeekKeys.week(week),
-    queryFn: ({ signal }) => api<MyWeek>(`/my-week${week ? `?week=${encodeURIComponent(week)}` : ''}`, { signal }),
+    queryFn: async ({ signal }): Promise<MyWeekAnswer> => {
+      const { data, date } = await apiWithDate<MyWeek>(`/my-week${week ? `?week=${encodeURIComponent(week)}` : ''}`, {
+        signal,
+      });
+      const fromCache = date !== null && Date.now() - date.getTime() > FROM_CACHE_AFTER_MS;
+      return { ...data, receivedAt: date?.toISOString() ?? null, fromCache };
+    },
   });
 
 export function useMyWeek(week: string | null = null) {
   return useQuery(myWeekQueryOptions(week));
+}
+
+/** The signed-in athlete, read from any week already loaded (the owner of writes kept offline). */
+export function currentAthleteId(queryClient: QueryClient): number | null {
+  for (const [, week] of queryClient.getQueriesData<MyWeekAnswer>({ queryKey: myWeekKeys.weeks() })) {
+    if (week) return week.athlete.id;
+  }
+  return null;
 }

@@ -1,15 +1,24 @@
-// Log a top set; the week page and the history both change.
+// Log a top set; the week page and the history both change. Without signal it is kept on the phone and
+// sent later (see the offline queue).
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { LogTopSetBody, LoggedTopSet } from '../../../../shared/schemas';
-import { api } from '../../../lib/api-client';
+import { sendOrQueue } from '../../../lib/offline-queue';
 import { historyKeys } from '../../history/api/queries';
-import { myWeekKeys } from './queries';
+import { currentAthleteId, myWeekKeys } from './queries';
 
 export function useLogTopSet() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: LogTopSetBody) => api<LoggedTopSet>('/top-sets', { method: 'POST', body }),
-    onSuccess: async () => {
+    mutationFn: ({ label, ...body }: LogTopSetBody & { label: string }) =>
+      sendOrQueue<LoggedTopSet>({
+        owner: currentAthleteId(queryClient) ?? 0,
+        method: 'POST',
+        path: '/top-sets',
+        body,
+        label,
+      }),
+    onSuccess: async (out) => {
+      if (!out.sent) return;
       await Promise.all([
         queryClient.invalidateQueries({ queryKey: myWeekKeys.weeks() }),
         queryClient.invalidateQueries({ queryKey: historyKeys.all }),

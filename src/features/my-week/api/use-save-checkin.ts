@@ -1,13 +1,21 @@
-// The next-day check-in on a week's connective-tissue work.
+// The next-day check-in on a week's connective-tissue work. Without signal it is kept on the phone and
+// sent later (see the offline queue).
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { TissueCheckinBody, TissueCheckinRow } from '../../../../shared/schemas';
-import { api } from '../../../lib/api-client';
-import { myWeekKeys } from './queries';
+import { sendOrQueue } from '../../../lib/offline-queue';
+import { currentAthleteId, myWeekKeys } from './queries';
 
 export function useSaveCheckin() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: TissueCheckinBody) => api<TissueCheckinRow>('/tissue/checkins', { method: 'POST', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: myWeekKeys.weeks() }),
+    mutationFn: (body: TissueCheckinBody) =>
+      sendOrQueue<TissueCheckinRow>({
+        owner: currentAthleteId(queryClient) ?? 0,
+        method: 'POST',
+        path: '/tissue/checkins',
+        body,
+        label: `Check-in for ${body.week}`,
+      }),
+    onSuccess: (out) => (out.sent ? queryClient.invalidateQueries({ queryKey: myWeekKeys.weeks() }) : undefined),
   });
 }

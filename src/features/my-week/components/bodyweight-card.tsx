@@ -112,7 +112,10 @@ export function BodyweightCard({
         </p>
       ) : null}
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Log bodyweight">
-        {save.isSuccess ? <Notice tone="success">Bodyweight saved.</Notice> : null}
+        {save.data?.sent ? <Notice tone="success">Bodyweight saved.</Notice> : null}
+        {save.data && !save.data.sent ? (
+          <Notice>No signal: the reading is kept on this phone and sent when you are back online.</Notice>
+        ) : null}
         <div className="grid grid-cols-2 gap-3">
           <TextField
             style={TOUCH}

@@ -69,7 +69,10 @@ export function CheckinForm({ weeks, thisWeek }: { weeks: MyWeekCheckin[]; thisW
         <p className="text-ink-600">No connective-tissue work to report on this week or last.</p>
       ) : (
         <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Next-day check-in">
-          {save.isSuccess ? <Notice tone="success">Check-in saved. Thank you.</Notice> : null}
+          {save.data?.sent ? <Notice tone="success">Check-in saved. Thank you.</Notice> : null}
+          {save.data && !save.data.sent ? (
+            <Notice>No signal: the check-in is kept on this phone and sent when you are back online.</Notice>
+          ) : null}
           {save.error && !(isApiError(save.error) && Object.keys(save.error.fields).length) ? (
             <Notice tone="error">{save.error.message}</Notice>
           ) : null}

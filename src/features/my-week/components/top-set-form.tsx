@@ -27,7 +27,9 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
   const logTopSet = useLogTopSet();
   const videoId = useId();
   const [video, setVideo] = useState<File | null>(null);
-  const [result, setResult] = useState<{ logged: LoggedTopSet; video: File | null } | null>(null);
+  const [result, setResult] = useState<
+    { logged: LoggedTopSet; video: File | null } | { kept: true; video: File | null } | null
+  >(null);
   const form = useForm<FormValues, unknown, LogTopSetInput>({
     resolver: zodResolver(logTopSetBody),
     defaultValues: {
@@ -46,8 +48,11 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {
-      const logged = await logTopSet.mutateAsync(values);
-      setResult({ logged, video });
+      const out = await logTopSet.mutateAsync({
+        ...values,
+        label: `Top set: ${pick.variant.name}, ${values.reps} × ${values.weight} ${values.unit}`,
+      });
+      setResult(out.sent ? { logged: out.answer, video } : { kept: true, video });
       setVideo(null);
       form.reset({ ...form.getValues(), weight: '', rpe: '', note: '' });
     } catch (err) {
@@ -66,7 +71,13 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
 
   return (
     <div className="flex flex-col gap-4">
-      {result ? <LoggedResult result={result} unit={unit} /> : null}
+      {result && 'logged' in result ? <LoggedResult result={result} unit={unit} /> : null}
+      {result && 'kept' in result ? (
+        <p className="rounded-md border border-ink-300 bg-chalk-200 p-3 font-semibold text-ink-900" role="status">
+          No signal: the top set is kept on this phone and sent when you are back online (see Waiting to send).
+          {result.video ? ' Add the video once it has been sent.' : ''}
+        </p>
+      ) : null}
       <form
         onSubmit={onSubmit}
         noValidate
