@@ -57,7 +57,8 @@ export interface AccessoryRotationRequest {
 export type UnfilledReason = 'empty' | 'restriction' | 'window' | 'taken' | 'budget';
 
 export interface AccessoryRotation {
-  picks: AccessoryUse[];
+  /** `early`: every accessory of the category was used within the repeat window; the least recent came back. */
+  picks: (AccessoryUse & { early?: true })[];
   unfilled: { week: IsoWeek; sessionId: string; category: string; reason: UnfilledReason }[];
 }
 
@@ -136,7 +137,8 @@ class Loads {
  * whole block (continuing the pick the history holds for the same block); a new block takes the least
  * recently used accessory that is not archived, was not used in the repeat window, is not already in
  * another session of the week, keeps within the restrictions and fits the joint budgets in every week of the
- * block. What cannot be filled is reported with the reason.
+ * block. When the window alone leaves a category empty (a small library), the least recently used one that
+ * meets the rest comes back early and is marked so. What cannot be filled is reported with the reason.
  */
 export function rotateAccessories(req: AccessoryRotationRequest): AccessoryRotation {
   const { blockWeeks, repeatWindowWeeks, jointWindowWeeks, jointBudget } = req.rules;
@@ -157,7 +159,7 @@ export function rotateAccessories(req: AccessoryRotationRequest): AccessoryRotat
       ...uses.filter((u) => u.accessoryId === id && weekNumber(u.week) < before).map((u) => weekNumber(u.week)),
     );
 
-  const picks: AccessoryUse[] = [];
+  const picks: AccessoryRotation['picks'] = [];
   const unfilled: AccessoryRotation['unfilled'] = [];
   const blocks = new Map<number, IsoWeek[]>();
   for (const w of weeks) {
@@ -183,25 +185,43 @@ export function rotateAccessories(req: AccessoryRotationRequest): AccessoryRotat
         const kept = earlier ? byId.get(earlier.accessoryId) : undefined;
         let choice: AccessoryChoice | undefined;
         let reason: UnfilledReason = 'empty';
+        let early = false;
         if (kept && !kept.archived && withinRestrictions(kept, restrictions, blockWeeksIn) && ok(kept)) choice = kept;
         else {
-          let pool = req.library.filter((a) => a.category === category && !a.archived);
+          const candidates = req.library.filter((a) => a.category === category && !a.archived);
           const steps: [UnfilledReason, (a: AccessoryChoice) => boolean][] = [
             ['restriction', (a) => withinRestrictions(a, restrictions, blockWeeksIn)],
             ['window', (a) => lastUse(a.id, blockStart) < blockStart - repeatWindowWeeks],
             ['taken', (a) => !taken.has(a.id)],
             ['budget', (a) => loads.fits(a.stress, nums, jointBudget)],
           ];
-          for (const [why, keep] of steps) {
-            if (pool.length === 0) break;
-            reason = why;
-            pool = pool.filter(keep);
+          const run = (only: typeof steps) => {
+            let pool = candidates;
+            let why: UnfilledReason = 'empty';
+            for (const [step, keep] of only) {
+              if (pool.length === 0) break;
+              why = step;
+              pool = pool.filter(keep);
+            }
+            return { pool, why };
+          };
+          const first = run(steps);
+          let pool = first.pool;
+          const why = first.why;
+          reason = why;
+          // A library too small for the window: the least recently used one comes back early, said so.
+          if (pool.length === 0 && why !== 'restriction' && why !== 'empty') {
+            const again = run(steps.filter(([step]) => step !== 'window'));
+            if (again.pool.length > 0) {
+              pool = again.pool;
+              early = true;
+            }
           }
           choice = pool
             .map((a) => ({
               a,
               last: lastUse(a.id, blockStart),
-              total: JOINTS.reduce((s, j) => s + (a.stress[j] ?? 0), 0),
+              total: JOINTS.reduce((sum, j) => sum + (a.stress[j] ?? 0), 0),
             }))
             .sort(
               (x, y) =>
@@ -217,7 +237,7 @@ export function rotateAccessories(req: AccessoryRotationRequest): AccessoryRotat
             continue;
           }
           const use = { week, sessionId: slot.sessionId, category, accessoryId: choice.id };
-          picks.push(use);
+          picks.push(early ? { ...use, early: true as const } : use);
           uses.push(use);
         }
         if (choice) {

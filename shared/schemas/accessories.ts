@@ -5,7 +5,7 @@ import { isValidRpe } from '../calc';
 import { listQuery, versionField } from './common';
 import { booleanQuery, optionalQueryText, optionalText, sortParam, stressSchema } from './library';
 import { jointSchema } from './rules';
-import { ACCESSORY_CATEGORIES } from './week';
+import { ACCESSORY_CATEGORIES, type AccessoryCategory } from './week';
 
 export const accessoryCategorySchema = z.enum(ACCESSORY_CATEGORIES, { message: 'Pick a category' });
 
@@ -85,11 +85,13 @@ export interface AccessorySuggestion {
       accessories: {
         accessoryId: number;
         name: string;
-        category: string;
+        category: AccessoryCategory;
         sets: number;
         reps: number;
         loadKg: number | null;
         rpe: number | null;
+        /** Back before the repeat window is over: every one of its category was used in it. */
+        early: boolean;
       }[];
       unfilled: { category: string; reason: string }[];
     }

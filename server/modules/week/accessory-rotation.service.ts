@@ -117,6 +117,7 @@ export async function suggestAccessories(
             reps: a.reps,
             loadKg: a.loadKg,
             rpe: a.rpe,
+            early: p.early === true,
           };
         }),
       unfilled: out.unfilled

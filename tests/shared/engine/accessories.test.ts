@@ -82,6 +82,16 @@ describe('rotateAccessories, worked examples', () => {
     expect(rotateAccessories({ ...base, slots: hams, baseLoad, rules: budget }).picks[0]!.accessoryId).toBe('rdl');
     const tight = { ...rules, jointBudget: { knee: 4, lowerBack: 1 } };
     expect(rotateAccessories({ ...base, slots: hams, baseLoad, rules: tight }).unfilled[0]!.reason).toBe('budget');
+    // Every hamstring accessory used last week: the least recent comes back early rather than none.
+    const used = ['ghr', 'rdl'].map((accessoryId, i) => ({
+      week: addWeeks(start, -1 - i),
+      sessionId: 'other',
+      category: 'hamstrings',
+      accessoryId,
+    }));
+    expect(rotateAccessories({ ...base, slots: hams, history: used }).picks).toEqual([
+      { week: start, sessionId: 'lower', category: 'hamstrings', accessoryId: 'rdl', early: true },
+    ]);
     const two = [
       { sessionId: 'a', categories: ['hamstrings'] },
       { sessionId: 'b', categories: ['hamstrings'] },
@@ -217,20 +227,35 @@ describe('rotateAccessories, properties', () => {
     );
   });
 
-  it('never brings an accessory back within the repeat window before its block', () => {
+  it('brings an accessory back within the repeat window only when every one of its category was used there', () => {
     fc.assert(
       fc.property(requestArb, (req) => {
         const out = rotateAccessories(req);
         const all = [...req.history, ...out.picks];
-        for (const p of out.picks) {
-          const start = accessoryBlockOf(p.week, req.rules.blockWeeks) * req.rules.blockWeeks;
-          const recent = all.filter(
+        const usedInWindow = (id: string, week: string) => {
+          const start = accessoryBlockOf(week, req.rules.blockWeeks) * req.rules.blockWeeks;
+          return all.some(
             (u) =>
-              u.accessoryId === p.accessoryId &&
+              u.accessoryId === id &&
               weekNumber(u.week) < start &&
               weekNumber(u.week) >= start - req.rules.repeatWindowWeeks,
           );
-          expect(recent).toEqual([]);
+        };
+        for (const p of out.picks) {
+          if (!p.early) {
+            expect(usedInWindow(p.accessoryId, p.week)).toBe(false);
+            continue;
+          }
+          // Every other one of the category was used in the window, or could not be had for another reason:
+          // a restriction, another session's pick that week, or stress on a budgeted joint.
+          const budgeted = JOINTS.filter((j) => req.rules.jointBudget[j] !== undefined);
+          const others = req.library.filter((a) => a.category === p.category && !a.archived);
+          for (const a of others) {
+            const elsewhere = out.picks.some((q) => q.week === p.week && q.accessoryId === a.id && q !== p);
+            const restricted = (req.restrictions ?? []).some((r) => (a.stress[r.joint!] ?? 0) > r.maxStress!);
+            const loaded = budgeted.some((j) => (a.stress[j] ?? 0) > 0);
+            expect(usedInWindow(a.id, p.week) || elsewhere || restricted || loaded).toBe(true);
+          }
         }
       }),
       runs,
