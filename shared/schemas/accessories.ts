@@ -3,7 +3,20 @@
 import { z } from 'zod';
 import { isValidRpe } from '../calc';
 import { listQuery, versionField } from './common';
-import { booleanQuery, optionalQueryText, optionalText, sortParam, stressSchema } from './library';
+import { JOINTS, type Joint } from '../engine/types';
+import {
+  booleanQuery,
+  csvNumber,
+  escapeCsvCell,
+  nameKey,
+  normaliseCsvHeader,
+  optionalQueryText,
+  optionalText,
+  sortParam,
+  stressSchema,
+  unescapeCsvCell,
+  type CsvProblem,
+} from './library';
 import { jointSchema } from './rules';
 import { ACCESSORY_CATEGORIES, type AccessoryCategory } from './week';
 
@@ -96,4 +109,129 @@ export interface AccessorySuggestion {
       unfilled: { category: string; reason: string }[];
     }
   >;
+}
+
+// ---------------------------------------------------------------------------------------------------
+// CSV
+
+/** The accessory library's CSV columns, in export order. */
+export const ACCESSORY_CSV_COLUMNS = [
+  'name',
+  'category',
+  'sets',
+  'reps',
+  'load_kg',
+  'rpe',
+  'shoulder_stress',
+  'elbow_stress',
+  'wrist_stress',
+  'lower_back_stress',
+  'hip_stress',
+  'knee_stress',
+  'notes',
+  'archived',
+] as const;
+type AccessoryCsvColumn = (typeof ACCESSORY_CSV_COLUMNS)[number];
+const ACCESSORY_CSV_REQUIRED: readonly AccessoryCsvColumn[] = ['name', 'category', 'sets', 'reps'];
+const JOINT_COLUMN: Record<Joint, AccessoryCsvColumn> = {
+  shoulder: 'shoulder_stress',
+  elbow: 'elbow_stress',
+  wrist: 'wrist_stress',
+  lowerBack: 'lower_back_stress',
+  hip: 'hip_stress',
+  knee: 'knee_stress',
+};
+
+export interface AccessoryCsvRow {
+  accessory: AccessoryValues;
+  archived: boolean;
+}
+
+/** `Upper back`, `upper-back` or `upperBack` → `upperBack`. */
+const squash = (s: string) => s.toLowerCase().replace(/[\s_-]+/g, '');
+const CATEGORY_WORDS = new Map<string, AccessoryCategory>(ACCESSORY_CATEGORIES.map((c) => [squash(c), c]));
+
+/** An accessory as one CSV record, every cell a string, in column order. */
+export function accessoryToCsvRecord(
+  a: Omit<AccessoryValues, 'stress'> & { stress: Partial<Record<Joint, number>>; archived: boolean },
+): string[] {
+  const rec: Record<AccessoryCsvColumn, string> = {
+    name: a.name,
+    category: a.category,
+    sets: String(a.sets),
+    reps: String(a.reps),
+    load_kg: a.loadKg === null ? '' : String(a.loadKg),
+    rpe: a.rpe === null ? '' : String(a.rpe),
+    shoulder_stress: String(a.stress.shoulder ?? 0),
+    elbow_stress: String(a.stress.elbow ?? 0),
+    wrist_stress: String(a.stress.wrist ?? 0),
+    lower_back_stress: String(a.stress.lowerBack ?? 0),
+    hip_stress: String(a.stress.hip ?? 0),
+    knee_stress: String(a.stress.knee ?? 0),
+    notes: a.notes ?? '',
+    archived: a.archived ? 'yes' : 'no',
+  };
+  return ACCESSORY_CSV_COLUMNS.map((c) => escapeCsvCell(rec[c]));
+}
+
+/**
+ * A parsed CSV table (header first) → valid rows and every problem: header problems, bad values, a name
+ * twice. One problem anywhere refuses the whole file.
+ */
+export function readAccessoryTable(table: string[][]): { valid: AccessoryCsvRow[]; problems: CsvProblem[] } {
+  const [header = [], ...data] = table;
+  const keys = header.map(normaliseCsvHeader);
+  const problems: CsvProblem[] = [];
+  const known = new Set<string>(ACCESSORY_CSV_COLUMNS);
+  keys.forEach((k, i) => {
+    if (k && !known.has(k)) problems.push({ row: 1, field: header[i]!, message: `Unknown column "${header[i]}"` });
+    else if (k && keys.indexOf(k) !== i)
+      problems.push({ row: 1, field: k, message: `The column "${k}" appears twice` });
+  });
+  for (const col of ACCESSORY_CSV_REQUIRED) {
+    if (!keys.includes(col)) problems.push({ row: 1, field: col, message: `The column "${col}" is missing` });
+  }
+  const valid: AccessoryCsvRow[] = [];
+  const firstRowOf = new Map<string, number>();
+  data.forEach((cells, i) => {
+    const row = i + 2;
+    if (cells.every((c) => c.trim() === '')) return;
+    const cell = (c: AccessoryCsvColumn) => unescapeCsvCell(cells[keys.indexOf(c)] ?? '');
+    const archivedRaw = cell('archived').trim().toLowerCase();
+    const rowProblems: CsvProblem[] = [];
+    if (!['', 'no', 'yes', 'y', 'n', 'true', 'false', '0', '1'].includes(archivedRaw))
+      rowProblems.push({ row, field: 'archived', message: 'Use yes or no' });
+    const candidate = {
+      name: cell('name'),
+      category: CATEGORY_WORDS.get(squash(cell('category').trim())) ?? cell('category').trim(),
+      stress: Object.fromEntries(JOINTS.map((j) => [j, csvNumber(cell(JOINT_COLUMN[j]), 0)])),
+      sets: csvNumber(cell('sets'), undefined),
+      reps: csvNumber(cell('reps'), undefined),
+      loadKg: csvNumber(cell('load_kg'), undefined) ?? null,
+      rpe: csvNumber(cell('rpe'), undefined) ?? null,
+      notes: cell('notes'),
+    };
+    const parsed = accessoryBody.safeParse(candidate);
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const [head, sub] = issue.path;
+        const field =
+          head === 'stress' ? JOINT_COLUMN[sub as Joint] : head === 'loadKg' ? 'load_kg' : String(head ?? 'row');
+        const message = field === 'category' ? `Use one of: ${ACCESSORY_CATEGORIES.join(', ')}` : issue.message;
+        if (!rowProblems.some((p) => p.field === field)) rowProblems.push({ row, field, message });
+      }
+    } else {
+      const key = nameKey(parsed.data.name);
+      const first = firstRowOf.get(key);
+      if (first !== undefined)
+        rowProblems.push({ row, field: 'name', message: `The same name is already on row ${first}` });
+      else firstRowOf.set(key, row);
+    }
+    if (rowProblems.length > 0 || !parsed.success) problems.push(...rowProblems);
+    else valid.push({ accessory: parsed.data, archived: ['yes', 'y', 'true', '1'].includes(archivedRaw) });
+  });
+  if (data.every((c) => c.every((x) => x.trim() === '')) && problems.length === 0) {
+    problems.push({ row: 2, field: 'row', message: 'The file has a header but no rows' });
+  }
+  return { valid, problems };
 }

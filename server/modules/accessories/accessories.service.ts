@@ -1,7 +1,22 @@
 // The accessory library's rules: unique names per team, versioned edits, archive instead of delete (a week
-// may name an accessory), and the library as the rotation and the week editor read it.
+// may name an accessory), the library as the rotation and the week editor read it, and its CSV file.
 import type { AccessoryChoice } from '../../../shared/engine/accessories';
-import type { AccessoryListFilters, AccessoryValues, LibraryAccessory, ListResponse } from '../../../shared/schemas';
+import Papa from 'papaparse';
+import {
+  ACCESSORY_CSV_COLUMNS,
+  LIBRARY_CSV_MAX_ROWS,
+  accessoryToCsvRecord,
+  detectCsvDelimiter,
+  nameKey,
+  readAccessoryTable,
+  type AccessoryListFilters,
+  type AccessoryValues,
+  type LibraryAccessory,
+  type LibraryImportResult,
+  type ListResponse,
+} from '../../../shared/schemas';
+import { inTransaction } from '../../db/transaction';
+import { decodeUpload, invalidRows } from '../variants/variants.service';
 import type { Queryable } from '../../db/client';
 import type { AppContext } from '../../context';
 import { isDuplicateKey } from '../../db/errors';
@@ -101,3 +116,55 @@ export const engineAccessory = (a: LibraryAccessory): AccessoryChoice => ({
   stress: a.stress,
   archived: a.archived,
 });
+
+/** RFC 4180 text: a header row of our column names, then one row per accessory, CRLF line ends. */
+export async function exportAccessories(ctx: AppContext, teamId: number): Promise<string> {
+  const rows = (await repo.allAccessories(ctx.database.db, teamId)).map(toAccessoryDto);
+  const data = rows.map((a) => accessoryToCsvRecord(a));
+  return Papa.unparse({ fields: [...ACCESSORY_CSV_COLUMNS], data }, { newline: '\r\n', quotes: false }) + '\r\n';
+}
+
+/**
+ * Adds the file's new accessories and updates those whose name is already in the library, in one
+ * transaction; a single bad row refuses the whole file with every problem listed.
+ */
+export async function importAccessories(ctx: AppContext, teamId: number, file: Buffer) {
+  const text = (await decodeUpload(file)).replace(/^\uFEFF/, '');
+  const parsed = Papa.parse<string[]>(text, { delimiter: detectCsvDelimiter(text), skipEmptyLines: false });
+  const quoteProblems = parsed.errors
+    .filter((e) => e.type === 'Quotes')
+    .map((e) => ({ row: (e.row ?? 0) + 1, field: 'row', message: 'A quote mark is not closed on this row' }));
+  const table = readAccessoryTable(parsed.data);
+  if (table.valid.length > LIBRARY_CSV_MAX_ROWS) {
+    throw new ValidationError('The file is too long.', {
+      file: [`Import at most ${LIBRARY_CSV_MAX_ROWS} rows at a time.`],
+    });
+  }
+  const problems = [...quoteProblems, ...table.problems];
+  if (problems.length > 0) throw invalidRows(problems);
+  return inTransaction(ctx.database.db, async (tx) => {
+    const existing = new Map((await repo.allAccessories(tx, teamId)).map((a) => [nameKey(a.name), a]));
+    const now = new Date();
+    const fresh: repo.AccessoryValues[] = [];
+    let updated = 0;
+    let unchanged = 0;
+    for (const row of table.valid) {
+      const old = existing.get(nameKey(row.accessory.name));
+      const archivedAt = row.archived ? (old?.archivedAt ?? now) : null;
+      const values = { ...row.accessory, archivedAt };
+      if (!old) fresh.push(values);
+      else if (
+        JSON.stringify(accessoryToCsvRecord({ ...toAccessoryDto(old) })) ===
+        JSON.stringify(accessoryToCsvRecord({ ...row.accessory, archived: row.archived }))
+      )
+        unchanged++;
+      else {
+        if (!(await repo.updateAccessory(tx, teamId, old.id, old.version, values)))
+          throw new ConflictError('The library changed during the import, so nothing was imported. Try again.');
+        updated++;
+      }
+    }
+    await repo.insertAccessories(tx, teamId, fresh);
+    return { created: fresh.length, updated, unchanged } satisfies LibraryImportResult;
+  });
+}

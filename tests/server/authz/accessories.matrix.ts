@@ -19,6 +19,9 @@ export const matrix: MatrixModule = {
   },
   cases: {
     'GET /api/accessories': { path: () => '/api/accessories', expect: staff(200, 200) },
+    'GET /api/accessories/export': { path: () => '/api/accessories/export', expect: staff(200, 200) },
+    // No file attached: refused before anything is read.
+    'POST /api/accessories/import': { path: () => '/api/accessories/import', expect: staff(400, 400) },
     'POST /api/accessories': { path: () => '/api/accessories', invalidBody: {}, expect: staff(400, 400) },
     'GET /api/accessories/:id': { path: (f) => `/api/accessories/${f.ids.libraryAccessory}`, expect: staff(200) },
     'PATCH /api/accessories/:id': {
