@@ -3,6 +3,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import { ACCESSORY_CSV_COLUMNS } from '../../shared/schemas';
 import { axeViolations } from './support/axe';
 import { openBrowser, signInAs, type Browser } from './support/browser';
 
@@ -56,6 +57,30 @@ describe('Accessories', () => {
     await expect.poll(() => page.getByRole('listitem').filter({ hasText: name }).count()).toBe(0);
     await page.getByLabel('Show archived').click();
     await page.getByRole('button', { name: `Bring back ${name}` }).waitFor();
+  });
+
+  it('previews a CSV import, refuses a file with a bad row, and imports a good one', async () => {
+    const page = b.page;
+    await page.goto(`${b.baseUrl}/accessories`);
+    await page.getByRole('button', { name: 'Import CSV' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Import accessories from CSV' });
+    const header = ACCESSORY_CSV_COLUMNS.join(',');
+    const name = `Nordic curl ${tag}`;
+    const bad = `${header}\n${name},hamstrings,0,5,,,0,0,0,0,0,2,,no\n`;
+    await dialog
+      .getByLabel('CSV file')
+      .setInputFiles({ name: 'a.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });
+    await dialog.getByText('Row 2, sets: At least 1 set').waitFor();
+    expect(await dialog.getByRole('button', { name: 'Import' }).isDisabled()).toBe(true);
+    expect(await axeViolations(page, 'dialog')).toEqual([]);
+    const good = bad.replace(',0,5,', ',3,5,');
+    await dialog
+      .getByLabel('CSV file')
+      .setInputFiles({ name: 'a.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+    await dialog.getByText('1 row ready to import.').waitFor();
+    await dialog.getByRole('button', { name: 'Import' }).click();
+    await page.getByText('Imported: 1 added, 0 updated, 0 unchanged.').waitFor();
+    await page.getByRole('listitem').filter({ hasText: name }).waitFor();
   });
 
   it('fills a week’s accessories from the rotation and saves them', async () => {

@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ACCESSORY_CATEGORIES, ACCESSORY_CATEGORY_LABELS, type LibraryAccessory } from '../../../shared/schemas';
-import { Button } from '../../components/ui/button';
+import { Button, buttonClass } from '../../components/ui/button';
 import { Dialog } from '../../components/ui/dialog';
 import { SelectField, TextField } from '../../components/ui/field';
 import { Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
@@ -15,7 +15,9 @@ import {
   type AccessoryFilters,
 } from '../../features/accessories/api/queries';
 import { useUpdateAccessory } from '../../features/accessories/api/use-save-accessory';
+import { ACCESSORY_EXPORT_URL } from '../../features/accessories/api/use-import-accessories';
 import { AccessoryForm } from '../../features/accessories/components/accessory-form';
+import { AccessoryImportDialog } from '../../features/accessories/components/accessory-import-dialog';
 import { AccessoryList } from '../../features/accessories/components/accessory-list';
 import type { LoaderMaker } from '../guards';
 
@@ -34,6 +36,7 @@ export function Component() {
   const list = useQuery(accessoryListOptions(filters));
   const [editing, setEditing] = useState<LibraryAccessory | 'new' | null>(null);
   const [message, setMessage] = useState<string | null>(null);
+  const [importing, setImporting] = useState(false);
   const archive = useUpdateAccessory();
   const update = (next: Partial<AccessoryFilters>) =>
     setParams(accessorySearch({ ...filters, ...next }), { replace: true });
@@ -44,7 +47,17 @@ export function Component() {
       <PageHeader
         title="Accessories"
         subtitle="The accessory exercises sessions are filled from, by category, with their default work and joint stress."
-        actions={<Button onClick={() => setEditing('new')}>Add accessory</Button>}
+        actions={
+          <>
+            <Button onClick={() => setEditing('new')}>Add accessory</Button>
+            <Button variant="secondary" onClick={() => setImporting(true)}>
+              Import CSV
+            </Button>
+            <a className={buttonClass('secondary')} href={ACCESSORY_EXPORT_URL} download>
+              Export CSV
+            </a>
+          </>
+        }
       />
       <TrainingCaution className="mb-4" />
       {message ? (
@@ -110,6 +123,14 @@ export function Component() {
           />
         ) : null}
       </Dialog>
+      <AccessoryImportDialog
+        open={importing}
+        onClose={() => setImporting(false)}
+        onDone={(m) => {
+          setImporting(false);
+          setMessage(m);
+        }}
+      />
     </section>
   );
 }
