@@ -16,18 +16,16 @@ beforeAll(async () => {
   const otherTeam = await createTeam(db);
   coach = await t.signIn(team.coach.email);
   other = await t.signIn(otherTeam.headCoach.email);
-  await coach
-    .post('/api/accessories')
-    .send({
-      name: 'Seal row',
-      category: 'upperBack',
-      stress: {},
-      sets: 4,
-      reps: 10,
-      loadKg: null,
-      rpe: 8,
-      notes: null,
-    });
+  await coach.post('/api/accessories').send({
+    name: 'Seal row',
+    category: 'upperBack',
+    stress: {},
+    sets: 4,
+    reps: 10,
+    loadKg: null,
+    rpe: 8,
+    notes: null,
+  });
 });
 
 const header = ACCESSORY_CSV_COLUMNS.join(',');
