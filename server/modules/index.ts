@@ -9,6 +9,7 @@ import { athletesRouter } from './athletes/athletes.router';
 import { meetsRouter } from './meets/meets.router';
 import { rulesRouter } from './rules/rules.router';
 import { variantsRouter } from './variants/variants.router';
+import { accessoriesRouter } from './accessories/accessories.router';
 import { boardRouter } from './board/board.router';
 import { plansRouter } from './plans/plans.router';
 import { emailRouter } from './email/email.router';
@@ -26,6 +27,7 @@ import { weekRouter } from './week/week.router';
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
   variantsRouter,
+  accessoriesRouter,
   athletesRouter,
   meetsRouter,
   rulesRouter,

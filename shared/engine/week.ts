@@ -11,6 +11,7 @@ export interface SpeedWork {
   accommodation: 'none' | 'bands' | 'chains';
 }
 export interface AccessoryWork {
+  accessoryId?: number | null;
   name: string;
   category: string;
   sets: number;

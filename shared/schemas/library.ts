@@ -268,7 +268,7 @@ const EMPHASIS_WORDS: Record<string, EmphasisValue> = {
 const YES = new Set(['yes', 'y', 'true', '1']);
 const NO = new Set(['no', 'n', 'false', '0', '']);
 
-function csvNumber(raw: string | undefined, fallback: number | undefined): number | undefined {
+export function csvNumber(raw: string | undefined, fallback: number | undefined): number | undefined {
   const s = (raw ?? '').trim().replace(',', '.');
   if (s === '') return fallback;
   // Number('') is 0 and Number('0x1') is 1: only plain decimals count.

@@ -152,6 +152,8 @@ export type SpeedWork = z.infer<typeof speedWorkSchema>;
 
 export const accessoryWorkSchema = z
   .object({
+    /** The library accessory it was chosen from; null for work typed in by hand (or saved before the library). */
+    accessoryId: z.number().int().positive().nullable().default(null),
     name: z.string().trim().min(1, 'Name the exercise').max(60, 'At most 60 characters'),
     category: z.enum(ACCESSORY_CATEGORIES),
     sets: setsField(10),

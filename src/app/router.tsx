@@ -76,6 +76,7 @@ export function createAppRouter(queryClient: QueryClient) {
               handle: { skipLink: { href: '#board-grid', label: 'Skip to the board' } } satisfies PageHandle,
             },
             { path: 'library', ...page(queryClient, STAFF, () => import('./routes/library')) },
+            { path: 'accessories', ...page(queryClient, STAFF, () => import('./routes/accessories')) },
             { path: 'roster', ...page(queryClient, STAFF, () => import('./routes/roster')) },
             { path: 'athletes/:athleteId', ...page(queryClient, STAFF, () => import('./routes/athlete')) },
             {

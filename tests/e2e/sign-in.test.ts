@@ -36,7 +36,7 @@ describe('signing in', () => {
     const nav = b.page.getByRole('navigation', { name: 'Main' });
     await nav.getByRole('link', { name: 'Board' }).waitFor();
     const links = await nav.getByRole('link').allTextContents();
-    expect(links).toEqual(['Board', 'Library', 'Roster', 'Meets', 'Rules', 'Fees']);
+    expect(links).toEqual(['Board', 'Library', 'Accessories', 'Roster', 'Meets', 'Rules', 'Fees']);
     await b.page.getByRole('button', { name: 'Sign out' }).click();
     await b.page.waitForURL(/\/sign-in/);
   });

@@ -66,7 +66,7 @@ describe('the training week', () => {
     await upper.getByLabel('Sets').first().fill('8');
     await upper.getByLabel('Bands or chains').selectOption('bands');
     await upper.getByRole('button', { name: 'Add an accessory' }).click();
-    const last = upper.getByLabel('Exercise').last();
+    const last = upper.getByLabel('Exercise name').last();
     await last.fill('Dumbbell row');
     await form.getByRole('button', { name: 'Save the week' }).click();
     await form.getByText('Week saved.').waitFor();

@@ -44,3 +44,28 @@ export const variants = mysqlTable(
     index('variants_team_lift_idx').on(t.teamId, t.lift),
   ],
 );
+
+/** Accessory exercises (upper back, lats, triceps…) the week's sessions are filled from, per team. */
+export const accessories = mysqlTable(
+  'accessories',
+  {
+    id: id(),
+    teamId: teamRef(),
+    name: varchar('name', { length: 60 }).notNull(),
+    category: varchar('category', { length: 20 }).notNull(),
+    stress: json('stress').$type<StressMap>().notNull(),
+    sets: tinyint('sets', { unsigned: true }).notNull(),
+    reps: tinyint('reps', { unsigned: true }).notNull(),
+    loadKg: decimal('load_kg', { precision: 5, scale: 1, mode: 'number' }),
+    rpe: decimal('rpe', { precision: 3, scale: 1, mode: 'number' }),
+    notes: text('notes'),
+    archivedAt: datetime('archived_at', { mode: 'date', fsp: 3 }),
+    version: version(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    uniqueIndex('accessories_team_name_uq').on(t.teamId, t.name),
+    index('accessories_team_category_idx').on(t.teamId, t.category),
+  ],
+);

@@ -1,47 +1,86 @@
-// The invented demo club's training week beyond max effort: accessories for every session of this week
-// and the next two (speed work follows the default wave), and a deload week where an athlete rests.
+// The invented demo club's training week beyond max effort: its accessory library, accessories from it for
+// every session of this week and the next two (speed work follows the default wave), and a deload week where an athlete rests.
+import { eq } from 'drizzle-orm';
 import { addWeeks } from '../../../shared/engine/weeks';
-import type { AccessoryWork, SessionWork } from '../../../shared/schemas';
-import type { athleteWeeks } from '../schema';
+import type { AccessoryCategory, AccessoryWork, SessionWork } from '../../../shared/schemas';
+import type { Tx } from '../client';
+import { accessories, type StressMap, type athleteWeeks } from '../schema';
 
-const acc = (
-  name: string,
-  category: AccessoryWork['category'],
-  sets: number,
-  reps: number,
-  target: { rpe?: number; loadKg?: number } = {},
-): AccessoryWork => ({ name, category, sets, reps, loadKg: target.loadKg ?? null, rpe: target.rpe ?? null });
+interface DemoAccessory {
+  name: string;
+  category: AccessoryCategory;
+  stress: StressMap;
+  sets: number;
+  reps: number;
+  loadKg?: number;
+  rpe?: number;
+}
 
-/** Two invented accessory blocks, alternated between athletes and weeks (speed work: null keeps the default wave). */
-const BLOCKS: Record<string, AccessoryWork[]>[] = [
+/** The demo club's accessory library: common gym exercises with the club's own defaults (invented). */
+export const DEMO_ACCESSORIES: DemoAccessory[] = [
+  { name: 'Reverse hyper', category: 'hamstrings', stress: { lowerBack: 1 }, sets: 4, reps: 12, rpe: 7 },
+  { name: 'Glute-ham raise', category: 'hamstrings', stress: { knee: 1 }, sets: 4, reps: 8, rpe: 8 },
+  { name: 'Romanian deadlift', category: 'hamstrings', stress: { lowerBack: 2, hip: 1 }, sets: 3, reps: 8, rpe: 7 },
+  { name: 'Hanging knee raise', category: 'abdominals', stress: {}, sets: 3, reps: 15 },
+  { name: 'Ab wheel rollout', category: 'abdominals', stress: { shoulder: 1 }, sets: 3, reps: 10 },
+  { name: 'Weighted plank', category: 'abdominals', stress: {}, sets: 3, reps: 1, loadKg: 20 },
+  { name: 'Chest-supported row', category: 'upperBack', stress: {}, sets: 4, reps: 10, rpe: 8 },
+  { name: 'Seal row', category: 'upperBack', stress: {}, sets: 4, reps: 10, rpe: 8 },
+  { name: 'Rear-delt raise', category: 'upperBack', stress: { shoulder: 1 }, sets: 3, reps: 20 },
+  { name: 'Rolling dumbbell extension', category: 'triceps', stress: { elbow: 1 }, sets: 4, reps: 12, rpe: 8 },
+  { name: 'JM press', category: 'triceps', stress: { elbow: 2 }, sets: 4, reps: 8, rpe: 8 },
+  { name: 'Band pushdown', category: 'triceps', stress: {}, sets: 3, reps: 25 },
+  { name: 'Lat pulldown', category: 'lats', stress: {}, sets: 4, reps: 12, rpe: 8 },
+  { name: 'Chin-up', category: 'lats', stress: { elbow: 1 }, sets: 4, reps: 8, rpe: 8 },
+  { name: 'Farmer carry', category: 'grip', stress: {}, sets: 3, reps: 1, loadKg: 40 },
+  { name: 'Plate pinch', category: 'grip', stress: { wrist: 1 }, sets: 3, reps: 1, loadKg: 15 },
+  { name: 'Kettlebell swing', category: 'glutes', stress: { lowerBack: 1 }, sets: 4, reps: 15, loadKg: 24 },
+  { name: 'Face pull', category: 'shoulders', stress: {}, sets: 3, reps: 20 },
+];
+
+/** The demo library in the team; its ids by name. */
+export async function insertDemoAccessories(tx: Tx, teamId: number): Promise<Map<string, number>> {
+  await tx
+    .insert(accessories)
+    .values(DEMO_ACCESSORIES.map((a) => ({ ...a, teamId, loadKg: a.loadKg ?? null, rpe: a.rpe ?? null, notes: null })));
+  const rows = await tx
+    .select({ id: accessories.id, name: accessories.name })
+    .from(accessories)
+    .where(eq(accessories.teamId, teamId));
+  return new Map(rows.map((r) => [r.name, r.id]));
+}
+
+const acc = (name: string): Omit<AccessoryWork, 'accessoryId'> => {
+  const a = DEMO_ACCESSORIES.find((x) => x.name === name)!;
+  return { name, category: a.category, sets: a.sets, reps: a.reps, loadKg: a.loadKg ?? null, rpe: a.rpe ?? null };
+};
+
+/** Two accessory blocks from the library, alternated between athletes and weeks (speed work: null keeps the default wave). */
+const BLOCKS: Record<string, Omit<AccessoryWork, 'accessoryId'>[]>[] = [
   {
-    'lower-me': [acc('Reverse hyper', 'hamstrings', 4, 12, { rpe: 7 }), acc('Hanging knee raise', 'abdominals', 3, 15)],
-    'upper-me': [
-      acc('Chest-supported row', 'upperBack', 4, 10, { rpe: 8 }),
-      acc('Rolling dumbbell extension', 'triceps', 4, 12, { rpe: 8 }),
-    ],
-    'lower-speed': [
-      acc('Glute-ham raise', 'hamstrings', 4, 8, { rpe: 8 }),
-      acc('Farmer carry', 'grip', 3, 1, { loadKg: 40 }),
-    ],
-    'upper-speed': [acc('Lat pulldown', 'lats', 4, 12, { rpe: 8 }), acc('Band pushdown', 'triceps', 3, 25)],
+    'lower-me': [acc('Reverse hyper'), acc('Hanging knee raise')],
+    'upper-me': [acc('Chest-supported row'), acc('Rolling dumbbell extension')],
+    'lower-speed': [acc('Glute-ham raise'), acc('Farmer carry')],
+    'upper-speed': [acc('Lat pulldown'), acc('Band pushdown')],
   },
   {
-    'lower-me': [
-      acc('Romanian deadlift', 'hamstrings', 3, 8, { rpe: 7 }),
-      acc('Ab wheel rollout', 'abdominals', 3, 10),
-    ],
-    'upper-me': [acc('Seal row', 'upperBack', 4, 10, { rpe: 8 }), acc('JM press', 'triceps', 4, 8, { rpe: 8 })],
-    'lower-speed': [
-      acc('Kettlebell swing', 'glutes', 4, 15, { loadKg: 24 }),
-      acc('Plate pinch', 'grip', 3, 1, { loadKg: 15 }),
-    ],
-    'upper-speed': [acc('Chin-up', 'lats', 4, 8, { rpe: 8 }), acc('Face pull', 'shoulders', 3, 20)],
+    'lower-me': [acc('Romanian deadlift'), acc('Ab wheel rollout')],
+    'upper-me': [acc('Seal row'), acc('JM press')],
+    'lower-speed': [acc('Kettlebell swing'), acc('Plate pinch')],
+    'upper-speed': [acc('Chin-up'), acc('Face pull')],
   },
 ];
 
-function workOf(block: Record<string, AccessoryWork[]>): Record<string, SessionWork> {
-  return Object.fromEntries(Object.entries(block).map(([id, accessories]) => [id, { speed: null, accessories }]));
+function workOf(
+  block: Record<string, Omit<AccessoryWork, 'accessoryId'>[]>,
+  idOf: ReadonlyMap<string, number>,
+): Record<string, SessionWork> {
+  return Object.fromEntries(
+    Object.entries(block).map(([id, list]) => [
+      id,
+      { speed: null, accessories: list.map((a) => ({ ...a, accessoryId: idOf.get(a.name) ?? null })) },
+    ]),
+  );
 }
 
 /** Rows for this week and the next two; a week the athlete rests is a deload. */
@@ -52,9 +91,10 @@ export function demoWeekRows(
   thisWeek: string,
   restInWeeks: readonly number[],
   updatedBy: number | null,
+  idOf: ReadonlyMap<string, number>,
 ): (typeof athleteWeeks.$inferInsert)[] {
   return [0, 1, 2].map((n) => {
-    const work = workOf(BLOCKS[(index + n) % 2]!);
+    const work = workOf(BLOCKS[(index + n) % 2]!, idOf);
     return {
       teamId,
       athleteId,

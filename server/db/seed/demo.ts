@@ -3,7 +3,7 @@
 import { inTransaction } from '../transaction';
 import { sql } from 'drizzle-orm';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
-import { demoWeekRows } from './demo-week';
+import { demoWeekRows, insertDemoAccessories } from './demo-week';
 import { weightClass } from '../../../shared/calc';
 import { DEFAULT_TEAM_RULES } from '../../../shared/schemas/rules';
 import { suggestAttempts } from '../../../shared/schemas/meets';
@@ -106,6 +106,7 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
       updatedBy: staffIds[0] ?? null,
     });
     const variantIds = await insertLibrary(tx, teamId, DEMO_LIBRARY);
+    const accessoryIds = await insertDemoAccessories(tx, teamId);
 
     const athleteIds = new Map<string, number>();
     for (const a of DEMO_ATHLETES) {
@@ -153,7 +154,17 @@ export async function seedDemo(db: Db, today = new Date()): Promise<void> {
       }
       await tx
         .insert(athleteWeeks)
-        .values(demoWeekRows(teamId, row!.id, athleteIds.size, thisWeek, a.restInWeeks ?? [], staffIds[0] ?? null));
+        .values(
+          demoWeekRows(
+            teamId,
+            row!.id,
+            athleteIds.size,
+            thisWeek,
+            a.restInWeeks ?? [],
+            staffIds[0] ?? null,
+            accessoryIds,
+          ),
+        );
     }
 
     for (const m of DEMO_MEETS) {

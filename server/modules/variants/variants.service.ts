@@ -143,7 +143,7 @@ export async function exportLibrary(ctx: AppContext, teamId: number): Promise<st
 }
 
 /** Uploaded bytes → text: UTF-8 as spreadsheets save it today, with Windows-1252 for older exports. */
-async function decodeUpload(buffer: Buffer): Promise<string> {
+export async function decodeUpload(buffer: Buffer): Promise<string> {
   const type = await fileTypeFromBuffer(buffer);
   if (type) {
     throw new ValidationError('That file is not CSV text.', {
@@ -159,7 +159,7 @@ async function decodeUpload(buffer: Buffer): Promise<string> {
 
 const MAX_REPORTED_PROBLEMS = 500;
 
-function invalidRows(all: { row: number; field: string; message: string }[]): AppError {
+export function invalidRows(all: { row: number; field: string; message: string }[]): AppError {
   // One line per distinct problem: a broken row can trip the same check more than once.
   const seen = new Set<string>();
   const rows = all.filter((p) => {

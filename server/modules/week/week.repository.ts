@@ -1,5 +1,5 @@
 // SQL of the training week: the athlete-week row the coach edits and the athlete's session logs. Team-scoped.
-import { and, eq } from 'drizzle-orm';
+import { and, eq, gte, lte } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
 import { athleteWeeks, athletes, sessionLogs } from '../../db/schema';
 import type { SessionWork } from '../../../shared/schemas';
@@ -80,4 +80,19 @@ export async function updateSessionLog(db: Queryable, key: LogKey, version: numb
       ),
     );
   return res.affectedRows > 0;
+}
+
+/** The athlete's stored weeks from `from` to `to` (inclusive): the accessories the rotation looks back on. */
+export async function athleteWeeksBetween(db: Queryable, teamId: number, athleteId: number, from: string, to: string) {
+  return db
+    .select({ week: athleteWeeks.week, work: athleteWeeks.work })
+    .from(athleteWeeks)
+    .where(
+      and(
+        eq(athleteWeeks.teamId, teamId),
+        eq(athleteWeeks.athleteId, athleteId),
+        gte(athleteWeeks.week, from),
+        lte(athleteWeeks.week, to),
+      ),
+    );
 }

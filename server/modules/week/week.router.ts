@@ -1,4 +1,5 @@
-// /api/athletes/:athleteId/weeks/:week (coaches: the whole week of one athlete) and
+// /api/athletes/:athleteId/weeks/:week (coaches: the whole week of one athlete, and the accessories the
+// rotation suggests for it) and
 // /api/my-week/sessions/:sessionId (the athlete logs a session).
 import { Router } from 'express';
 import { athleteWeekBody, athleteWeekParams, sessionLogBody, sessionLogParams } from '../../../shared/schemas';
@@ -7,6 +8,7 @@ import { ATHLETE, STAFF, authOf, requireRole } from '../../middleware/auth';
 import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
 import { ownAthleteId } from '../my-week/whose';
+import { suggestAccessories } from './accessory-rotation.service';
 import * as service from './week.service';
 
 export function weekRouter(ctx: AppContext): Router {
@@ -17,6 +19,14 @@ export function weekRouter(ctx: AppContext): Router {
     requireRole(STAFF),
     validate({ params: athleteWeekParams }, ({ params }, req) =>
       service.getAthleteWeek(ctx, authOf(req).teamId, params.athleteId, params.week),
+    ),
+  );
+
+  router.get(
+    '/athletes/:athleteId/weeks/:week/accessories',
+    requireRole(STAFF),
+    validate({ params: athleteWeekParams }, ({ params }, req) =>
+      suggestAccessories(ctx, authOf(req).teamId, params.athleteId, params.week),
     ),
   );
 

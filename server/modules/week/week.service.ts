@@ -33,6 +33,7 @@ import type { AuthContext } from '../../middleware/auth';
 import { markRestWeek, unmarkRestWeek } from '../athletes/athletes.service';
 import { closeLiftSetsOf } from '../meets/meets.service';
 import { readRulesOfTeam } from '../tissue/tissue.service';
+import { withLibraryAccessories } from './accessory-rotation.service';
 import * as repo from './week.repository';
 
 const LIFTS = ['squat', 'bench', 'deadlift'] as const;
@@ -174,6 +175,7 @@ export async function putAthleteWeek(
   const rules = await readRulesOfTeam(db, teamId);
   checkWork(rules.sessions, body.sessions);
   const before = await repo.findAthleteWeek(db, teamId, athleteId, week);
+  const work = await withLibraryAccessories(db, teamId, body.sessions, before?.work ?? {});
   const deloadChanged = (before?.deload ?? false) !== body.deload;
   if (deloadChanged && week < weekOfDate(new Date())) {
     throw new ValidationError('Some fields need attention.', { deload: ['Past weeks are history'] });
@@ -182,7 +184,7 @@ export async function putAthleteWeek(
   const values = {
     deload: body.deload,
     trainingMaxPct: body.trainingMaxPct,
-    work: body.sessions,
+    work,
     updatedBy: auth.userId,
   };
   let ok: boolean;

@@ -10,6 +10,7 @@ import { AccountMenu } from '../../features/auth/components/account-menu';
 const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/board', label: 'Board', roles: ['head_coach', 'coach'] },
   { to: '/library', label: 'Library', roles: ['head_coach', 'coach'] },
+  { to: '/accessories', label: 'Accessories', roles: ['head_coach', 'coach'] },
   { to: '/roster', label: 'Roster', roles: ['head_coach', 'coach'] },
   { to: '/meets', label: 'Meets', roles: ['head_coach', 'coach'] },
   { to: '/rules', label: 'Rules', roles: ['head_coach'] },

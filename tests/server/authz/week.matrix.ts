@@ -10,6 +10,10 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/athletes/${f.team.athleteId}/weeks/${week}`,
       expect: staff(200),
     },
+    'GET /api/athletes/:athleteId/weeks/:week/accessories': {
+      path: (f) => `/api/athletes/${f.team.athleteId}/weeks/${week}/accessories`,
+      expect: staff(200),
+    },
     'PUT /api/athletes/:athleteId/weeks/:week': {
       path: (f) => `/api/athletes/${f.team.athleteId}/weeks/${week}`,
       invalidBody: { version: 0 },
