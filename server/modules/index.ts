@@ -22,6 +22,7 @@ import { tissueRouter } from './tissue/tissue.router';
 import { topSetsRouter } from './top-sets/top-sets.router';
 import { videosRouter } from './videos/videos.router';
 import { weekRouter } from './week/week.router';
+import { messagesRouter } from './messages/messages.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
@@ -41,6 +42,7 @@ export const apiModules: ((ctx: AppContext) => Router)[] = [
   bodyweightsRouter,
   tissueRouter,
   weekRouter,
+  messagesRouter,
   reviewRouter,
   feesRouter,
   paymentsRouter,

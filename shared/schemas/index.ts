@@ -15,3 +15,4 @@ export * from './meets';
 export * from './meet-day';
 export * from './loop';
 export * from './week';
+export * from './messages';

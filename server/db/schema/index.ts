@@ -8,3 +8,4 @@ export * from './mail';
 export * from './billing';
 export * from './meetday';
 export * from './week';
+export * from './talk';

@@ -8,6 +8,8 @@ import { useMyWeek } from '../../features/my-week/api/queries';
 import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
 import { WeekSessions } from '../../features/my-week/components/week-sessions';
+import { useMe } from '../../features/auth/api/queries';
+import { MessageThread } from '../../features/messages/components/message-thread';
 import { weekParam } from './my-week.loader';
 
 // Below the picks, with forms: their code (and the validation library) loads after the picks are shown.
@@ -32,6 +34,7 @@ export function Component() {
   const [search] = useSearchParams();
   const requested = weekParam(search);
   const { data, error } = useMyWeek(requested);
+  const { data: me } = useMe();
   if (error) return <Notice tone="error">{error.message}</Notice>;
   if (!data) return <Loading />;
   const isCurrent = !requested;
@@ -71,6 +74,14 @@ export function Component() {
         picks={data.picks}
         deload={data.deload}
       />
+      {me?.athleteId ? (
+        <MessageThread
+          athleteId={me.athleteId}
+          week={data.week}
+          side="athlete"
+          slotLabels={Object.fromEntries(data.picks.map((p) => [p.slotId, p.slotLabel]))}
+        />
+      ) : null}
       <TissueWork tissue={data.tissue} />
       <Suspense fallback={<Loading />}>
         <CheckinForm weeks={data.checkins} thisWeek={data.week} />
