@@ -23,6 +23,7 @@ import { topSetsRouter } from './top-sets/top-sets.router';
 import { videosRouter } from './videos/videos.router';
 import { weekRouter } from './week/week.router';
 import { messagesRouter } from './messages/messages.router';
+import { noticesRouter } from './notices/notices.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
@@ -43,6 +44,7 @@ export const apiModules: ((ctx: AppContext) => Router)[] = [
   tissueRouter,
   weekRouter,
   messagesRouter,
+  noticesRouter,
   reviewRouter,
   feesRouter,
   paymentsRouter,

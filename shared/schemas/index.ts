@@ -16,3 +16,4 @@ export * from './meet-day';
 export * from './loop';
 export * from './week';
 export * from './messages';
+export * from './notices';

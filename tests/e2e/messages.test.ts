@@ -1,6 +1,6 @@
-// Messages end to end: the athlete asks a question from My week on a phone, a coach answers from the
-// board cell's details with a link to that cell, the athlete reads the answer, and the link opens the
-// cell on the Board. Each screen on the way has no axe-core violations.
+// Messages end to end: the athlete asks a question from My week on a phone, a coach sees it among the
+// notices and answers from the board cell's details with a link to that cell, the athlete reads the
+// answer, and the link opens the cell on the Board. Each screen on the way has no axe-core violations.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
 import { weekOfDate } from '../../shared/engine/weeks';
@@ -55,6 +55,14 @@ describe('messages between an athlete and the coaches', () => {
 
   it("a coach answers from the board cell's details, linking the cell", async () => {
     await signInAs(coach, 'coach@rackturn.test');
+    // The question is a notice in the top bar: a button with the unread count in its name, a list.
+    const bell = coach.page.getByRole('button', { name: /^Notices [1-9]\d* unread$/ });
+    await bell.click();
+    const notice = coach.page.getByRole('list', { name: 'Notices' }).getByRole('link', { name: /Elbow is cranky/ });
+    await notice.waitFor();
+    expect((await axeViolations(coach.page)).join('\n')).toBe('');
+    await coach.page.keyboard.press('Escape');
+    await expect(bell.evaluate((el) => el === document.activeElement)).resolves.toBe(true);
     await coach.page.goto(`${coach.baseUrl}/board?athlete=${noorId}&week=${thisWeek}&slot=${slotId}`);
     const dialog = coach.page.getByRole('dialog');
     const thread = dialog.getByRole('region', { name: /^Messages this week/ });

@@ -1,6 +1,17 @@
 // Messages between an athlete and the team's coaches, one thread per athlete and week, with what each
-// reader has read.
-import { char, index, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+// reader has read; notices for coaches, and each coach's choice of a daily e-mail summary of them.
+import {
+  boolean,
+  char,
+  date,
+  datetime,
+  index,
+  mysqlEnum,
+  mysqlTable,
+  text,
+  uniqueIndex,
+  varchar,
+} from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt } from './columns';
 import { teamRef, users } from './auth';
 import { athleteRef } from './roster';
@@ -39,4 +50,50 @@ export const messageReads = mysqlTable(
     updatedAt: updatedAt(),
   },
   (t) => [uniqueIndex('message_reads_reader_thread_uq').on(t.userId, t.athleteId, t.week)],
+);
+
+export const noticeKinds = ['pain', 'top_set_low', 'top_set_missed', 'video', 'message'] as const;
+
+/** One notice for one coach: something an athlete did that a coach should look at. */
+export const notices = mysqlTable(
+  'notices',
+  {
+    id: id(),
+    teamId: teamRef(),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    kind: mysqlEnum('kind', noticeKinds).notNull(),
+    athleteId: athleteRef(),
+    week: char('week', { length: 8 }).notNull(),
+    text: varchar('text', { length: 300 }).notNull(),
+    /** Where in the app the notice leads. */
+    path: varchar('path', { length: 200 }).notNull(),
+    /** What the notice is about, so that the same event never makes two notices for one coach. */
+    dedupeKey: varchar('dedupe_key', { length: 120 }).notNull(),
+    readAt: datetime('read_at', { mode: 'date', fsp: 3 }),
+    /** When it went out in a daily e-mail summary. */
+    digestedAt: datetime('digested_at', { mode: 'date', fsp: 3 }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('notices_user_dedupe_uq').on(t.userId, t.dedupeKey),
+    index('notices_user_idx').on(t.userId, t.readAt, t.id),
+  ],
+);
+
+/** A coach's notice settings; no row means the defaults (the daily e-mail on). */
+export const noticeSettings = mysqlTable(
+  'notice_settings',
+  {
+    id: id(),
+    userId: ref('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    dailyEmail: boolean('daily_email').notNull().default(true),
+    /** The last day (UTC) a summary was queued for this coach. */
+    lastDigestOn: date('last_digest_on', { mode: 'string' }),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex('notice_settings_user_uq').on(t.userId)],
 );

@@ -3,7 +3,9 @@
 import type { ListResponse, Message, MessageThread, SendMessageInput, ThreadSummary } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import type { AuthContext } from '../../middleware/auth';
+import { inTransaction } from '../../db/transaction';
 import { NotFoundError, ValidationError } from '../../lib/errors';
+import { noticeMessage } from '../notices/notices.service';
 import {
   findLastRead,
   findThreadAthlete,
@@ -73,17 +75,23 @@ export async function sendMessage(
     throw new ValidationError('Some fields need attention.', { link: ['Only coaches can link a board cell'] });
   }
   const db = ctx.database.db;
-  const id = await insertMessage(db, {
-    teamId: auth.teamId,
-    athleteId,
-    week,
-    authorId: auth.userId,
-    authorRole: sideOf(auth),
-    body: input.body,
-    linkWeek: input.link?.week ?? null,
-    linkSlotId: input.link?.slotId ?? null,
+  const id = await inTransaction(db, async (tx) => {
+    const id = await insertMessage(tx, {
+      teamId: auth.teamId,
+      athleteId,
+      week,
+      authorId: auth.userId,
+      authorRole: sideOf(auth),
+      body: input.body,
+      linkWeek: input.link?.week ?? null,
+      linkSlotId: input.link?.slotId ?? null,
+    });
+    await markReadUpTo(tx, { teamId: auth.teamId, userId: auth.userId, athleteId, week, lastReadId: id });
+    if (auth.role === 'athlete') {
+      await noticeMessage(tx, { teamId: auth.teamId, athleteId, week, messageId: id, body: input.body });
+    }
+    return id;
   });
-  await markReadUpTo(db, { teamId: auth.teamId, userId: auth.userId, athleteId, week, lastReadId: id });
   const [row] = await messagesByIds(db, auth.teamId, [id]);
   return { message: toMessage(row!, auth), athleteName: athlete.name };
 }

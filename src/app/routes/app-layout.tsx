@@ -6,6 +6,7 @@ import { SKIP_LINK_CLASS } from '../../components/ui/page';
 import { useMe } from '../../features/auth/api/queries';
 import { useSignOut } from '../../features/auth/api/use-sign-out';
 import { AccountMenu } from '../../features/auth/components/account-menu';
+import { NoticeMenu } from '../../features/notices/components/notice-menu';
 
 const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/board', label: 'Board', roles: ['head_coach', 'coach'] },
@@ -78,6 +79,7 @@ export function AppLayout() {
             </ul>
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
+            {me.role === 'athlete' ? null : <NoticeMenu />}
             <AccountMenu me={me} />
             <button
               type="button"
