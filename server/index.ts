@@ -8,6 +8,7 @@ import { SessionKeys } from './lib/session';
 import type { AppContext } from './context';
 import { createServices, stopServices } from './services';
 import { startNoticeJobs } from './modules/notices/notices.service';
+import { stopLiveEvents } from './modules/events/events.service';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL);
@@ -37,6 +38,8 @@ async function shutdown(signal: string) {
   closing = true;
   logger.info({ signal }, 'shutting down');
   noticeJobs.stop();
+  // Open event streams would hold server.close() until the clients go.
+  stopLiveEvents(ctx);
   server.close();
   server.closeIdleConnections();
   setTimeout(() => server.closeAllConnections(), 5_000).unref();

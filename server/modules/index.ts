@@ -24,6 +24,7 @@ import { videosRouter } from './videos/videos.router';
 import { weekRouter } from './week/week.router';
 import { messagesRouter } from './messages/messages.router';
 import { noticesRouter } from './notices/notices.router';
+import { eventsRouter } from './events/events.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
@@ -45,6 +46,7 @@ export const apiModules: ((ctx: AppContext) => Router)[] = [
   weekRouter,
   messagesRouter,
   noticesRouter,
+  eventsRouter,
   reviewRouter,
   feesRouter,
   paymentsRouter,

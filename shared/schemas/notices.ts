@@ -30,3 +30,12 @@ export const noticeSettingsBody = z.object({
   dailyEmail: z.boolean({ message: 'Choose on or off' }),
 });
 export type NoticeSettings = z.infer<typeof noticeSettingsBody>;
+
+/** What `GET /api/events` sends as each event's data: what changed, so a page asks again for just that. */
+export interface LiveEvent {
+  id: number;
+  topic: 'plan' | 'messages' | 'notices';
+  /** The athlete it is about; null for coaches-only news (notices). */
+  athleteId: number | null;
+  weeks: string[];
+}

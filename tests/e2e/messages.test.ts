@@ -1,11 +1,13 @@
 // Messages end to end: the athlete asks a question from My week on a phone, a coach sees it among the
 // notices and answers from the board cell's details with a link to that cell, the athlete reads the
 // answer, and the link opens the cell on the Board. Each screen on the way has no axe-core violations.
+// Then live updates: the athlete's open My week shows the coach's next reply without a reload.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
+import { request } from 'playwright-core';
 import { weekOfDate } from '../../shared/engine/weeks';
 import { axeViolations } from './support/axe';
-import { openBrowser, signInAs, type Browser } from './support/browser';
+import { DEMO_PASSWORD, openBrowser, signInAs, type Browser } from './support/browser';
 
 const thisWeek = weekOfDate(new Date());
 let athlete: Browser;
@@ -99,5 +101,30 @@ describe('messages between an athlete and the coaches', () => {
     expect(await axeViolations(coach.page)).toEqual([]);
     expect(athlete.problems).toEqual([]);
     expect(coach.problems).toEqual([]);
+  });
+
+  it("the athlete's open My week shows a coach's reply without a reload", async () => {
+    const page = athlete.page;
+    await page.goto(`${athlete.baseUrl}/my-week`);
+    const thread = page.getByRole('region', { name: /^Messages/ });
+    await thread.getByRole('listitem').first().waitFor();
+    // A mark on the window: a reload would wipe it.
+    await page.evaluate(() => ((window as unknown as { liveMark: number }).liveMark = 1));
+
+    const api = await request.newContext({ baseURL: athlete.baseUrl, extraHTTPHeaders: { Origin: athlete.baseUrl } });
+    try {
+      expect(
+        (await api.post('/api/auth/login', { data: { email: 'coach@rackturn.test', password: DEMO_PASSWORD } })).ok(),
+      ).toBe(true);
+      const later = 'Live: add two back-off singles after the top set.';
+      const sent = await api.post(`/api/messages/threads/${noorId}/${thisWeek}`, { data: { body: later } });
+      expect(sent.status()).toBe(201);
+      await thread.getByRole('listitem').filter({ hasText: later }).waitFor({ timeout: 15_000 });
+
+      expect(await page.evaluate(() => (window as unknown as { liveMark?: number }).liveMark)).toBe(1);
+    } finally {
+      await api.dispose();
+    }
+    expect(athlete.problems).toEqual([]);
   });
 });

@@ -14,7 +14,7 @@ import {
 } from 'drizzle-orm/mysql-core';
 import { createdAt, id, ref, updatedAt } from './columns';
 import { teamRef, users } from './auth';
-import { athleteRef } from './roster';
+import { athleteRef, athletes } from './roster';
 
 export const messages = mysqlTable(
   'messages',
@@ -96,4 +96,23 @@ export const noticeSettings = mysqlTable(
     updatedAt: updatedAt(),
   },
   (t) => [uniqueIndex('notice_settings_user_uq').on(t.userId)],
+);
+
+/**
+ * Changes that open pages should show at once, written by whichever app instance made them; every
+ * instance reads new rows by id and passes them on to its own subscribers. Old rows are pruned.
+ */
+export const liveEvents = mysqlTable(
+  'live_events',
+  {
+    id: id(),
+    teamId: teamRef(),
+    /** The athlete the change is about (that athlete and the coaches see it); null: for coaches only. */
+    athleteId: ref('athlete_id').references(() => athletes.id, { onDelete: 'cascade' }),
+    topic: mysqlEnum('topic', ['plan', 'messages', 'notices']).notNull(),
+    /** The weeks the change touches. */
+    weeks: varchar('weeks', { length: 200 }).notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('live_events_created_idx').on(t.createdAt)],
 );

@@ -6,6 +6,7 @@ import type { AuthContext } from '../../middleware/auth';
 import { inTransaction } from '../../db/transaction';
 import { NotFoundError, ValidationError } from '../../lib/errors';
 import { noticeMessage } from '../notices/notices.service';
+import { publishChange } from '../events/events.service';
 import {
   findLastRead,
   findThreadAthlete,
@@ -87,6 +88,7 @@ export async function sendMessage(
       linkSlotId: input.link?.slotId ?? null,
     });
     await markReadUpTo(tx, { teamId: auth.teamId, userId: auth.userId, athleteId, week, lastReadId: id });
+    await publishChange(tx, { teamId: auth.teamId, athleteId, topic: 'messages', weeks: [week] });
     if (auth.role === 'athlete') {
       await noticeMessage(tx, { teamId: auth.teamId, athleteId, week, messageId: id, body: input.body });
     }

@@ -7,6 +7,7 @@ import type { Queryable } from '../../db/client';
 import { inTransaction } from '../../db/transaction';
 import { NotFoundError } from '../../lib/errors';
 import { appLink } from '../email/link-tokens';
+import { publishChange } from '../events/events.service';
 import { noticeDigestMail, signDigestToken } from './digest';
 import {
   athleteName,
@@ -44,6 +45,7 @@ const athletePath = (athleteId: number) => `/athletes/${athleteId}`;
 
 async function notifyCoaches(db: Queryable, n: NewNotice) {
   await insertNotices(db, await teamCoachIds(db, n.teamId), n);
+  await publishChange(db, { teamId: n.teamId, athleteId: null, topic: 'notices' });
 }
 
 async function nameOf(db: Queryable, teamId: number, athleteId: number) {

@@ -10,12 +10,12 @@ export const noticeKeys = {
   settings: () => [...noticeKeys.all, 'settings'] as const,
 };
 
-/** Until live updates arrive, the list is asked for again every minute while the app is open. */
+/** Live updates ask for the list again when a notice comes; the slow poll covers a stream that is down. */
 export const noticeListOptions = () =>
   queryOptions({
     queryKey: noticeKeys.list(),
     queryFn: ({ signal }) => api<NoticeList>('/notices?limit=30', { signal }),
-    refetchInterval: 60_000,
+    refetchInterval: 5 * 60_000,
   });
 
 export function useNotices(enabled: boolean) {
