@@ -8,6 +8,8 @@ import { createLogger } from './lib/logger';
 import { SessionKeys } from './lib/session';
 import type { AppContext } from './context';
 import { createServices, stopServices } from './services';
+import { startNoticeJobs } from './modules/notices/notices.service';
+import { stopLiveEvents } from './modules/events/events.service';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL);
@@ -34,6 +36,7 @@ if (env.SEED_DEMO) {
 const services = createServices(env, logger);
 const ctx: AppContext = { env, database, logger, sessions: new SessionKeys(env.SESSION_SECRET), services };
 const app = createApp(ctx);
+const noticeJobs = startNoticeJobs(ctx, env.NOTICE_JOBS_INTERVAL_MS);
 const server = app.listen(env.PORT, env.HOST, () => {
   logger.info({ url: `http://${env.HOST}:${env.PORT}` }, 'listening');
 });
@@ -43,6 +46,9 @@ async function shutdown(signal: string) {
   if (closing) return;
   closing = true;
   logger.info({ signal }, 'shutting down');
+  noticeJobs.stop();
+  // Open event streams would hold server.close() until the clients go.
+  stopLiveEvents(ctx);
   server.close();
   server.closeIdleConnections();
   setTimeout(() => server.closeAllConnections(), 5_000).unref();

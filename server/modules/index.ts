@@ -23,6 +23,9 @@ import { tissueRouter } from './tissue/tissue.router';
 import { topSetsRouter } from './top-sets/top-sets.router';
 import { videosRouter } from './videos/videos.router';
 import { weekRouter } from './week/week.router';
+import { messagesRouter } from './messages/messages.router';
+import { noticesRouter } from './notices/notices.router';
+import { eventsRouter } from './events/events.router';
 
 export const apiModules: ((ctx: AppContext) => Router)[] = [
   authRouter,
@@ -43,6 +46,9 @@ export const apiModules: ((ctx: AppContext) => Router)[] = [
   bodyweightsRouter,
   tissueRouter,
   weekRouter,
+  messagesRouter,
+  noticesRouter,
+  eventsRouter,
   reviewRouter,
   feesRouter,
   paymentsRouter,

@@ -16,3 +16,5 @@ export * from './meet-day';
 export * from './loop';
 export * from './week';
 export * from './accessories';
+export * from './messages';
+export * from './notices';

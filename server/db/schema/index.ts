@@ -9,3 +9,4 @@ export * from './billing';
 export * from './meetday';
 export * from './week';
 export * from './requests';
+export * from './talk';

@@ -14,7 +14,14 @@ import { verifyUnsubscribeToken } from './link-tokens';
 const require = createRequire(import.meta.url);
 const fontParams = z.object({ weight: z.enum(['400', '700']) });
 
-function page(res: Response, status: number, title: string, lines: string[], action?: { label: string; url: string }) {
+/** A small page for a person who opened a link from an e-mail (used by other e-mails' links too). */
+export function page(
+  res: Response,
+  status: number,
+  title: string,
+  lines: string[],
+  action?: { label: string; url: string },
+) {
   const nonce = randomBytes(16).toString('base64');
   const C = MAIL_COLOURS;
   res.status(status);

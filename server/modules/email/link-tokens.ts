@@ -18,8 +18,9 @@ const UNSUBSCRIBE_TTL = '400d';
 
 const keyOf = (secret: string) => new TextEncoder().encode(secret);
 
-export function signUnsubscribeToken(secret: string, userId: number): Promise<string> {
-  return new SignJWT({ purpose: UNSUBSCRIBE_PURPOSE })
+/** A signed token naming its purpose and user, for links in e-mails that act without signing in. */
+export function signPurposeToken(secret: string, purpose: string, userId: number): Promise<string> {
+  return new SignJWT({ purpose })
     .setProtectedHeader({ alg: 'HS256' })
     .setSubject(String(userId))
     .setIssuedAt()
@@ -27,16 +28,25 @@ export function signUnsubscribeToken(secret: string, userId: number): Promise<st
     .sign(keyOf(secret));
 }
 
-/** The user id the token was made for, or null when it is forged, expired or made for something else. */
-export async function verifyUnsubscribeToken(secret: string, token: string): Promise<number | null> {
+/** The user id a purpose token was made for, or null when forged, expired or made for another purpose. */
+export async function verifyPurposeToken(secret: string, purpose: string, token: string): Promise<number | null> {
   try {
     const { payload } = await jwtVerify(token, keyOf(secret), { algorithms: ['HS256'] });
-    if (payload.purpose !== UNSUBSCRIBE_PURPOSE) return null;
+    if (payload.purpose !== purpose) return null;
     const userId = Number(payload.sub);
     return Number.isSafeInteger(userId) && userId > 0 ? userId : null;
   } catch {
     return null;
   }
+}
+
+export function signUnsubscribeToken(secret: string, userId: number): Promise<string> {
+  return signPurposeToken(secret, UNSUBSCRIBE_PURPOSE, userId);
+}
+
+/** The user id the token was made for, or null when it is forged, expired or made for something else. */
+export function verifyUnsubscribeToken(secret: string, token: string): Promise<number | null> {
+  return verifyPurposeToken(secret, UNSUBSCRIBE_PURPOSE, token);
 }
 
 /** An absolute link into the app. */

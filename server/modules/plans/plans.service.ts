@@ -1,5 +1,6 @@
 // Saving plan cells: checks that the athlete, slot and variant are the team's, refuses a stale version,
 // asks for a reason when the pick breaks a rule, and writes each change with its history row in one transaction.
+import { publishChange } from '../events/events.service';
 import { prepareCandidateChecks, weekRange, type CandidateChecks, type Violation } from '../../../shared/engine';
 import { buildPlanRequests, type StoredEntry } from '../../../shared/planning';
 import { inTransaction } from '../../db/transaction';
@@ -205,6 +206,10 @@ export async function saveChanges(
         history.push(historyRow(auth, c, row.id, row.variantId, w, row.version + 1));
       }
       await appendHistory(tx, history);
+      for (const athleteId of athleteIds) {
+        const weeks = changes.filter((c) => c.athleteId === athleteId).map((c) => c.week);
+        await publishChange(tx, { teamId: auth.teamId, athleteId, topic: 'plan', weeks });
+      }
       const saved = await entriesByIds(tx, auth.teamId, ids);
       const byId = new Map(saved.map((r) => [r.id, r]));
       // Every other cell of these athletes whose status the save changed, so none turns silently.

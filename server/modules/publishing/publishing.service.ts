@@ -2,6 +2,7 @@
 // rule breaks without a reason, athletes without an account, who would get an e-mail); the real run stores
 // what each athlete was sent and, in the same transaction, queues an e-mail per athlete with something new:
 // the week's picks the first time, an update naming what changed after that. Nothing changed: nothing sent.
+import { publishChange } from '../events/events.service';
 import type { PublishCheck, PublishResult, Publication } from '../../../shared/schemas';
 import type { PublishedPick } from '../../db/schema';
 import { inTransaction } from '../../db/transaction';
@@ -222,6 +223,7 @@ export async function publishWeek(
           publishedBy: auth.userId,
         });
       }
+      await publishChange(tx, { teamId: auth.teamId, athleteId: w.athleteId, topic: 'plan', weeks: [week] });
       if (mailTo.has(w.athleteId)) {
         await queueMail(ctx, tx, auth, week, w, version, slotLabel);
         emailsQueued += 1;

@@ -1,5 +1,6 @@
 // Connective-tissue work per athlete and week: generated once from the team's settings and the
 // athlete's past work and check-ins, then stored so the week never changes under the athlete's feet.
+import { noticePain } from '../notices/notices.service';
 import { inTransaction } from '../../db/transaction';
 import {
   DEFAULT_TISSUE_RULES,
@@ -252,6 +253,7 @@ export async function recordCheckin(
       note: body.note ? body.note : null,
     });
     await deletePrescriptionsAfter(tx, teamId, athleteId, current > body.week ? current : body.week);
+    await noticePain(tx, { teamId, athleteId, week: body.week, checkinId: saved.id, joints: body.painJoints });
     return toCheckinRow(saved);
   });
 }

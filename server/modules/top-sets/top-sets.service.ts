@@ -6,6 +6,7 @@ import type { LogTopSetInput, LoggedTopSet, TopSet } from '../../../shared/schem
 import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
 import { NotFoundError, ValidationError } from '../../lib/errors';
+import { noticeTopSet } from '../notices/notices.service';
 import { compareWithRecord, recordOf, topSetE1rmKg } from './records';
 import { findAthleteEntry, findTopSet, insertTopSet, variantTopSets } from './top-sets.repository';
 
@@ -58,6 +59,15 @@ export async function logTopSet(
     });
     const earlier = recordOf(await variantTopSets(tx, teamId, athleteId, variantId, { excludeId: id }));
     const topSet = (await findTopSet(tx, teamId, athleteId, id))!;
+    await noticeTopSet(tx, {
+      teamId,
+      athleteId,
+      week: entry.week,
+      topSetId: id,
+      variantName: topSet.variantName,
+      e1rmKg: topSet.e1rmKg,
+      bestE1rmKg: earlier.bestE1rm?.e1rmKg ?? null,
+    });
     return { topSet, ...compareWithRecord(topSet, earlier), previousBest: earlier.bestE1rm };
   });
 }

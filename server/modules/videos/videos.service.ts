@@ -9,6 +9,7 @@ import type { AppContext } from '../../context';
 import type { AuthContext } from '../../middleware/auth';
 import type { Queryable } from '../../db/client';
 import { AppError, NotFoundError } from '../../lib/errors';
+import { noticeVideo } from '../notices/notices.service';
 import { findTopSet, setTopSetVideo, topSetsByVideo } from '../top-sets/top-sets.repository';
 import {
   deleteVideo,
@@ -119,6 +120,7 @@ export async function attachVideo(
       });
       await setTopSetVideo(tx, teamId, topSet.id, id);
       if (replaced) await deleteVideo(tx, teamId, replaced.id);
+      await noticeVideo(tx, { teamId, athleteId, videoId: id });
       return id;
     });
   } catch (err) {

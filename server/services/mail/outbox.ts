@@ -6,7 +6,8 @@ import { outbox } from '../../db/schema';
 import { isDuplicateKey } from '../../db/errors';
 import { inTransaction } from '../../db/transaction';
 
-export type MailKind = 'invitation' | 'password_reset' | 'password_changed' | 'weekly_plan' | 'fee_receipt';
+export type MailKind =
+  'invitation' | 'password_reset' | 'password_changed' | 'weekly_plan' | 'fee_receipt' | 'notice_digest';
 
 /** Kinds whose body holds a single-use sign-in link: the body is cleared once delivered. */
 export const SECRET_KINDS: ReadonlySet<MailKind> = new Set(['invitation', 'password_reset']);

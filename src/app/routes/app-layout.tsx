@@ -6,6 +6,8 @@ import { SKIP_LINK_CLASS } from '../../components/ui/page';
 import { useMe } from '../../features/auth/api/queries';
 import { useSignOut } from '../../features/auth/api/use-sign-out';
 import { AccountMenu } from '../../features/auth/components/account-menu';
+import { NoticeMenu } from '../../features/notices/components/notice-menu';
+import { useLiveEvents } from '../live-events';
 
 const NAV: { to: string; label: string; roles: Role[] }[] = [
   { to: '/board', label: 'Board', roles: ['head_coach', 'coach'] },
@@ -35,6 +37,7 @@ function skipTo(e: MouseEvent<HTMLAnchorElement>) {
 
 export function AppLayout() {
   const { data: me } = useMe();
+  useLiveEvents(me?.role);
   const signOut = useSignOut();
   const navigation = useNavigation();
   const skipLinks = useMatches().flatMap((m) => (m.handle as PageHandle | undefined)?.skipLink ?? []);
@@ -79,6 +82,7 @@ export function AppLayout() {
             </ul>
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
+            {me.role === 'athlete' ? null : <NoticeMenu />}
             <AccountMenu me={me} />
             <button
               type="button"

@@ -21,6 +21,7 @@ import { Panel } from '../../features/roster/components/panel';
 import { RestrictionsPanel } from '../../features/roster/components/restrictions-panel';
 import { rulesOptions } from '../../features/rules/api/queries';
 import { AthleteReview } from '../../features/review/components/athlete-review';
+import { AthleteThreads } from '../../features/messages/components/athlete-threads';
 import type { LoaderMaker } from '../guards';
 
 function idOf(params: Record<string, string | undefined>): number {
@@ -129,6 +130,7 @@ export function Component() {
         <OverridesPanel key={`o${athlete.version}`} athlete={athlete} team={rules.rules} onConflict={onConflict} />
         <HistoryPanel athleteId={id} unit={me?.unit ?? 'kg'} slotLabels={slotLabels} />
       </div>
+      <AthleteThreads athleteId={id} thisWeek={weekOfDate(new Date())} slotLabels={slotLabels} />
       {/* More panels about this athlete go below, each a section of its own. */}
       <AthleteReview athleteId={id} />
     </section>

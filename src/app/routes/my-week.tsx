@@ -11,6 +11,8 @@ import { WaitingToSend } from '../../features/my-week/components/waiting-to-send
 import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
 import { WeekSessions } from '../../features/my-week/components/week-sessions';
+import { useMe } from '../../features/auth/api/queries';
+import { MessageThread } from '../../features/messages/components/message-thread';
 import { weekParam } from './my-week.loader';
 
 // Below the picks, with forms: their code (and the validation library) loads after the picks are shown.
@@ -41,6 +43,7 @@ export function Component() {
   useEffect(() => {
     if (nextWeek) void queryClient.prefetchQuery(myWeekQueryOptions(nextWeek));
   }, [queryClient, nextWeek]);
+  const { data: me } = useMe();
   if (error) return <Notice tone="error">{error.message}</Notice>;
   if (!data) return <Loading />;
   const isCurrent = !requested;
@@ -82,6 +85,14 @@ export function Component() {
         picks={data.picks}
         deload={data.deload}
       />
+      {me?.athleteId ? (
+        <MessageThread
+          athleteId={me.athleteId}
+          week={data.week}
+          side="athlete"
+          slotLabels={Object.fromEntries(data.picks.map((p) => [p.slotId, p.slotLabel]))}
+        />
+      ) : null}
       <TissueWork tissue={data.tissue} />
       <Suspense fallback={<Loading />}>
         <CheckinForm weeks={data.checkins} thisWeek={data.week} />

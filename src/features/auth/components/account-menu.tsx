@@ -1,7 +1,7 @@
 // The account menu in the top bar: who is signed in, the list of signed-in devices and signing out of
 // every device at once. A disclosure button: Escape or a click elsewhere closes it, focus returns to it.
-import { useEffect, useId, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { useDisclosure } from '../../../components/ui/disclosure';
 import type { Me, Role } from '../../../../shared/schemas';
 import { useSignOutEverywhere } from '../api/use-sign-out';
 
@@ -10,34 +10,11 @@ const ROLE_LABEL: Record<Role, string> = { head_coach: 'Head coach', coach: 'Coa
 const ITEM = 'flex min-h-11 w-full items-center rounded px-3 text-left font-semibold text-ink-900 hover:bg-chalk-200';
 
 export function AccountMenu({ me }: { me: Me }) {
-  const [open, setOpen] = useState(false);
-  const id = useId();
-  const root = useRef<HTMLDivElement>(null);
-  const button = useRef<HTMLButtonElement>(null);
+  const { open, setOpen, id, root, button, onKeyDown } = useDisclosure();
   const everywhere = useSignOutEverywhere();
 
-  useEffect(() => {
-    if (!open) return;
-    const onPointer = (e: PointerEvent) => {
-      if (!root.current?.contains(e.target as Node)) setOpen(false);
-    };
-    document.addEventListener('pointerdown', onPointer);
-    return () => document.removeEventListener('pointerdown', onPointer);
-  }, [open]);
-
-  const close = () => {
-    setOpen(false);
-    button.current?.focus();
-  };
-
   return (
-    <div
-      ref={root}
-      className="relative"
-      onKeyDown={(e) => {
-        if (e.key === 'Escape' && open) close();
-      }}
-    >
+    <div ref={root} className="relative" onKeyDown={onKeyDown}>
       <button
         ref={button}
         type="button"

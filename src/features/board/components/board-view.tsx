@@ -112,7 +112,19 @@ function useBoardModel(range: BoardRange): BoardModel {
   return model;
 }
 
-export function BoardView({ range, weekActions }: { range: BoardRange; weekActions?: ReactNode }) {
+export function BoardView({
+  range,
+  weekActions,
+  openCell,
+  cellExtras,
+}: {
+  range: BoardRange;
+  weekActions?: ReactNode;
+  /** A cell to open on arrival (a link from elsewhere names it). */
+  openCell?: CellRef | null;
+  /** More to show in a cell's details, below its own sections. */
+  cellExtras?: (cell: CellRef, label: string) => ReactNode;
+}) {
   const queryClient = useQueryClient();
   const model = useBoardModel(range);
   const modelRef = useRef(model);
@@ -475,6 +487,16 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
     requestAnimationFrame(() => goToCell(key));
   };
 
+  // A link named a cell: go there and open its details, once per cell named.
+  const openKey = openCell ? cellKey(openCell.athleteId, openCell.week, openCell.slotId) : null;
+  useEffect(() => {
+    if (!openKey) return;
+    const m = modelRef.current;
+    const c = parseCellKey(openKey);
+    if (!m.weeks.includes(c.week) || !m.athleteById.has(c.athleteId) || !m.slots.some((x) => x.id === c.slotId)) return;
+    goToCell(openKey, () => setDetails(openKey));
+  }, [openKey, goToCell]);
+
   // The page's skip link ("Skip to the board") lands on the grid itself: hand the focus on to the first
   // card still to plan, so one Tab and Enter reach it.
   const onGridFocus = (e: ReactFocusEvent<HTMLDivElement>) => {
@@ -648,6 +670,7 @@ export function BoardView({ range, weekActions }: { range: BoardRange; weekActio
           editable={!phone && detailCell.week >= model.editableFrom}
           onApply={(variantId, status, why, reason) => applyAlternative(detailCell, variantId, status, why, reason)}
           onClose={() => setDetails(null)}
+          extras={cellExtras?.(detailCell, cellLabel(model, detailCell))}
           onClear={() => {
             setDetails(null);
             if (detailEntry) {

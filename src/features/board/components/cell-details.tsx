@@ -1,5 +1,6 @@
 // A cell's pick in full: who chose it and why, the rules it breaks, what else fits the cell (one click to
 // use it), every change to the cell, and clearing it.
+import type { ReactNode } from 'react';
 import type { BoardVariant, PlanEntryDto } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
@@ -26,6 +27,7 @@ export function CellDetails({
   onApply,
   onClear,
   onClose,
+  extras,
 }: {
   model: BoardModel;
   cell: CellRef;
@@ -37,6 +39,8 @@ export function CellDetails({
   onApply: (variantId: number, status: 'clean' | 'warning' | 'break', reasons: string[], reason?: string) => void;
   onClear: () => void;
   onClose: () => void;
+  /** More sections from the page (messages about this athlete's week). */
+  extras?: ReactNode;
 }) {
   const history = useCellHistory(cell);
   const breaks = review?.status === 'break';
@@ -118,6 +122,7 @@ export function CellDetails({
           <p className="text-sm text-ink-500">No changes yet.</p>
         )}
       </section>
+      {extras ? <div className="mt-4">{extras}</div> : null}
       <div className="mt-4 flex justify-end gap-2">
         {editable && entry?.variantId != null ? (
           <Button variant="danger" onClick={onClear}>
