@@ -40,7 +40,11 @@ const schema = z.object({
   SMTP_PASSWORD: z.string().default(''),
   MAIL_FROM: z.string().default('Rackturn <no-reply@rackturn.test>'),
   /** How often coaches' notice jobs run (missed top sets, daily summaries); 0 turns them off. */
-  NOTICE_JOBS_INTERVAL_MS: z.coerce.number().int().min(0).default(5 * 60_000),
+  NOTICE_JOBS_INTERVAL_MS: z.coerce
+    .number()
+    .int()
+    .min(0)
+    .default(5 * 60_000),
   /** How often the outbox sender looks for due mail; 0 turns the loop off (sends only when asked). */
   MAIL_SEND_INTERVAL_MS: z.coerce.number().int().min(0).default(5_000),
   /** First retry delay after a failed send; it doubles on each failure up to MAIL_RETRY_MAX_MS. */
