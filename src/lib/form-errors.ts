@@ -15,3 +15,26 @@ export function applyFieldErrors<T extends FieldValues>(
   }
   return entries.length > 0;
 }
+
+/**
+ * After a save refused as stale (409 with the stored row): loads their edit into the form, so nothing of
+ * it is lost, and returns it with a message naming the fields whose changes of this user were not saved.
+ * Anything else: null.
+ */
+export function loadTheirEdit<Row, V extends object>(
+  err: unknown,
+  form: { getValues: () => object; reset: (values: V) => void },
+  valuesOf: (row: Row) => V,
+): { row: Row; message: string } | null {
+  if (!isApiError(err, 409) || !err.body?.current) return null;
+  const row = err.body.current as Row;
+  const theirs = valuesOf(row);
+  const mine = form.getValues() as Record<string, unknown>;
+  const stored = theirs as Record<string, unknown>;
+  const changed = Object.keys(mine).filter((k) => JSON.stringify(mine[k]) !== JSON.stringify(stored[k]));
+  form.reset(theirs);
+  return {
+    row,
+    message: `${err.message}${changed.length ? ` Your changes to ${changed.join(', ')} were not saved.` : ''}`,
+  };
+}

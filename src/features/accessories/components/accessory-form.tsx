@@ -16,7 +16,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
-import { applyFieldErrors } from '../../../lib/form-errors';
+import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
 import { useCreateAccessory, useUpdateAccessory } from '../api/use-save-accessory';
 
 export const STRESS_WORDS = ['0 · none', '1 · light', '2 · moderate', '3 · heavy'] as const;
@@ -73,16 +73,10 @@ export function AccessoryForm({
         : await create.mutateAsync(values);
       onDone(saved);
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        // Their edit is loaded so nothing of it is lost; the fields this user had changed are named.
-        const theirs = err.body.current as LibraryAccessory;
-        const mine = form.getValues();
-        const changed = (Object.keys(mine) as (keyof AccessoryBody)[]).filter(
-          (k) => JSON.stringify(mine[k]) !== JSON.stringify(valuesOf(theirs)[k]),
-        );
-        setCurrent(theirs);
-        form.reset(valuesOf(theirs));
-        setConflict(`${err.message}${changed.length ? ` Your changes to ${changed.join(', ')} were not saved.` : ''}`);
+      const theirs = loadTheirEdit(err, form, valuesOf);
+      if (theirs) {
+        setCurrent(theirs.row);
+        setConflict(theirs.message);
         return;
       }
       applyFieldErrors(err, form.setError);

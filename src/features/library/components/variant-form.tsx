@@ -10,7 +10,7 @@ import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
-import { applyFieldErrors } from '../../../lib/form-errors';
+import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
 import { useCreateVariant, useUpdateVariant } from '../api/use-save-variant';
 import { EMPHASIS_LABEL, LIFT_LABEL, RISK_LABEL, SCHEME_LABEL, STRESS_LABEL, jointLabel } from './labels';
 
@@ -78,16 +78,10 @@ export function VariantForm({
         : await create.mutateAsync(values);
       onDone(saved);
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        // Their edit is loaded so nothing of it is lost; the fields this user had changed are named.
-        const theirs = err.body.current as LibraryVariant;
-        const mine = form.getValues();
-        const changed = (Object.keys(mine) as (keyof VariantBody)[]).filter(
-          (k) => JSON.stringify(mine[k]) !== JSON.stringify(valuesOf(theirs)[k]),
-        );
-        setCurrent(theirs);
-        form.reset(valuesOf(theirs));
-        setConflict(`${err.message}${changed.length ? ` Your changes to ${changed.join(', ')} were not saved.` : ''}`);
+      const theirs = loadTheirEdit(err, form, valuesOf);
+      if (theirs) {
+        setCurrent(theirs.row);
+        setConflict(theirs.message);
         return;
       }
       applyFieldErrors(err, form.setError, (f) => (f.startsWith('equipment.') ? 'equipment' : f));
