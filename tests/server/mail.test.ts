@@ -11,7 +11,7 @@ import {
   newLinkToken,
   signUnsubscribeToken,
   verifyUnsubscribeToken,
-} from '../../server/modules/email/link-tokens';
+} from '../../server/lib/link-tokens';
 import type { TissuePrescription } from '../../shared/engine/tissue';
 
 const SECRET = 'a-test-secret-a-test-secret-a-test-secret';

@@ -3,7 +3,7 @@ import { and, asc, desc, eq, isNull, like, or, sql, type AnyColumn, type SQL } f
 import type { Queryable } from '../../db/client';
 import { accessories } from '../../db/schema';
 import { accessorySortKeys, readSort, type AccessoryListFilters } from '../../../shared/schemas';
-import { containsPattern } from '../variants/variants.repository';
+import { containsPattern } from '../../db/patterns';
 
 export type AccessoryRow = typeof accessories.$inferSelect;
 export type AccessoryValues = Omit<

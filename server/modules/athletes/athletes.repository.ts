@@ -18,7 +18,7 @@ import {
 import { readSort } from '../../../shared/schemas';
 import type { athleteSortKeys } from '../../../shared/schemas/roster';
 import { mondayOf } from '../../../shared/engine/weeks';
-import { containsPattern } from '../variants/variants.repository';
+import { containsPattern } from '../../db/patterns';
 
 const DAY = 86_400_000;
 const isoDay = (d: Date) => d.toISOString().slice(0, 10);

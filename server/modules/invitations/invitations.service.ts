@@ -18,7 +18,7 @@ import { AppError, ConflictError, NotFoundError, ValidationError } from '../../l
 import { hashPassword, verifyPassword } from '../../lib/passwords';
 import { invitationMail } from '../../services/mail/templates';
 import { findUserByEmail } from '../auth/auth.repository';
-import { appLink, hashLinkToken, newLinkToken } from '../email/link-tokens';
+import { appLink, hashLinkToken, newLinkToken } from '../../lib/link-tokens';
 import * as repo from './invitations.repository';
 import type { InvitationRow } from './invitations.repository';
 

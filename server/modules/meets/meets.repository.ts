@@ -4,7 +4,7 @@ import type { Queryable } from '../../db/client';
 import { athletes, meetEntries, meets, topSets, variants } from '../../db/schema';
 import { readSort } from '../../../shared/schemas';
 import type { meetSortKeys } from '../../../shared/schemas/meets';
-import { containsPattern } from '../variants/variants.repository';
+import { containsPattern } from '../../db/patterns';
 
 export type MeetRow = typeof meets.$inferSelect;
 export type MeetValues = Partial<

@@ -1,7 +1,7 @@
 // The daily e-mail summary of a coach's unread notices, and the signed link that turns it off.
 import { renderMail } from '../../services/mail/layout';
 import type { RenderedMail } from '../../services/mail/templates';
-import { signPurposeToken, verifyPurposeToken } from '../email/link-tokens';
+import { signPurposeToken, verifyPurposeToken } from '../../lib/link-tokens';
 
 /** Only summary unsubscribe tokens carry this; the weekly-plan tokens and sessions are refused. */
 const PURPOSE = 'notice-digest-unsubscribe';

@@ -5,7 +5,7 @@ import { idParams, noticeListQuery, noticeSettingsBody, unsubscribeQuery } from 
 import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { page } from '../email/email.router';
+import { linkPage } from '../../services/mail/link-page';
 import { verifyDigestToken } from './digest';
 import { noticesFor, readAllNotices, readNotice, setDailyEmail, settingsOf } from './notices.service';
 
@@ -46,9 +46,9 @@ export function noticesRouter(ctx: AppContext): Router {
 
   const off = validate({ query: unsubscribeQuery }, async ({ query }, _req, res) => {
     const userId = await verifyDigestToken(ctx.env.SESSION_SECRET, query.token);
-    if (!userId) return page(res, 400, 'Link not valid', INVALID);
+    if (!userId) return linkPage(res, 400, 'Link not valid', INVALID);
     await setDailyEmail(ctx, userId, false);
-    page(res, 200, 'Daily summaries are off', [
+    linkPage(res, 200, 'Daily summaries are off', [
       'You will no longer get the daily e-mail summary of notices. They still appear under Notices in the app, where you can turn the summary back on.',
     ]);
   });

@@ -6,7 +6,7 @@ import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
 import { inTransaction } from '../../db/transaction';
 import { NotFoundError } from '../../lib/errors';
-import { appLink } from '../email/link-tokens';
+import { appLink } from '../../lib/link-tokens';
 import { publishChange } from '../events/events.service';
 import { noticeDigestMail, signDigestToken } from './digest';
 import {

@@ -8,7 +8,7 @@ import { hashPassword } from '../../lib/passwords';
 import { passwordChangedMail, passwordResetMail } from '../../services/mail/templates';
 import { findDefaultMembership, findUserByEmail } from '../auth/auth.repository';
 import { endUserSessions } from '../auth/sessions.service';
-import { appLink, hashLinkToken, newLinkToken } from '../email/link-tokens';
+import { appLink, hashLinkToken, newLinkToken } from '../../lib/link-tokens';
 import * as repo from './password-reset.repository';
 
 export const RESET_TTL_MS = 60 * 60 * 1000;

@@ -11,7 +11,7 @@ import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
 import type { AuthContext } from '../../middleware/auth';
 import { weeklyPlanMail, type WeeklyPick } from '../../services/mail/templates';
-import { appLink, signUnsubscribeToken } from '../email/link-tokens';
+import { appLink, signUnsubscribeToken } from '../../lib/link-tokens';
 import { today, weekForPublishing } from '../plans/review.service';
 import { tissueWorkFor } from '../tissue/tissue.service';
 import * as repo from './publishing.repository';

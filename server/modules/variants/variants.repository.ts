@@ -1,6 +1,7 @@
 // SQL for the team's exercise library. Every function takes the caller's teamId.
 import { and, asc, desc, eq, inArray, isNull, like, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
+import { containsPattern } from '../../db/patterns';
 import { variants } from '../../db/schema';
 import { readSort, type VariantListFilters, type VariantSortKey } from '../../../shared/schemas';
 
@@ -41,11 +42,6 @@ const toRow = (r: Omit<VariantRow, 'inHistory'> & { inHistory: number | string |
   ...r,
   inHistory: Number(r.inHistory) > 0,
 });
-
-/** LIKE with the user's text taken literally. */
-export function containsPattern(text: string): string {
-  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-}
 
 const SORT_COLUMNS: Record<VariantSortKey, SQL | AnyColumn> = {
   name: variants.name,
