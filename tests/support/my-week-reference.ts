@@ -11,8 +11,9 @@ import { recentCheckins, readRulesOfTeam, tissueWorkFor } from '../../server/mod
 import { findNextMeet, findPrescription } from '../../server/modules/tissue/tissue.repository';
 import { topSetsOfWeek } from '../../server/modules/top-sets/top-sets.repository';
 import { variantSummary } from '../../server/modules/top-sets/top-sets.service';
-import { findTeamAthlete } from '../../server/modules/my-week/athlete.repository';
-import { isWeekPublished, weekPicks } from '../../server/modules/my-week/my-week.repository';
+import { findTeamAthlete } from '../../server/modules/athletes/athletes.service';
+import { isWeekPublished } from '../../server/modules/my-week/my-week.repository';
+import { weekPicks } from '../../server/modules/plans/plans.repository';
 import { getAthleteWeek } from '../../server/modules/week/week.service';
 import { sessionLogs } from '../../server/db/schema';
 import { and, eq } from 'drizzle-orm';

@@ -321,3 +321,6 @@ export async function unmarkRestWeek(ctx: AppContext, teamId: number, athleteId:
   mustBePlannable(week);
   if (!(await repo.deleteRestWeek(db, teamId, athleteId, week))) throw new NotFoundError('That rest week');
 }
+
+// Offered to other modules (meets, tissue, review, athlete scoping): the same reads, through this service.
+export { findAthlete, findTeamAthlete, latestBodyweights } from './athletes.repository';

@@ -31,3 +31,6 @@ export async function signIn(ctx: AppContext, email: string, password: string, c
   );
   return { token, userId: user.id, teamId: membership.teamId };
 }
+
+// Offered to invitations and password resets: finding an account, through this module's service.
+export { findDefaultMembership, findUserByEmail } from './auth.repository';

@@ -4,7 +4,7 @@ import { boardQuery } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { today } from '../plans/plans.context';
+import { today } from '../plans/plans.service';
 import { loadBoard } from './board.service';
 
 export function boardRouter(ctx: AppContext): Router {

@@ -3,9 +3,7 @@
 import { weekRange } from '../../../shared/engine';
 import type { BoardData, BoardQuery } from '../../../shared/schemas';
 import type { Db } from '../../db/client';
-import { loadPlanning, today } from '../plans/plans.context';
-import { entryDtos } from '../plans/plans.dto';
-import { entriesOfAthletes } from '../plans/plans.repository';
+import { entriesOfAthletes, entryDtos, loadPlanning, today } from '../plans/plans.service';
 
 export async function loadBoard(db: Db, teamId: number, q: BoardQuery): Promise<BoardData> {
   const t = today();

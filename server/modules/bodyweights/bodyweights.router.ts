@@ -7,7 +7,7 @@ import { ANY_ROLE, ATHLETE, authOf, requireRole } from '../../middleware/auth';
 import { idempotent } from '../../middleware/idempotency';
 import { ValidationError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
-import { athleteInScope, ownAthleteId } from '../my-week/whose';
+import { athleteInScope, ownAthleteId } from '../../lib/scope';
 import { listBodyweights, upsertBodyweight } from './bodyweights.repository';
 
 /** A reading may be dated up to a day ahead of the server's clock (time zones), never further. */

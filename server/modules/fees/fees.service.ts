@@ -169,3 +169,6 @@ export async function deletePlan(db: Queryable, teamId: number, id: number, vers
   if (now.inUse) throw planInUse(now);
   await staleWrite(db, teamId, id);
 }
+
+// Offered to payments and webhooks: the same reads and writes, through this module's service.
+export { findAthleteFee, findPlan, setPlanProviderIds, teamCurrency } from './fees.repository';

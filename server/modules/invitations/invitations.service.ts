@@ -17,7 +17,7 @@ import { isDuplicateKey } from '../../db/errors';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { hashPassword, verifyPassword } from '../../lib/passwords';
 import { invitationMail } from '../../services/mail/templates';
-import { findUserByEmail } from '../auth/auth.repository';
+import { findUserByEmail } from '../auth/auth.service';
 import { appLink, hashLinkToken, newLinkToken } from '../../lib/link-tokens';
 import * as repo from './invitations.repository';
 import type { InvitationRow } from './invitations.repository';

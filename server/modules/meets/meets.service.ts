@@ -24,8 +24,7 @@ import type {
 import type { Queryable } from '../../db/client';
 import type { AppContext } from '../../context';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { findAthlete, latestBodyweights } from '../athletes/athletes.repository';
-import { todayIso } from '../athletes/athletes.service';
+import { findAthlete, latestBodyweights, todayIso } from '../athletes/athletes.service';
 import { isDuplicateKey } from '../../db/errors';
 import * as repo from './meets.repository';
 

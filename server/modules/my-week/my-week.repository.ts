@@ -1,6 +1,6 @@
-// SQL for the athlete's week: the max-effort picks on the board for that week, with their variants
-// (the connective-tissue work reads their joint stress from here too).
-import { and, asc, eq, getTableColumns, getTableName, isNotNull } from 'drizzle-orm';
+// SQL for the athlete's week: whether the coach has published it, and the fingerprint of every row the
+// answer reads (for the answer cache). The week's picks come from the plans module.
+import { and, eq, getTableColumns, getTableName } from 'drizzle-orm';
 import type { MySqlTable } from 'drizzle-orm/mysql-core';
 import type { Pool, RowDataPacket } from 'mysql2/promise';
 import type { Queryable } from '../../db/client';
@@ -20,36 +20,6 @@ import {
   users,
   variants,
 } from '../../db/schema';
-
-export async function weekPicks(db: Queryable, teamId: number, athleteId: number, week: string) {
-  return db
-    .select({
-      planEntryId: planEntries.id,
-      slotId: planEntries.slotId,
-      variant: {
-        id: variants.id,
-        name: variants.name,
-        lift: variants.lift,
-        family: variants.family,
-        bar: variants.bar,
-        specificity: variants.specificity,
-        scheme: variants.scheme,
-        notes: variants.notes,
-        stress: variants.stress,
-      },
-    })
-    .from(planEntries)
-    .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
-    .where(
-      and(
-        eq(planEntries.teamId, teamId),
-        eq(planEntries.athleteId, athleteId),
-        eq(planEntries.week, week),
-        isNotNull(planEntries.variantId),
-      ),
-    )
-    .orderBy(asc(planEntries.slotId));
-}
 
 /** Whether the coach has published this athlete's week (without it the week is a draft). */
 export async function isWeekPublished(db: Queryable, teamId: number, athleteId: number, week: string) {

@@ -8,7 +8,7 @@ import { validate } from '../../middleware/validate';
 import { historyOf } from '../top-sets/history.service';
 import { athleteVideos } from '../videos/videos.service';
 import { myWeekJson } from './my-week.service';
-import { ownAthleteId } from './whose';
+import { ownAthleteId } from '../../lib/scope';
 
 export function myWeekRouter(ctx: AppContext): Router {
   const router = Router();

@@ -6,15 +6,21 @@ import { addWeeks, mondayOf, weekOfDate, weeksBetween } from '../../../shared/en
 import { SCHEME_REPS, type MyWeek, type MyWeekCheckin, type MyWeekPick } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { NotFoundError } from '../../lib/errors';
-import { allBodyweights } from '../bodyweights/bodyweights.repository';
-import { daysUntil, gainCaution, sevenDayChange } from '../bodyweights/caution';
-import { rulesFromText, tissueWorkFrom, toCheckinRow } from '../tissue/tissue.service';
-import { findTeamRulesText, listCheckins, listPrescriptionsThrough, meetsFrom } from '../tissue/tissue.repository';
-import { recordOf } from '../top-sets/records';
-import { topSetsAroundWeek } from '../top-sets/top-sets.repository';
-import { findTeamAthlete } from './athlete.repository';
+import { allBodyweights, daysUntil, gainCaution, sevenDayChange } from '../bodyweights/bodyweights.service';
+import {
+  findTeamRulesText,
+  listCheckins,
+  listPrescriptionsThrough,
+  meetsFrom,
+  rulesFromText,
+  tissueWorkFrom,
+  toCheckinRow,
+} from '../tissue/tissue.service';
+import { recordOf, topSetsAroundWeek } from '../top-sets/top-sets.service';
+import { findTeamAthlete } from '../athletes/athletes.service';
 import { keptAnswer } from './answer-cache';
-import { isWeekPublished, weekFingerprint, weekPicks } from './my-week.repository';
+import { isWeekPublished, weekFingerprint } from './my-week.repository';
+import { weekPicks } from '../plans/plans.service';
 import { myWeekSessions, openingFor, weekInputs } from '../week/week.service';
 
 const DAY_MS = 86_400_000;

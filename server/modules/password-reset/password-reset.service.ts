@@ -6,7 +6,7 @@ import type { AppContext } from '../../context';
 import { AppError } from '../../lib/errors';
 import { hashPassword } from '../../lib/passwords';
 import { passwordChangedMail, passwordResetMail } from '../../services/mail/templates';
-import { findDefaultMembership, findUserByEmail } from '../auth/auth.repository';
+import { findDefaultMembership, findUserByEmail } from '../auth/auth.service';
 import { endUserSessions } from '../auth/sessions.service';
 import { appLink, hashLinkToken, newLinkToken } from '../../lib/link-tokens';
 import * as repo from './password-reset.repository';

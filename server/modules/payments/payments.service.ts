@@ -5,8 +5,7 @@ import { inTransaction } from '../../db/transaction';
 import type { AthleteFee, CheckoutStart } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { AppError, NotFoundError, ValidationError } from '../../lib/errors';
-import { findAthleteFee, findPlan, setPlanProviderIds, teamCurrency } from '../fees/fees.repository';
-import { toAthleteFee } from '../fees/fees.service';
+import { findAthleteFee, findPlan, setPlanProviderIds, teamCurrency, toAthleteFee } from '../fees/fees.service';
 import * as repo from './payments.repository';
 
 /** Where the provider sends the payer back: the athlete's own page, or the head coach's Fees page. */
@@ -117,3 +116,6 @@ export async function cancelFee(ctx: AppContext, teamId: number, athleteId: numb
   });
   return athleteFee(ctx, teamId, athleteId);
 }
+
+// Offered to webhooks: the billing row a provider event changes, through this module's service.
+export { lockBillingByCustomer, updateBilling, type BillingChange, type BillingRow } from './payments.repository';

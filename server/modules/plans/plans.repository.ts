@@ -1,6 +1,6 @@
 // SQL for plan entries, their history, and what planning reads: athletes, library, rules, restrictions, meets.
 // Every function takes the caller's teamId and filters by it.
-import { and, asc, count, desc, eq, gte, inArray, isNull, lte, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/mysql-core';
 import type { Queryable } from '../../db/client';
 import {
@@ -240,4 +240,35 @@ export async function cellHistory(db: Queryable, teamId: number, cell: PlanCell,
     db.select({ n: count() }).from(planEntryHistory).where(where),
   ]);
   return { rows, total: Number(total?.n ?? 0) };
+}
+
+/** One athlete's max-effort picks on the board for a week, with their variants, in slot order. */
+export async function weekPicks(db: Queryable, teamId: number, athleteId: number, week: string) {
+  return db
+    .select({
+      planEntryId: planEntries.id,
+      slotId: planEntries.slotId,
+      variant: {
+        id: variants.id,
+        name: variants.name,
+        lift: variants.lift,
+        family: variants.family,
+        bar: variants.bar,
+        specificity: variants.specificity,
+        scheme: variants.scheme,
+        notes: variants.notes,
+        stress: variants.stress,
+      },
+    })
+    .from(planEntries)
+    .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
+    .where(
+      and(
+        eq(planEntries.teamId, teamId),
+        eq(planEntries.athleteId, athleteId),
+        eq(planEntries.week, week),
+        isNotNull(planEntries.variantId),
+      ),
+    )
+    .orderBy(asc(planEntries.slotId));
 }

@@ -329,3 +329,9 @@ export async function planHistory(
     })),
   };
 }
+
+// Offered to other modules: the board's planning facts and entries, and one athlete's picks of a week
+// (My week and the connective-tissue work), through this module's service.
+export { loadPlanning, today } from './plans.context';
+export { entryDtos } from './plans.dto';
+export { entriesOfAthletes, weekPicks } from './plans.repository';

@@ -7,7 +7,7 @@ import type { AppContext } from '../../context';
 import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { NotFoundError } from '../../lib/errors';
-import { findTeamAthlete } from '../my-week/athlete.repository';
+import { findTeamAthlete } from '../athletes/athletes.service';
 import { recentCheckins, tissueSuggestionsFor } from '../tissue/tissue.service';
 import { historyOf } from '../top-sets/history.service';
 import { athleteVideos } from '../videos/videos.service';

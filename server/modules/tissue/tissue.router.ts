@@ -5,7 +5,7 @@ import type { AppContext } from '../../context';
 import { ATHLETE, authOf, requireRole } from '../../middleware/auth';
 import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
-import { ownAthleteId } from '../my-week/whose';
+import { ownAthleteId } from '../../lib/scope';
 import { recordCheckin } from './tissue.service';
 
 export function tissueRouter(ctx: AppContext): Router {

@@ -17,7 +17,7 @@ import { readTeamRules, type TeamRules, type TissueCheckinRow, type TissueWorkWe
 import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
 import { NotFoundError, ValidationError } from '../../lib/errors';
-import { findTeamAthlete } from '../my-week/athlete.repository';
+import { findTeamAthlete } from '../athletes/athletes.service';
 import {
   deletePrescriptionsAfter,
   findNextMeet,
@@ -28,7 +28,7 @@ import {
   listCheckins,
   listPrescriptionsBefore,
 } from './tissue.repository';
-import { weekPicks } from '../my-week/my-week.repository';
+import { weekPicks } from '../plans/plans.service';
 
 type DbOrCtx = Queryable | Pick<AppContext, 'database'>;
 
@@ -257,3 +257,6 @@ export async function recordCheckin(
     return toCheckinRow(saved);
   });
 }
+
+// Offered to My week: the same reads it makes once per page, through this module's service.
+export { findTeamRulesText, listCheckins, listPrescriptionsThrough, meetsFrom } from './tissue.repository';

@@ -1,7 +1,7 @@
 // An athlete's history: records per variant, e1RM series per competition lift and the bodyweight series.
 import type { E1rmPoint, Series, TopSet, VariantHistory } from '../../../shared/schemas';
 import type { Queryable } from '../../db/client';
-import { allBodyweights } from '../bodyweights/bodyweights.repository';
+import { allBodyweights } from '../bodyweights/bodyweights.service';
 import { recordOf } from './records';
 import { allTopSets } from './top-sets.repository';
 

@@ -5,7 +5,7 @@ import type { AppContext } from '../../context';
 import { ANY_ROLE, ATHLETE, authOf, requireRole } from '../../middleware/auth';
 import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
-import { athleteInScope, ownAthleteId } from '../my-week/whose';
+import { athleteInScope, ownAthleteId } from '../../lib/scope';
 import { listTopSets } from './top-sets.repository';
 import { logTopSet } from './top-sets.service';
 

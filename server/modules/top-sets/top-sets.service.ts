@@ -121,3 +121,7 @@ export async function addCompetitionResults(
   }
   return ids;
 }
+
+// Offered to My week and videos: records and the top-set rows they read or link, through this service.
+export { recordOf } from './records';
+export { findTopSet, setTopSetVideo, topSetsAroundWeek, topSetsByVideo } from './top-sets.repository';

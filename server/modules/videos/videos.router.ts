@@ -9,7 +9,7 @@ import { ANY_ROLE, ATHLETE, STAFF, authOf, requireRole } from '../../middleware/
 import { receiveFile, megabytes } from '../../middleware/upload';
 import { validate } from '../../middleware/validate';
 import { AppError, ValidationError } from '../../lib/errors';
-import { ownAthleteId } from '../my-week/whose';
+import { ownAthleteId } from '../../lib/scope';
 import { parseRange } from './range';
 import { addComment, attachVideo, describeVideos, visibleVideo } from './videos.service';
 

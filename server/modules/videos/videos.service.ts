@@ -10,7 +10,7 @@ import type { AuthContext } from '../../middleware/auth';
 import type { Queryable } from '../../db/client';
 import { AppError, NotFoundError } from '../../lib/errors';
 import { noticeVideo } from '../notices/notices.service';
-import { findTopSet, setTopSetVideo, topSetsByVideo } from '../top-sets/top-sets.repository';
+import { findTopSet, setTopSetVideo, topSetsByVideo } from '../top-sets/top-sets.service';
 import {
   deleteVideo,
   findVideo,

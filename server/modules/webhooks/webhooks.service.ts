@@ -5,13 +5,13 @@ import { inTransaction } from '../../db/transaction';
 import type Stripe from 'stripe';
 import type { AppContext } from '../../context';
 import type { Tx } from '../../db/client';
-import { findPlan } from '../fees/fees.repository';
+import { findPlan } from '../fees/fees.service';
 import {
   lockBillingByCustomer,
   updateBilling,
   type BillingChange,
   type BillingRow,
-} from '../payments/payments.repository';
+} from '../payments/payments.service';
 import {
   checkoutSessionObject,
   invoiceObject,

@@ -7,7 +7,7 @@ import type { AppContext } from '../../context';
 import { ATHLETE, STAFF, authOf, requireRole } from '../../middleware/auth';
 import { idempotent } from '../../middleware/idempotency';
 import { validate } from '../../middleware/validate';
-import { ownAthleteId } from '../my-week/whose';
+import { ownAthleteId } from '../../lib/scope';
 import { suggestAccessories } from './accessory-rotation.service';
 import * as service from './week.service';
 

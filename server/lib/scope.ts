@@ -1,9 +1,9 @@
 // Whose rows a request may read: an athlete only their own; coaches any athlete of their team.
 import type { Request } from 'express';
-import type { Queryable } from '../../db/client';
-import { authOf } from '../../middleware/auth';
-import { NotFoundError, ValidationError } from '../../lib/errors';
-import { findTeamAthlete } from './athlete.repository';
+import type { Queryable } from '../db/client';
+import { authOf } from '../middleware/auth';
+import { findTeamAthlete } from '../modules/athletes/athletes.service';
+import { NotFoundError, ValidationError } from './errors';
 
 /** The caller's own roster entry (athletes). */
 export function ownAthleteId(req: Request): number {
