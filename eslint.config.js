@@ -65,4 +65,45 @@ export default defineConfig(
       ],
     },
   },
+  // Doors between server modules: a module offers the rest of the server only its services (*.service.ts).
+  // Another module's repository (its SQL), router and private files (scoping, DTO mapping, CSV, caches…)
+  // stay inside it; routers are mounted from server/modules/index.ts alone. This block repeats the
+  // server's src/ rule because a later no-restricted-imports replaces an earlier one.
+  {
+    files: ['server/modules/*/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['**/src/**', '**/src'], message: 'The server never imports client code.' },
+            {
+              regex: '^\\.\\./(?!\\.\\./)[^/]+/(?![^/]+\\.service$)',
+              message:
+                'Another module is reached only through its *.service.ts (not its repository, router or private files).',
+            },
+            {
+              regex: '(^|/)modules/[^/]+/(?![^/]+\\.service$)',
+              message:
+                'Another module is reached only through its *.service.ts (not its repository, router or private files).',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['server/modules/index.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['**/src/**', '**/src'], message: 'The server never imports client code.' },
+            { regex: '^\\./[^/]+/(?![^/]+\\.router$)', message: 'The module index mounts routers only.' },
+          ],
+        },
+      ],
+    },
+  },
 );
