@@ -5,7 +5,8 @@ import nodemailer, { type Transporter } from 'nodemailer';
 import type { Env } from '../config/env';
 import { createDatabase, type Database, type Queryable } from '../db/client';
 import type { Logger } from '../lib/logger';
-import { claimDue, markFailed, markSent, queueMail, retryDelayMs, type OutgoingMail } from './mail/outbox';
+import { retryDelayMs, type OutgoingMail } from './mail/outbox';
+import { claimDue, markFailed, markSent, queueMail } from './mail/outbox.repository';
 
 export type { MailKind, OutgoingMail } from './mail/outbox';
 

@@ -8,7 +8,7 @@ import { and, isNull, like, sql } from 'drizzle-orm';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
 import type { Database } from '../../server/db/client';
 import { outbox } from '../../server/db/schema';
-import { queueMail } from '../../server/services/mail/outbox';
+import { queueMail } from '../../server/services/mail/outbox.repository';
 import { inboxClient } from '../../server/standins/smtp';
 import { replicationStatus, rootSql, startCluster, type Cluster } from '../../scripts/cluster-lib.mjs';
 import { TEST_PASSWORD } from './app';
