@@ -7,6 +7,7 @@ import { attemptKgSchema, weightClassSchema, type AttemptPlan } from './meets';
 import { divisionSchema, sexSchema } from './roster';
 
 export const meetLiftSchema = z.enum(['squat', 'bench', 'deadlift']);
+export const attemptResultSchema = z.enum(['good', 'missed'], { message: 'Mark the attempt good or missed' });
 
 export const meetDayParams = z.object({ id: idParam });
 export const meetDayEntryParams = z.object({ id: idParam, entryId: idParam });
@@ -27,7 +28,7 @@ export const markBody = z.object({
   attemptNo: z.number().int().min(1, 'Attempts are 1 to 3').max(3, 'Attempts are 1 to 3'),
   weightKg: attemptKgSchema,
   record: z.boolean().default(false),
-  result: z.enum(['good', 'missed'], { message: 'Mark the attempt good or missed' }),
+  result: attemptResultSchema,
 });
 export type MarkBody = z.input<typeof markBody>;
 

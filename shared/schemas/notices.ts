@@ -1,7 +1,8 @@
 // Notices for coaches: what athletes did that a coach should look at, and the daily e-mail summary.
 import { z } from 'zod';
 
-export type NoticeKind = 'pain' | 'top_set_low' | 'top_set_missed' | 'video' | 'message';
+export const NOTICE_KINDS = ['pain', 'top_set_low', 'top_set_missed', 'video', 'message'] as const;
+export type NoticeKind = (typeof NOTICE_KINDS)[number];
 
 export interface Notice {
   id: number;

@@ -11,14 +11,13 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt } from './columns';
-
-export const roles = ['head_coach', 'coach', 'athlete'] as const;
+import { roleSchema, unitSchema } from '../../../shared/schemas/common';
+import { createdAt, enumValues, id, ref, updatedAt } from './columns';
 
 export const teams = mysqlTable('teams', {
   id: id(),
   name: varchar('name', { length: 120 }).notNull(),
-  unit: mysqlEnum('unit', ['kg', 'lb']).notNull().default('kg'),
+  unit: mysqlEnum('unit', enumValues(unitSchema.options)).notNull().default('kg'),
   currency: char('currency', { length: 3 }).notNull().default('EUR'),
   createdAt: createdAt(),
 });
@@ -36,7 +35,7 @@ export const users = mysqlTable(
     email: varchar('email', { length: 254 }).notNull(),
     name: varchar('name', { length: 120 }).notNull(),
     passwordHash: varchar('password_hash', { length: 100 }).notNull(),
-    unit: mysqlEnum('unit', ['kg', 'lb']).notNull().default('kg'),
+    unit: mysqlEnum('unit', enumValues(unitSchema.options)).notNull().default('kg'),
     weeklyEmail: boolean('weekly_email').notNull().default(true),
     passwordChangedAt: datetime('password_changed_at', { mode: 'date', fsp: 3 }),
     createdAt: createdAt(),
@@ -53,7 +52,7 @@ export const memberships = mysqlTable(
     userId: ref('user_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    role: mysqlEnum('role', roles).notNull(),
+    role: mysqlEnum('role', enumValues(roleSchema.options)).notNull(),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('memberships_team_user_uq').on(t.teamId, t.userId), index('memberships_user_idx').on(t.userId)],
@@ -65,7 +64,7 @@ export const invitations = mysqlTable(
     id: id(),
     teamId: teamRef(),
     email: varchar('email', { length: 254 }).notNull(),
-    role: mysqlEnum('role', roles).notNull(),
+    role: mysqlEnum('role', enumValues(roleSchema.options)).notNull(),
     athleteId: ref('athlete_id'),
     tokenHash: char('token_hash', { length: 64 }).notNull(),
     expiresAt: datetime('expires_at', { mode: 'date', fsp: 3 }).notNull(),
@@ -118,7 +117,7 @@ export const sessions = mysqlTable(
       .references(() => users.id, { onDelete: 'cascade' }),
     teamId: teamRef(),
     /** The role the session was granted; a different role in the membership ends the session. */
-    role: mysqlEnum('role', roles).notNull(),
+    role: mysqlEnum('role', enumValues(roleSchema.options)).notNull(),
     userAgent: varchar('user_agent', { length: 255 }),
     createdAt: createdAt(),
     lastSeenAt: datetime('last_seen_at', { mode: 'date', fsp: 3 }).notNull(),

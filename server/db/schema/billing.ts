@@ -1,6 +1,7 @@
 // Coaching fees: the team's monthly plans, each athlete's subscription state, and webhook events seen.
 import { char, datetime, index, int, mysqlEnum, mysqlTable, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt, version } from './columns';
+import { paymentStatusSchema } from '../../../shared/schemas/fees';
+import { createdAt, enumValues, id, ref, updatedAt, version } from './columns';
 import { teamRef } from './auth';
 import { athletes } from './roster';
 
@@ -23,8 +24,6 @@ export const feePlans = mysqlTable(
   (t) => [index('fee_plans_team_idx').on(t.teamId)],
 );
 
-export const paymentStatuses = ['none', 'pending', 'active', 'past_due', 'cancelled'] as const;
-
 export const athleteBilling = mysqlTable(
   'athlete_billing',
   {
@@ -35,7 +34,7 @@ export const athleteBilling = mysqlTable(
     feePlanId: ref('fee_plan_id').references(() => feePlans.id, { onDelete: 'set null' }),
     providerCustomerId: varchar('provider_customer_id', { length: 120 }),
     providerSubscriptionId: varchar('provider_subscription_id', { length: 120 }),
-    status: mysqlEnum('status', paymentStatuses).notNull().default('none'),
+    status: mysqlEnum('status', enumValues(paymentStatusSchema.options)).notNull().default('none'),
     currentPeriodEnd: datetime('current_period_end', { mode: 'date', fsp: 3 }),
     lastPaymentAt: datetime('last_payment_at', { mode: 'date', fsp: 3 }),
     version: version(),

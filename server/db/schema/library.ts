@@ -11,7 +11,10 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, updatedAt, version } from './columns';
+import { emphasisSchema } from '../../../shared/schemas/library';
+import { liftSchema } from '../../../shared/schemas/rules';
+import { schemeSchema } from '../../../shared/schemas/training';
+import { createdAt, enumValues, id, updatedAt, version } from './columns';
 import { teamRef } from './auth';
 
 export type StressMap = Partial<Record<'shoulder' | 'elbow' | 'wrist' | 'lowerBack' | 'hip' | 'knee', number>>;
@@ -22,15 +25,15 @@ export const variants = mysqlTable(
     id: id(),
     teamId: teamRef(),
     name: varchar('name', { length: 120 }).notNull(),
-    lift: mysqlEnum('lift', ['squat', 'bench', 'deadlift']).notNull(),
+    lift: mysqlEnum('lift', enumValues(liftSchema.options)).notNull(),
     family: varchar('family', { length: 60 }).notNull(),
     bar: varchar('bar', { length: 40 }).notNull(),
     equipment: json('equipment').$type<string[]>().notNull(),
-    emphasis: mysqlEnum('emphasis', ['bottom', 'midRange', 'lockout']).notNull(),
+    emphasis: mysqlEnum('emphasis', enumValues(emphasisSchema.options)).notNull(),
     stress: json('stress').$type<StressMap>().notNull(),
     risk: tinyint('risk', { unsigned: true }).notNull(),
     specificity: decimal('specificity', { precision: 3, scale: 2, mode: 'number' }).notNull(),
-    scheme: mysqlEnum('scheme', ['single', 'triple', 'five']).notNull().default('single'),
+    scheme: mysqlEnum('scheme', enumValues(schemeSchema.options)).notNull().default('single'),
     notes: text('notes'),
     /** Only for the last N weeks before an athlete's meet (openers, meet rehearsals); null: any week. */
     meetPhaseWeeks: tinyint('meet_phase_weeks', { unsigned: true }),

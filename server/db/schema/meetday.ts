@@ -11,7 +11,8 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt, version } from './columns';
+import { attemptResultSchema, meetLiftSchema } from '../../../shared/schemas/meet-day';
+import { createdAt, enumValues, id, ref, updatedAt, version } from './columns';
 import { teamRef, users } from './auth';
 import { athletes, meetEntries, meets } from './roster';
 
@@ -26,11 +27,11 @@ export const meetAttempts = mysqlTable(
     entryId: ref('entry_id')
       .notNull()
       .references(() => meetEntries.id, { onDelete: 'cascade' }),
-    lift: mysqlEnum('lift', ['squat', 'bench', 'deadlift']).notNull(),
+    lift: mysqlEnum('lift', enumValues(meetLiftSchema.options)).notNull(),
     attemptNo: tinyint('attempt_no', { unsigned: true }).notNull(),
     weightKg: decimal('weight_kg', { precision: 6, scale: 2, mode: 'number' }).notNull(),
     record: boolean('record').notNull().default(false),
-    result: mysqlEnum('result', ['good', 'missed']).notNull(),
+    result: mysqlEnum('result', enumValues(attemptResultSchema.options)).notNull(),
     /** Chosen by the client for each mark; a replay with the same key returns the same row. */
     idempotencyKey: varchar('idempotency_key', { length: 64 }).notNull(),
     markedBy: ref('marked_by').references(() => users.id, { onDelete: 'set null' }),

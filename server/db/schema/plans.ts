@@ -13,12 +13,11 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt, version } from './columns';
+import { planSourceSchema } from '../../../shared/schemas/plans';
+import { createdAt, enumValues, id, ref, updatedAt, version } from './columns';
 import { teamRef, users } from './auth';
 import { athleteRef } from './roster';
 import { variants } from './library';
-
-export const planSources = ['engine', 'coach'] as const;
 
 export const planEntries = mysqlTable(
   'plan_entries',
@@ -29,7 +28,7 @@ export const planEntries = mysqlTable(
     week: char('week', { length: 8 }).notNull(),
     slotId: varchar('slot_id', { length: 32 }).notNull(),
     variantId: ref('variant_id').references(() => variants.id),
-    source: mysqlEnum('source', planSources).notNull(),
+    source: mysqlEnum('source', enumValues(planSourceSchema.options)).notNull(),
     pinned: boolean('pinned').notNull().default(false),
     reason: text('reason'),
     reasons: json('reasons').$type<string[]>().notNull(),
@@ -58,7 +57,7 @@ export const planEntryHistory = mysqlTable(
     slotId: varchar('slot_id', { length: 32 }).notNull(),
     oldVariantId: ref('old_variant_id'),
     newVariantId: ref('new_variant_id'),
-    source: mysqlEnum('source', planSources).notNull(),
+    source: mysqlEnum('source', enumValues(planSourceSchema.options)).notNull(),
     pinned: boolean('pinned').notNull(),
     reason: text('reason'),
     version: int('version', { unsigned: true }).notNull(),

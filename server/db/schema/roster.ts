@@ -13,10 +13,11 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt, version } from './columns';
+import { EQUIPMENT } from '../../../shared/calc/meet';
+import { jointSchema } from '../../../shared/schemas/rules';
+import { divisionSchema, sexSchema } from '../../../shared/schemas/roster';
+import { createdAt, enumValues, id, ref, updatedAt, version } from './columns';
 import { teamRef, teams, users } from './auth';
-
-export const joints = ['shoulder', 'elbow', 'wrist', 'lowerBack', 'hip', 'knee'] as const;
 
 export const athletes = mysqlTable(
   'athletes',
@@ -25,9 +26,9 @@ export const athletes = mysqlTable(
     teamId: teamRef(),
     userId: ref('user_id').references(() => users.id, { onDelete: 'set null' }),
     name: varchar('name', { length: 120 }).notNull(),
-    sex: mysqlEnum('sex', ['M', 'F']).notNull(),
+    sex: mysqlEnum('sex', enumValues(sexSchema.options)).notNull(),
     birthYear: smallint('birth_year', { unsigned: true }),
-    division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
+    division: mysqlEnum('division', enumValues(divisionSchema.options)).notNull().default('open'),
     /** The heaviest risk tier (1–3) the engine may pick for this athlete; null: no ceiling. */
     maxRisk: tinyint('max_risk', { unsigned: true }),
     equipment: json('equipment').$type<string[]>().notNull(),
@@ -54,7 +55,7 @@ export const restrictions = mysqlTable(
     teamId: teamRef(),
     athleteId: athleteRef(),
     /** A joint and its stress cap, or null when the restriction is by emphasis or family only. */
-    joint: mysqlEnum('joint', joints),
+    joint: mysqlEnum('joint', enumValues(jointSchema.options)),
     maxStress: tinyint('max_stress', { unsigned: true }),
     /** Emphases no pick may have while the restriction is in force. */
     emphasis: json('emphasis').$type<('bottom' | 'midRange' | 'lockout')[]>().notNull().default([]),
@@ -109,7 +110,7 @@ export const meets = mysqlTable(
     federation: varchar('federation', { length: 120 }),
     notes: text('notes'),
     /** Classic or equipped: picks the points coefficients on meet day. */
-    equipment: mysqlEnum('equipment', ['classic', 'equipped']).notNull().default('classic'),
+    equipment: mysqlEnum('equipment', enumValues(EQUIPMENT)).notNull().default('classic'),
     /** When the meet's results were written into the athletes' histories (once only). */
     resultsSavedAt: datetime('results_saved_at', { mode: 'date', fsp: 3 }),
     version: version(),
@@ -135,7 +136,7 @@ export const meetEntries = mysqlTable(
       .references(() => meets.id, { onDelete: 'cascade' }),
     athleteId: athleteRef(),
     weightClass: varchar('weight_class', { length: 8 }),
-    division: mysqlEnum('division', ['open', 'junior', 'subjunior']).notNull().default('open'),
+    division: mysqlEnum('division', enumValues(divisionSchema.options)).notNull().default('open'),
     attempts: json('attempts').$type<AttemptPlan>().notNull(),
     /** Bodyweight at the weigh-in, checked against the class limit. */
     weighInKg: decimal('weigh_in_kg', { precision: 5, scale: 2, mode: 'number' }),

@@ -12,7 +12,8 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt } from './columns';
+import { NOTICE_KINDS } from '../../../shared/schemas/notices';
+import { createdAt, enumValues, id, ref, updatedAt } from './columns';
 import { teamRef, users } from './auth';
 import { athleteRef, athletes } from './roster';
 
@@ -52,8 +53,6 @@ export const messageReads = mysqlTable(
   (t) => [uniqueIndex('message_reads_reader_thread_uq').on(t.userId, t.athleteId, t.week)],
 );
 
-export const noticeKinds = ['pain', 'top_set_low', 'top_set_missed', 'video', 'message'] as const;
-
 /** One notice for one coach: something an athlete did that a coach should look at. */
 export const notices = mysqlTable(
   'notices',
@@ -63,7 +62,7 @@ export const notices = mysqlTable(
     userId: ref('user_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    kind: mysqlEnum('kind', noticeKinds).notNull(),
+    kind: mysqlEnum('kind', enumValues(NOTICE_KINDS)).notNull(),
     athleteId: athleteRef(),
     week: char('week', { length: 8 }).notNull(),
     text: varchar('text', { length: 300 }).notNull(),

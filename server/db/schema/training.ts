@@ -14,7 +14,8 @@ import {
   uniqueIndex,
   varchar,
 } from 'drizzle-orm/mysql-core';
-import { createdAt, id, ref, updatedAt, version } from './columns';
+import { tissueKindSchema } from '../../../shared/schemas/training';
+import { createdAt, enumValues, id, ref, updatedAt, version } from './columns';
 import { teamRef, users } from './auth';
 import { athleteRef } from './roster';
 import { variants } from './library';
@@ -113,7 +114,7 @@ export const tissueCheckins = mysqlTable(
     teamId: teamRef(),
     athleteId: athleteRef(),
     week: char('week', { length: 8 }).notNull(),
-    kind: mysqlEnum('kind', ['highRep', 'isometric', 'loadedStretch']).notNull(),
+    kind: mysqlEnum('kind', enumValues(tissueKindSchema.options)).notNull(),
     soreness: tinyint('soreness', { unsigned: true }).notNull(),
     painJoints: json('pain_joints').$type<string[]>().notNull(),
     note: varchar('note', { length: 500 }),
