@@ -24,15 +24,8 @@ import {
   type AthleteRow,
 } from './plans.repository';
 
-const DAY_MS = 86_400_000;
-
 export function isoDay(d: Date): string {
   return d.toISOString().slice(0, 10);
-}
-
-/** The calendar days of a span of ISO weeks, Monday of the first to Sunday of the last. */
-export function daysOfWeeks(first: string, last: string): [string, string] {
-  return [isoDay(mondayOf(first)), isoDay(new Date(mondayOf(last).getTime() + 6 * DAY_MS))];
 }
 
 export interface Today {

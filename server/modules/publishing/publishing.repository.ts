@@ -9,7 +9,6 @@ import {
   memberships,
   outbox,
   planEntries,
-  teamRules,
   users,
   variants,
   weekPublications,
@@ -60,11 +59,6 @@ export async function weekPicks(db: Queryable, teamId: number, week: string, ath
     .from(planEntries)
     .innerJoin(variants, and(eq(variants.id, planEntries.variantId), eq(variants.teamId, teamId)))
     .where(and(eq(planEntries.teamId, teamId), eq(planEntries.week, week), inArray(planEntries.athleteId, athleteIds)));
-}
-
-export async function teamRulesOf(db: Queryable, teamId: number) {
-  const [row] = await db.select({ rules: teamRules.rules }).from(teamRules).where(eq(teamRules.teamId, teamId));
-  return row?.rules ?? null;
 }
 
 export const weeklyDedupePrefix = (teamId: number, week: string) => `weekly:${teamId}:${week}:`;

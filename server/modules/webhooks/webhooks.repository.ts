@@ -1,7 +1,7 @@
 // SQL for the provider events already handled (each one exactly once) and the details a receipt needs.
 import { and, eq } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
-import { athletes, feePlans, paymentEvents, teams, users } from '../../db/schema';
+import { athletes, paymentEvents, teams, users } from '../../db/schema';
 
 export async function eventSeen(db: Queryable, eventId: string): Promise<boolean> {
   const [row] = await db
@@ -24,16 +24,6 @@ export function isDuplicateKey(err: unknown): boolean {
     e = e.cause as typeof e;
   }
   return false;
-}
-
-/** A plan of the athlete's own team (metadata from the provider is trusted only that far). */
-export async function planInTeam(db: Queryable, teamId: number, planId: number) {
-  const [row] = await db
-    .select({ id: feePlans.id, name: feePlans.name })
-    .from(feePlans)
-    .where(and(eq(feePlans.teamId, teamId), eq(feePlans.id, planId)))
-    .limit(1);
-  return row ?? null;
 }
 
 export async function receiptDetails(db: Queryable, teamId: number, athleteId: number) {
