@@ -5,7 +5,8 @@ import { athleteIdParams, checkoutBody } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
 import { ATHLETE, HEAD_COACH, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { athleteFee, cancelFee, ownAthleteId, startCheckout } from './payments.service';
+import { ownAthleteId } from '../../lib/scope';
+import { athleteFee, cancelFee, startCheckout } from './payments.service';
 
 export function paymentsRouter(ctx: AppContext): Router {
   const router = Router();
@@ -15,7 +16,7 @@ export function paymentsRouter(ctx: AppContext): Router {
     requireRole(ATHLETE),
     validate({}, (_input, req) => {
       const a = authOf(req);
-      return athleteFee(ctx, a.teamId, ownAthleteId(a));
+      return athleteFee(ctx, a.teamId, ownAthleteId(req));
     }),
   );
 
@@ -24,7 +25,7 @@ export function paymentsRouter(ctx: AppContext): Router {
     requireRole(ATHLETE),
     validate({ body: checkoutBody }, ({ body }, req) => {
       const a = authOf(req);
-      return startCheckout(ctx, a.teamId, ownAthleteId(a), body.planId, 'athlete');
+      return startCheckout(ctx, a.teamId, ownAthleteId(req), body.planId, 'athlete');
     }),
   );
 
@@ -33,7 +34,7 @@ export function paymentsRouter(ctx: AppContext): Router {
     requireRole(ATHLETE),
     validate({}, (_input, req) => {
       const a = authOf(req);
-      return cancelFee(ctx, a.teamId, ownAthleteId(a));
+      return cancelFee(ctx, a.teamId, ownAthleteId(req));
     }),
   );
 

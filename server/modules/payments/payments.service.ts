@@ -17,12 +17,6 @@ export async function athleteFee(ctx: AppContext, teamId: number, athleteId: num
   return toAthleteFee(row);
 }
 
-/** The athlete behind an athlete's own session. */
-export function ownAthleteId(auth: { athleteId: number | null }): number {
-  if (auth.athleteId === null) throw new NotFoundError('A roster entry linked to your account');
-  return auth.athleteId;
-}
-
 async function priceFor(ctx: AppContext, teamId: number, planId: number) {
   const db = ctx.database.db;
   const plan = await findPlan(db, teamId, planId);
