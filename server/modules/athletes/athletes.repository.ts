@@ -19,9 +19,9 @@ import { readSort } from '../../../shared/schemas';
 import type { athleteSortKeys } from '../../../shared/schemas/roster';
 import { mondayOf } from '../../../shared/engine/weeks';
 import { containsPattern } from '../../db/patterns';
+import { isoDay } from '../../lib/days';
 
 const DAY = 86_400_000;
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
 export type AthleteRow = typeof athletes.$inferSelect & {
   accountName: string | null;

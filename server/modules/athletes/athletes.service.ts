@@ -26,9 +26,10 @@ import type { AuthContext } from '../../middleware/auth';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { isDuplicateKey } from '../../db/errors';
 import * as repo from './athletes.repository';
+import { isoDay } from '../../lib/days';
 
 /** Today as the server's calendar sees it (UTC), for "in force" and "upcoming". */
-export const todayIso = (now = new Date()) => now.toISOString().slice(0, 10);
+export const todayIso = (now = new Date()) => isoDay(now);
 
 export function toRestrictionDto(r: repo.RestrictionRow, today = todayIso()): Restriction {
   return {

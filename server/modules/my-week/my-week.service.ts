@@ -22,16 +22,13 @@ import { keptAnswer } from './answer-cache';
 import { isWeekPublished, weekFingerprint } from './my-week.repository';
 import { weekPicks } from '../plans/plans.service';
 import { myWeekSessions, openingFor, weekInputs } from '../week/week.service';
+import { isoDay } from '../../lib/days';
 
 const DAY_MS = 86_400_000;
 /** Bodyweight readings shown on the page: the last four weeks. */
 const RECENT_DAYS = 28;
 /** Check-ins the page looks through for this week's and last week's. */
 const RECENT_CHECKINS = 20;
-
-function isoDay(d: Date): string {
-  return d.toISOString().slice(0, 10);
-}
 
 /** The first day of the bodyweight readings shown. */
 const recentSince = (now: Date) => isoDay(new Date(now.getTime() - RECENT_DAYS * DAY_MS));

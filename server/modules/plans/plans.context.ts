@@ -23,10 +23,7 @@ import {
   upcomingMeets,
   type AthleteRow,
 } from './plans.repository';
-
-export function isoDay(d: Date): string {
-  return d.toISOString().slice(0, 10);
-}
+import { isoDay } from '../../lib/days';
 
 export interface Today {
   day: string;

@@ -29,6 +29,7 @@ import {
   listPrescriptionsBefore,
 } from './tissue.repository';
 import { weekPicks } from '../plans/plans.service';
+import { isoDay } from '../../lib/days';
 
 type DbOrCtx = Queryable | Pick<AppContext, 'database'>;
 
@@ -37,10 +38,6 @@ export const STORE_AHEAD_WEEKS = 1;
 
 function dbOf(source: DbOrCtx): Queryable {
   return 'database' in source ? source.database.db : source;
-}
-
-function isoDay(d: Date): string {
-  return d.toISOString().slice(0, 10);
 }
 
 /** The tissue module's rules: its defaults with the settings the team edits on top. */

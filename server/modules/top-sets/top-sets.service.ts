@@ -9,12 +9,9 @@ import { NotFoundError, ValidationError } from '../../lib/errors';
 import { noticeTopSet } from '../notices/notices.service';
 import { compareWithRecord, recordOf, topSetE1rmKg } from './records';
 import { findAthleteEntry, findTopSet, insertTopSet, variantTopSets } from './top-sets.repository';
+import { isoDay } from '../../lib/days';
 
 const DAY_MS = 86_400_000;
-
-function isoDay(d: Date): string {
-  return d.toISOString().slice(0, 10);
-}
 
 /** Today when it falls in the entry's week, else the last day of that week (a set logged late). */
 export function performedOnFor(week: string, today: Date): string {

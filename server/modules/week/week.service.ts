@@ -8,6 +8,7 @@ import {
   trainingMax,
   type OpeningRange,
 } from '../../../shared/calc';
+import { LIFTS, type Lift } from '../../../shared/engine/types';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import { deloaded, sessionWorkFor } from '../../../shared/engine/week';
 import {
@@ -35,13 +36,10 @@ import { closeLiftSetsOf } from '../meets/meets.service';
 import { readRulesOfTeam } from '../tissue/tissue.service';
 import { withLibraryAccessories } from './accessory-rotation.service';
 import * as repo from './week.repository';
+import { isoDay } from '../../lib/days';
 
-const LIFTS = ['squat', 'bench', 'deadlift'] as const;
-type Lift = (typeof LIFTS)[number];
 type WeekRow = Awaited<ReturnType<typeof repo.findAthleteWeek>>;
 type CloseSet = Awaited<ReturnType<typeof closeLiftSetsOf>>[number];
-
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
 /** The date `since` which top sets count toward a training max, for a week. */
 export function maxesSince(week: string): string {
