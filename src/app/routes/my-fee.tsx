@@ -8,7 +8,7 @@ import { useSearchParams } from 'react-router-dom';
 import { checkoutBody, formatMoney, type AthleteFee, type CheckoutBody, type FeePlan } from '../../../shared/schemas';
 import { Button } from '../../components/ui/button';
 import { Loading, Notice, PageHeader } from '../../components/ui/page';
-import { useMe } from '../../features/auth/api/queries';
+import { useMe } from '../../lib/me';
 import { isApiError } from '../../lib/api-client';
 import { myFeeOptions, planListOptions } from '../../features/fees/api/queries';
 import { useCancelFee } from '../../features/fees/api/use-cancel-fee';

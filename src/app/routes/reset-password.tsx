@@ -7,7 +7,7 @@ import { resetPasswordBody, type ResetPasswordBody } from '../../../shared/schem
 import { Button } from '../../components/ui/button';
 import { TextField } from '../../components/ui/field';
 import { Loading, Notice } from '../../components/ui/page';
-import { meQueryOptions } from '../../features/auth/api/queries';
+import { meQueryOptions } from '../../lib/me';
 import { AuthFrame } from '../../features/auth/components/auth-frame';
 import { resetLinkQueryOptions } from '../../features/password-reset/api/queries';
 import { useResetPassword } from '../../features/password-reset/api/use-reset-password';

@@ -9,7 +9,7 @@ import { TextField } from '../../components/ui/field';
 import { Notice } from '../../components/ui/page';
 import { useSignIn } from '../../features/auth/api/use-sign-in';
 import { useForgetPreviousUser } from '../../features/auth/api/use-sign-out';
-import { meQueryOptions } from '../../features/auth/api/queries';
+import { meQueryOptions } from '../../lib/me';
 import { homeFor } from '../guards';
 import { AuthFrame } from '../../features/auth/components/auth-frame';
 import { isApiError } from '../../lib/api-client';

@@ -1,5 +1,6 @@
 // Add or edit one accessory: the same zod schema as the server checks each field, and the server's own
 // field errors land on the same fields. A save that meets someone else's newer edit loads theirs.
+import { STRESS_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -19,7 +20,6 @@ import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
 import { useCreateAccessory, useUpdateAccessory } from '../api/use-save-accessory';
 
-export const STRESS_WORDS = ['0 · none', '1 · light', '2 · moderate', '3 · heavy'] as const;
 export const jointTitle = (j: Joint) => jointName(j).replace(/^./, (c) => c.toUpperCase());
 
 const blank: AccessoryBody = {
@@ -156,7 +156,7 @@ export function AccessoryForm({
               error={errors.stress?.[j]?.message}
               {...form.register(`stress.${j}`, { setValueAs: toNumber })}
             >
-              {STRESS_WORDS.map((label, n) => (
+              {STRESS_LABEL.map((label, n) => (
                 <option key={n} value={n}>
                   {label}
                 </option>

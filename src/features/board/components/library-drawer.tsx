@@ -1,5 +1,6 @@
 // The library beside the board: filter by lift, family, equipment and risk, search by name, and drag a
 // card onto a cell (with the pointer, a finger, or the keyboard).
+import { LIFT_LABEL, RISK_WORD } from '../../../../shared/labels';
 import { memo, useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { SortableContext, useSortable } from '@dnd-kit/sortable';
 import type { Joint } from '../../../../shared/engine';
@@ -8,8 +9,6 @@ import { libraryDndId } from '../model/dnd';
 import { jointWords } from '../model/words';
 
 const noSorting = () => null;
-const LIFT_WORDS = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' } as const;
-const RISK_WORDS = { 1: 'low', 2: 'medium', 3: 'high' } as const;
 
 export interface LibraryFilters {
   q: string;
@@ -70,7 +69,7 @@ const LibraryCard = memo(function LibraryCard({ variant }: { variant: BoardVaria
         {variant.name}
       </button>
       <span id={descId} className="mt-0.5 text-xs text-ink-600">
-        {LIFT_WORDS[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORDS[variant.risk]})
+        {LIFT_LABEL[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORD[variant.risk]})
         <span className="block text-ink-500">
           {stressLine(variant)}
           {variant.equipment.length ? ` · needs ${variant.equipment.join(', ')}` : ''}

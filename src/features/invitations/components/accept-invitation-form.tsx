@@ -15,7 +15,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { applyFieldErrors } from '../../../lib/form-errors';
-import { meQueryOptions } from '../../auth/api/queries';
+import { meQueryOptions } from '../../../lib/me';
 import { useAcceptInvitation } from '../api/use-accept-invitation';
 
 const ROLE_WORDS = { head_coach: 'head coach', coach: 'coach', athlete: 'athlete' } as const;

@@ -1,12 +1,12 @@
 // The library's filters: text search (applied as you type, after a short pause), lift, family,
 // equipment, risk, and whether archived variants are shown.
+import { LIFT_LABEL, RISK_LABEL } from '../../../../shared/labels';
 import { useEffect, useState } from 'react';
 import { LIFTS } from '../../../../shared/engine/types';
 import type { VariantFacets } from '../../../../shared/schemas';
 import { CheckboxField } from '../../../components/ui/choices';
 import { SelectField, TextField } from '../../../components/ui/field';
 import type { LibraryFilters } from '../api/queries';
-import { LIFT_LABEL, RISK_LABEL } from './labels';
 
 export function LibraryFiltersBar({
   filters,

@@ -1,5 +1,6 @@
 // Add or edit one variant: the same zod schema as the server checks each field, and the server's own
 // field errors land on the same fields. A save that meets someone else's newer edit loads theirs.
+import { LIFT_LABEL, RISK_LABEL, STRESS_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useController, useForm, type Control } from 'react-hook-form';
@@ -12,7 +13,7 @@ import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
 import { useCreateVariant, useUpdateVariant } from '../api/use-save-variant';
-import { EMPHASIS_LABEL, LIFT_LABEL, RISK_LABEL, SCHEME_LABEL, STRESS_LABEL, jointLabel } from './labels';
+import { EMPHASIS_LABEL, SCHEME_LABEL, jointLabel } from './labels';
 
 const blank: VariantBody = {
   name: '',

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ResetPasswordBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { authKeys } from '../../auth/api/queries';
+import { authKeys } from '../../../lib/query-keys';
 import { passwordResetKeys } from './queries';
 
 export function useResetPassword() {

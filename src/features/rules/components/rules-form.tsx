@@ -1,5 +1,6 @@
 // The head coach's rules: max-effort slots, rotation windows, joint budgets, taper steps, the bodyweight
 // caution, connective-tissue settings and the gym's equipment, each with what its value does beside it.
+import { LIFT_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useController, useFieldArray, useForm, useWatch, type Control, type UseFormReturn } from 'react-hook-form';
@@ -17,7 +18,6 @@ import { RuleRow, RuleSection } from './rule-row';
 import { SessionsSection } from './sessions-section';
 
 type Form = UseFormReturn<TeamRulesBody>;
-const LIFT_WORD = { squat: 'squat', bench: 'bench', deadlift: 'deadlift' } as const;
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const num = (v: unknown) => (v === '' || v === null || v === undefined ? Number.NaN : Number(v));
 const optionalNum = (v: unknown) => (v === '' || v === null || v === undefined ? undefined : Number(v));
@@ -116,7 +116,7 @@ function Slots({ form, savedIds }: { form: Form; savedIds: Set<string> }) {
             key={f.id}
             effect={
               lifts.length
-                ? `Every week each athlete gets one ${lifts.map((l) => LIFT_WORD[l]).join(' or ')} variant in “${slot?.label || 'this slot'}”.`
+                ? `Every week each athlete gets one ${lifts.map((l) => LIFT_LABEL[l].toLowerCase()).join(' or ')} variant in “${slot?.label || 'this slot'}”.`
                 : 'Pick at least one lift: the slot takes only variants of the lifts ticked.'
             }
           >
