@@ -127,6 +127,15 @@ export const variantListQuery = listQuery.extend({
 export type VariantListQuery = z.input<typeof variantListQuery>;
 export type VariantListFilters = z.output<typeof variantListQuery>;
 
+/** What a coach narrows the variants by, as the screens hold it (blank = any): the library page and the board's drawer. */
+export interface VariantNarrowing {
+  q: string;
+  lift: '' | z.infer<typeof liftSchema>;
+  family: string;
+  equipment: string;
+  risk: '' | '1' | '2' | '3';
+}
+
 export const libraryVariantSchema = z.object({
   id: z.number(),
   name: z.string(),

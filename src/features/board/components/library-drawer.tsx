@@ -4,24 +4,16 @@ import { LIFT_LABEL, RISK_WORD } from '../../../../shared/labels';
 import { memo, useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { SortableContext, useSortable } from '@dnd-kit/sortable';
 import type { Joint } from '../../../../shared/engine';
-import type { BoardVariant } from '../../../../shared/schemas';
+import type { BoardVariant, VariantNarrowing } from '../../../../shared/schemas';
 import { libraryDndId } from '../model/dnd';
 import { jointWords } from '../model/words';
 
 const noSorting = () => null;
 
-export interface LibraryFilters {
-  q: string;
-  lift: '' | BoardVariant['lift'];
-  family: string;
-  equipment: string;
-  risk: '' | '1' | '2' | '3';
-}
-
-export const NO_FILTERS: LibraryFilters = { q: '', lift: '', family: '', equipment: '', risk: '' };
+export const NO_FILTERS: VariantNarrowing = { q: '', lift: '', family: '', equipment: '', risk: '' };
 
 /** Variants a coach can still pick (archived ones stay out), narrowed by the filters. */
-export function filterLibrary(variants: BoardVariant[], f: LibraryFilters): BoardVariant[] {
+export function filterLibrary(variants: BoardVariant[], f: VariantNarrowing): BoardVariant[] {
   const q = f.q.trim().toLowerCase();
   return variants.filter(
     (v) =>
@@ -94,7 +86,7 @@ function Filter({ label, children }: { label: string; children: (id: string) => 
 }
 
 export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
-  const [filters, setFilters] = useState<LibraryFilters>(NO_FILTERS);
+  const [filters, setFilters] = useState<VariantNarrowing>(NO_FILTERS);
   // The cards come in the frame after the board itself is on screen.
   const [ready, setReady] = useState(false);
   useEffect(() => {
@@ -106,7 +98,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
   const live = useMemo(() => variants.filter((v) => !v.archived), [variants]);
   const families = useMemo(() => [...new Set(live.map((v) => v.family))].sort(), [live]);
   const equipment = useMemo(() => [...new Set(live.flatMap((v) => v.equipment))].sort(), [live]);
-  const set = <K extends keyof LibraryFilters>(k: K, value: LibraryFilters[K]) =>
+  const set = <K extends keyof VariantNarrowing>(k: K, value: VariantNarrowing[K]) =>
     setFilters((f) => ({ ...f, [k]: value }));
 
   return (
@@ -131,7 +123,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
               <select
                 id={id}
                 value={filters.lift}
-                onChange={(e) => set('lift', e.target.value as LibraryFilters['lift'])}
+                onChange={(e) => set('lift', e.target.value as VariantNarrowing['lift'])}
                 className={fieldClass}
               >
                 <option value="">Any</option>
@@ -146,7 +138,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
               <select
                 id={id}
                 value={filters.risk}
-                onChange={(e) => set('risk', e.target.value as LibraryFilters['risk'])}
+                onChange={(e) => set('risk', e.target.value as VariantNarrowing['risk'])}
                 className={fieldClass}
               >
                 <option value="">Any</option>
