@@ -2,16 +2,21 @@
 // plates, and the log form.
 import { LIFT_NAME } from '../../../../shared/labels';
 import { Suspense, lazy, useState } from 'react';
-import { formatWeight, fromKg, roundToLoadable, type WeightUnit } from '../../../../shared/calc';
-import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
+import { formatWeight, fromKg, roundToLoadable, suggestedTopSet, type WeightUnit } from '../../../../shared/calc';
+import type { MyWeekPick, Scheme, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
-import { SCHEME_LABEL, suggestedTopSet } from '../lib/top-set-math';
 import { WarmupRamp } from './warmup-ramp';
 
 // The forms (and the validation library they bring) load after the pick is on screen.
 const TopSetForm = lazy(() => import('./top-set-form').then((m) => ({ default: m.TopSetForm })));
 const VideoUpload = lazy(() => import('./video-upload').then((m) => ({ default: m.VideoUpload })));
+const SCHEME_LABEL: Readonly<Record<Scheme, string>> = {
+  single: 'Work up to a top single',
+  triple: 'Work up to a top triple',
+  five: 'Work up to a top five',
+};
+
 const formLoading = <p className="text-sm text-ink-600">Loading the form…</p>;
 
 function setText(s: TopSet, unit: WeightUnit): string {
