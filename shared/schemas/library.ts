@@ -221,6 +221,11 @@ export interface CsvProblem {
   message: string;
 }
 
+export const csvProblemSchema = z.object({ row: z.number().int(), field: z.string(), message: z.string() });
+
+/** A CSV import refused (422) carries the problems row by row. */
+export const csvImportErrorSchema = z.object({ rows: z.array(csvProblemSchema) });
+
 /** A valid library row: a variant and whether it is archived. */
 export interface LibraryCsvRow {
   variant: VariantValues;

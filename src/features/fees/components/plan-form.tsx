@@ -12,7 +12,7 @@ import {
 import { Button } from '../../../components/ui/button';
 import { TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { useSavePlan } from '../api/use-save-plan';
 
 const FIELDS = ['name', 'price', 'description'] as const;
@@ -26,7 +26,7 @@ export function PlanForm({ plan, currency, onDone }: { plan?: FeePlan; currency:
       : { name: '', price: '', description: '' },
   });
   const { errors, isSubmitting } = form.formState;
-  const conflict = isApiError(save.error, 409) ? (save.error.body?.current as FeePlan | undefined) : undefined;
+  const conflict = staleSaveCurrent<FeePlan>(save.error) ?? undefined;
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {

@@ -19,7 +19,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
 import { WarningIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useRemoveEntry, useUpdateEntry } from '../api/use-save-entry';
 import { dateText } from './when';
@@ -79,8 +79,9 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
       form.reset(valuesOf(saved));
       setNotice({ tone: 'success', text: 'Entry saved.' });
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        form.reset(valuesOf(err.body.current as MeetEntry));
+      const theirs = staleSaveCurrent<MeetEntry>(err);
+      if (theirs && isApiError(err)) {
+        form.reset(valuesOf(theirs));
         setNotice({ tone: 'error', text: err.message });
         return;
       }

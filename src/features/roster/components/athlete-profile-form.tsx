@@ -7,7 +7,7 @@ import { athleteBody, type Athlete, type AthleteBody } from '../../../../shared/
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { accountsOptions } from '../api/queries';
 import { useCreateAthlete, useUpdateAthlete } from '../api/use-save-athlete';
@@ -55,8 +55,9 @@ export function AthleteProfileForm({
         : await create.mutateAsync(values);
       onSaved(saved);
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current && onConflict) {
-        onConflict(err.body.current as Athlete, err.message);
+      const theirs = staleSaveCurrent<Athlete>(err);
+      if (theirs && isApiError(err) && onConflict) {
+        onConflict(theirs, err.message);
         return;
       }
       applyFieldErrors(err, form.setError);

@@ -11,7 +11,7 @@ import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useSaveRules } from '../api/use-save-rules';
 import { RuleRow, RuleSection } from './rule-row';
@@ -41,8 +41,8 @@ export function RulesForm({ doc }: { doc: TeamRulesDoc }) {
       form.reset(toValues(next));
       setNotice({ tone: 'success', text: 'The rules are saved. The board uses them from its next fill.' });
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        const theirs = err.body.current as TeamRulesDoc;
+      const theirs = staleSaveCurrent<TeamRulesDoc>(err);
+      if (theirs && isApiError(err)) {
         setSaved(theirs);
         form.reset(toValues(theirs));
         setNotice({ tone: 'error', text: err.message });
