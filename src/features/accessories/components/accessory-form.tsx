@@ -14,7 +14,7 @@ import {
   type LibraryAccessory,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
@@ -95,11 +95,7 @@ export function AccessoryForm({
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Name" autoComplete="off" error={errors.name?.message} {...form.register('name')} />
         <SelectField label="Category" error={errors.category?.message} {...form.register('category')}>
-          {ACCESSORY_CATEGORIES.map((c) => (
-            <option key={c} value={c}>
-              {ACCESSORY_CATEGORY_LABELS[c]}
-            </option>
-          ))}
+          <LabelledOptions labels={ACCESSORY_CATEGORY_LABELS} values={ACCESSORY_CATEGORIES} />
         </SelectField>
       </div>
       <fieldset className="rounded-md border border-chalk-300 p-3">

@@ -16,7 +16,7 @@ import {
   type MeetEntry,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField } from '../../../components/ui/field';
 import { WarningIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
@@ -137,11 +137,7 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
             ))}
           </SelectField>
           <SelectField label="Division" error={errors.division?.message} {...form.register('division')}>
-            {(Object.keys(DIVISION_LABEL) as (keyof typeof DIVISION_LABEL)[]).map((d) => (
-              <option key={d} value={d}>
-                {DIVISION_LABEL[d]}
-              </option>
-            ))}
+            <LabelledOptions labels={DIVISION_LABEL} />
           </SelectField>
         </div>
 
