@@ -3,7 +3,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ResetPasswordBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 import { authKeys } from '../../../lib/query-keys';
-import { passwordResetKeys } from './queries';
+import { passwordResetKeys } from './reset-link';
 
 export function useResetPassword() {
   const queryClient = useQueryClient();
