@@ -15,6 +15,13 @@ export const RISK_LABEL: Record<1 | 2 | 3, string> = {
   3: `3 · ${RISK_WORD[3]}`,
 };
 
+/** A risk ceiling, as the board's library filter offers it. */
+export const RISK_CEILING_LABEL: Record<1 | 2 | 3, string> = {
+  1: `${RISK_WORD[1].charAt(0).toUpperCase()}${RISK_WORD[1].slice(1)} only`,
+  2: `Up to ${RISK_WORD[2]}`,
+  3: `Up to ${RISK_WORD[3]}`,
+};
+
 /** Joint stress 0–3 of a variant or an accessory. */
 export const STRESS_LABEL = ['0 · none', '1 · light', '2 · moderate', '3 · heavy'] as const;
 

@@ -1,10 +1,11 @@
 // The library beside the board: filter by lift, family, equipment and risk, search by name, and drag a
 // card onto a cell (with the pointer, a finger, or the keyboard).
-import { LIFT_LABEL, RISK_WORD } from '../../../../shared/labels';
+import { LIFT_LABEL, RISK_CEILING_LABEL, RISK_WORD } from '../../../../shared/labels';
 import { memo, useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { SortableContext, useSortable } from '@dnd-kit/sortable';
 import type { Joint } from '../../../../shared/engine';
 import type { BoardVariant, VariantNarrowing } from '../../../../shared/schemas';
+import { LabelledOptions } from '../../../components/ui/field';
 import { libraryDndId } from '../model/dnd';
 import { jointWords } from '../model/words';
 
@@ -142,9 +143,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
                 className={fieldClass}
               >
                 <option value="">Any</option>
-                <option value="1">Low only</option>
-                <option value="2">Up to medium</option>
-                <option value="3">Up to high</option>
+                <LabelledOptions labels={RISK_CEILING_LABEL} />
               </select>
             )}
           </Filter>

@@ -5,9 +5,9 @@ export { restrictionText } from '../../../../shared/planning/words';
 
 /** The heaviest risk tier the planner may pick for an athlete, as the roster reads it. */
 export const MAX_RISK_LABEL = {
-  1: 'Risk 1 · low only',
+  1: `Risk 1 · ${RISK_WORD[1]} only`,
   2: `Up to risk 2 · ${RISK_WORD[2]}`,
-  3: 'Up to risk 3 · high',
+  3: `Up to risk 3 · ${RISK_WORD[3]}`,
 } as const;
 export const maxRiskText = (m: 1 | 2 | 3 | null) => (m === null ? 'No ceiling' : MAX_RISK_LABEL[m]);
 export { DIVISION_LABEL } from '../../../../shared/labels';

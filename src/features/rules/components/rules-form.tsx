@@ -1,6 +1,6 @@
 // The head coach's rules: max-effort slots, rotation windows, joint budgets, taper steps, the bodyweight
 // caution, connective-tissue settings and the gym's equipment, each with what its value does beside it.
-import { LIFT_LABEL } from '../../../../shared/labels';
+import { LIFT_LABEL, RISK_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useController, useFieldArray, useForm, useWatch, type Control, type UseFormReturn } from 'react-hook-form';
@@ -9,7 +9,7 @@ import { jointName, weeks } from '../../../../shared/engine/words';
 import { teamRulesBody, type TeamRulesBody, type TeamRulesDoc } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
-import { SelectField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
@@ -361,9 +361,7 @@ function Taper({ form }: { form: Form }) {
                 error={e?.[i]?.maxRisk?.message}
                 {...form.register(`rules.taper.${i}.maxRisk`, { setValueAs: num })}
               >
-                <option value={1}>1 · low</option>
-                <option value={2}>2 · moderate</option>
-                <option value={3}>3 · high</option>
+                <LabelledOptions labels={RISK_LABEL} />
               </SelectField>
               <TextField
                 label="Min. specificity"
