@@ -6,8 +6,48 @@ import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 import { builtinModules } from 'node:module';
+import { dirname, relative, resolve, sep } from 'node:path';
 
 const nodeOnly = [...builtinModules, ...builtinModules.map((m) => `node:${m}`)];
+
+// The door of a client feature: a file in src/features/<x>/ imports only src/components/ui, src/lib,
+// shared/, packages and src/features/<x>/ itself. Composing features is the job of src/app/.
+export function featureDoorViolation(cwd, filename, spec) {
+  if (!spec.startsWith('.')) return null;
+  const from = relative(cwd, filename).split(sep).join('/');
+  const own = /^src\/features\/([^/]+)\//.exec(from);
+  if (!own) return null;
+  const to = relative(cwd, resolve(dirname(filename), spec))
+    .split(sep)
+    .join('/');
+  const allowed = [`src/features/${own[1]}/`, 'src/components/ui/', 'src/lib/', 'shared/'];
+  return allowed.some((dir) => `${to}/`.startsWith(dir)) ? null : to;
+}
+
+const featureDoors = {
+  meta: {
+    type: 'problem',
+    schema: [],
+    messages: {
+      crossing:
+        'A feature imports only src/components/ui, src/lib, shared/ and its own folder ({{target}} is outside). ' +
+        'Share query keys through src/lib/query-keys.ts, widgets through src/components/ui, or compose in src/app/.',
+    },
+  },
+  create(context) {
+    const check = (node) => {
+      if (!node.source || typeof node.source.value !== 'string') return;
+      const target = featureDoorViolation(context.cwd, context.filename, node.source.value);
+      if (target) context.report({ node: node.source, messageId: 'crossing', data: { target } });
+    };
+    return {
+      ImportDeclaration: check,
+      ExportNamedDeclaration: check,
+      ExportAllDeclaration: check,
+      ImportExpression: check,
+    };
+  },
+};
 
 export default defineConfig(
   { ignores: ['dist/**', '.data/**', '.tmp/**', 'node_modules/**', 'drizzle/**', 'coverage/**'] },
@@ -24,10 +64,11 @@ export default defineConfig(
   },
   {
     files: ['src/**/*.{ts,tsx}'],
-    plugins: { 'react-hooks': reactHooks },
+    plugins: { 'react-hooks': reactHooks, rackturn: { rules: { 'feature-doors': featureDoors } } },
     languageOptions: { globals: globals.browser },
     rules: {
       ...reactHooks.configs.recommended.rules,
+      'rackturn/feature-doors': 'error',
       'no-restricted-imports': [
         'error',
         { patterns: [{ group: ['**/server/**', '**/server'], message: 'The client never imports server code.' }] },

@@ -1,4 +1,4 @@
-// Trade maths shared by browser and server: e1RM, units, bar loading, warm-ups, weight classes, DOTS, RPE, meet day, training loads.
+// Trade maths shared by browser and server: e1RM, units, bar loading, warm-ups, weight classes, DOTS, RPE, meet day, training loads, top sets and records.
 
 export {
   E1RM_FORMULAS,
@@ -80,3 +80,14 @@ export {
   type SpeedWeek,
   type TrainingLift,
 } from './loads';
+export {
+  beatsBest,
+  compareWithRecord,
+  heavierThan,
+  liveEstimate,
+  recordOf,
+  suggestedTopSet,
+  topSetE1rmKg,
+  type LiveEstimate,
+  type SetMark,
+} from './top-sets';

@@ -35,6 +35,18 @@ export interface ApiErrorBody {
   };
 }
 
+/** The same body as the client decodes it; extra keys (`current`, `rows`, `violations` …) pass through. */
+export const apiErrorBodySchema = z.object({
+  error: z.looseObject({
+    code: z.string(),
+    message: z.string(),
+    fields: z.record(z.string(), z.array(z.string())).optional(),
+  }),
+});
+
+/** A save refused as stale (409) carries the row as it is stored now, in the shape its read answers with. */
+export const staleSaveErrorSchema = z.object({ current: z.looseObject({}) });
+
 export interface ListResponse<T> {
   items: T[];
   total: number;

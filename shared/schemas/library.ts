@@ -127,6 +127,15 @@ export const variantListQuery = listQuery.extend({
 export type VariantListQuery = z.input<typeof variantListQuery>;
 export type VariantListFilters = z.output<typeof variantListQuery>;
 
+/** What a coach narrows the variants by, as the screens hold it (blank = any): the library page and the board's drawer. */
+export interface VariantNarrowing {
+  q: string;
+  lift: '' | z.infer<typeof liftSchema>;
+  family: string;
+  equipment: string;
+  risk: '' | '1' | '2' | '3';
+}
+
 export const libraryVariantSchema = z.object({
   id: z.number(),
   name: z.string(),
@@ -211,6 +220,11 @@ export interface CsvProblem {
   field: string;
   message: string;
 }
+
+export const csvProblemSchema = z.object({ row: z.number().int(), field: z.string(), message: z.string() });
+
+/** A CSV import refused (422) carries the problems row by row. */
+export const csvImportErrorSchema = z.object({ rows: z.array(csvProblemSchema) });
 
 /** A valid library row: a variant and whether it is archived. */
 export interface LibraryCsvRow {

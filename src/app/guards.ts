@@ -3,7 +3,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { redirect } from 'react-router-dom';
 import type { Me, Role } from '../../shared/schemas';
 import { isApiError } from '../lib/api-client';
-import { meQueryOptions } from '../features/auth/api/queries';
+import { meQueryOptions } from '../lib/me';
 
 export const STAFF: Role[] = ['head_coach', 'coach'];
 export const HEAD_COACH: Role[] = ['head_coach'];

@@ -1,6 +1,6 @@
 // Puts the server's field errors (`{ fields: { "stress.elbow": [...] } }`) on the matching form fields.
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { isApiError } from './api-client';
+import { isApiError, staleSaveCurrent } from './api-client';
 
 /** True when at least one field error was placed; the caller shows anything else as a notice. */
 export function applyFieldErrors<T extends FieldValues>(
@@ -21,13 +21,13 @@ export function applyFieldErrors<T extends FieldValues>(
  * it is lost, and returns it with a message naming the fields whose changes of this user were not saved.
  * Anything else: null.
  */
-export function loadTheirEdit<Row, V extends object>(
+export function loadTheirEdit<Row extends object, V extends object>(
   err: unknown,
   form: { getValues: () => object; reset: (values: V) => void },
   valuesOf: (row: Row) => V,
 ): { row: Row; message: string } | null {
-  if (!isApiError(err, 409) || !err.body?.current) return null;
-  const row = err.body.current as Row;
+  const row = staleSaveCurrent<Row>(err);
+  if (!row || !isApiError(err)) return null;
   const theirs = valuesOf(row);
   const mine = form.getValues() as Record<string, unknown>;
   const stored = theirs as Record<string, unknown>;

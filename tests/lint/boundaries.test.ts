@@ -1,6 +1,8 @@
 // Import boundaries, checked on every test run (the linter checks the same): the client never
-// imports the server, the server never imports the client, and shared/ imports only shared/ code and
-// browser-safe packages — never a Node-only module.
+// imports the server, the server never imports the client, shared/ imports only shared/ code and
+// browser-safe packages — never a Node-only module — and a client feature imports only
+// src/components/ui, src/lib, shared/, packages and its own folder.
+import { ESLint } from 'eslint';
 import { describe, expect, it } from 'vitest';
 import { builtinModules } from 'node:module';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
@@ -63,11 +65,83 @@ describe('import boundaries', () => {
     expect(bad).toEqual([]);
   });
 
+  it('a client feature imports only components/ui, lib, shared/, packages and itself', () => {
+    const FEATURE_DOORS = ['src/components/ui/', 'src/lib/', 'shared/'];
+    const bad = files('src/features').flatMap((f) => {
+      const own = `src/features/${f.split('/')[2]}/`;
+      return importsOf(f)
+        .filter((s) => s.startsWith('.'))
+        .filter((s) => {
+          const to = `${relative(ROOT, resolve(join(ROOT, dirname(f)), s))}/`;
+          return ![own, ...FEATURE_DOORS].some((door) => to.startsWith(door));
+        })
+        .map((s) => `${f} → ${s}`);
+    });
+    expect(bad).toEqual([]);
+    expect(files('src/features').length).toBeGreaterThan(50);
+  });
+
   it('the checker itself sees imports of each form', () => {
     // Guards against a regex that silently matches nothing.
     expect(importsOf('tests/lint/boundaries.test.ts')).toEqual(
       expect.arrayContaining(['vitest', 'node:module', 'node:fs']),
     );
     expect(files('shared').length).toBeGreaterThan(5);
+  });
+});
+
+describe('the linter guards the doors of client features', () => {
+  const eslint = new ESLint({ cwd: ROOT });
+  const messagesOf = async (code: string, filePath: string) => {
+    const [result] = await eslint.lintText(code, { filePath: join(ROOT, filePath) });
+    return result!.messages.filter((m) => m.ruleId === 'rackturn/feature-doors');
+  };
+
+  it('reports a feature importing another feature', async () => {
+    const found = await messagesOf(
+      "import { athleteListOptions } from '../../roster/api/queries';\nexport const x = athleteListOptions;\n",
+      'src/features/library/api/x.ts',
+    );
+    expect(found).toHaveLength(1);
+    expect(found[0]!.severity).toBe(2);
+    expect(found[0]!.message).toContain('src/features/roster/api/queries');
+  });
+
+  it('reports a feature reaching into src/app, and a re-export or dynamic import across', async () => {
+    const found = await messagesOf(
+      [
+        "import { guards } from '../../../app/guards';",
+        "export { meetKeys } from '../../meets/api/queries';",
+        "export const later = () => import('../../history/components/lift-charts');",
+        'export const y = guards;',
+        '',
+      ].join('\n'),
+      'src/features/library/components/x.ts',
+    );
+    expect(found.map((m) => m.line)).toEqual([1, 2, 3]);
+  });
+
+  it('lets a feature import its own files, components/ui, lib, shared/ and packages', async () => {
+    const found = await messagesOf(
+      [
+        "import { useQuery } from '@tanstack/react-query';",
+        "import { Button } from '../../../components/ui/button';",
+        "import { athleteKeys } from '../../../lib/query-keys';",
+        "import { LIFT_LABEL } from '../../../../shared/labels';",
+        "import { variantKeys } from '../api/queries';",
+        'export const all = [useQuery, Button, athleteKeys, LIFT_LABEL, variantKeys];',
+        '',
+      ].join('\n'),
+      'src/features/library/components/x.ts',
+    );
+    expect(found).toEqual([]);
+  });
+
+  it('lets src/app compose features', async () => {
+    const found = await messagesOf(
+      "import { athleteListOptions } from '../../features/roster/api/queries';\nexport const x = athleteListOptions;\n",
+      'src/app/routes/x.tsx',
+    );
+    expect(found).toEqual([]);
   });
 });

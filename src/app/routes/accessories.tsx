@@ -6,7 +6,7 @@ import { useSearchParams } from 'react-router-dom';
 import { ACCESSORY_CATEGORIES, ACCESSORY_CATEGORY_LABELS, type LibraryAccessory } from '../../../shared/schemas';
 import { Button, buttonClass } from '../../components/ui/button';
 import { Dialog } from '../../components/ui/dialog';
-import { SelectField, TextField } from '../../components/ui/field';
+import { LabelledOptions, SelectField, TextField } from '../../components/ui/field';
 import { Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
 import {
   accessoryFiltersFromSearch,
@@ -73,11 +73,7 @@ export function Component() {
           onChange={(e) => update({ category: e.target.value as AccessoryFilters['category'] })}
         >
           <option value="">All categories</option>
-          {ACCESSORY_CATEGORIES.map((c) => (
-            <option key={c} value={c}>
-              {ACCESSORY_CATEGORY_LABELS[c]}
-            </option>
-          ))}
+          <LabelledOptions labels={ACCESSORY_CATEGORY_LABELS} values={ACCESSORY_CATEGORIES} />
         </SelectField>
         <label className="inline-flex min-h-11 items-center gap-2 self-end text-sm font-semibold text-ink-800">
           <input

@@ -3,7 +3,7 @@ import type { MouseEvent } from 'react';
 import { NavLink, Outlet, useMatches, useNavigation } from 'react-router-dom';
 import type { Role } from '../../../shared/schemas';
 import { SKIP_LINK_CLASS } from '../../components/ui/page';
-import { useMe } from '../../features/auth/api/queries';
+import { useMe } from '../../lib/me';
 import { useSignOut } from '../../features/auth/api/use-sign-out';
 import { AccountMenu } from '../../features/auth/components/account-menu';
 import { NoticeMenu } from '../../features/notices/components/notice-menu';

@@ -1,5 +1,6 @@
 // Athlete (coaches): one athlete's profile, restrictions, equipment, meets, own rules, and the history
 // of picks and results. Each panel saves on its own, with the athlete's version.
+import { SEX_LABEL } from '../../../shared/labels';
 import { useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
@@ -8,8 +9,9 @@ import { weekOfDate } from '../../../shared/engine/weeks';
 import type { Athlete } from '../../../shared/schemas';
 import { Button } from '../../components/ui/button';
 import { Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
-import { useMe } from '../../features/auth/api/queries';
-import { accountsOptions, athleteHistoryOptions, athleteKeys, athleteOptions } from '../../features/roster/api/queries';
+import { useMe } from '../../lib/me';
+import { accountsOptions, athleteHistoryOptions, athleteOptions } from '../../features/roster/api/queries';
+import { athleteKeys } from '../../lib/query-keys';
 import { useArchiveAthlete, useUpdateAthlete } from '../../features/roster/api/use-save-athlete';
 import { AthleteMeetsPanel } from '../../features/roster/components/athlete-meets-panel';
 import { AthleteProfileForm } from '../../features/roster/components/athlete-profile-form';
@@ -20,6 +22,8 @@ import { OverridesPanel } from '../../features/roster/components/overrides-panel
 import { Panel } from '../../features/roster/components/panel';
 import { RestrictionsPanel } from '../../features/roster/components/restrictions-panel';
 import { rulesOptions } from '../../features/rules/api/queries';
+import { LiftCharts } from '../../features/history/components/lift-charts';
+import { VariantHistory } from '../../features/history/components/variant-history';
 import { AthleteReview } from '../../features/review/components/athlete-review';
 import { AthleteThreads } from '../../features/messages/components/athlete-threads';
 import type { LoaderMaker } from '../guards';
@@ -73,7 +77,7 @@ export function Component() {
         title={athlete.name}
         subtitle={[
           `Heaviest risk allowed: ${maxRiskText(athlete.maxRisk).toLowerCase()}`,
-          `${DIVISION_LABEL[athlete.division]} · ${athlete.sex === 'F' ? 'women' : 'men'}`,
+          `${DIVISION_LABEL[athlete.division]} · ${SEX_LABEL[athlete.sex].toLowerCase()}`,
           age ? `about ${age}` : null,
           athlete.latestBodyweight
             ? `${formatWeight(athlete.latestBodyweight.weightKg, me?.unit ?? 'kg')} on ${formatDate(athlete.latestBodyweight.measuredOn)}`
@@ -132,7 +136,15 @@ export function Component() {
       </div>
       <AthleteThreads athleteId={id} thisWeek={weekOfDate(new Date())} slotLabels={slotLabels} />
       {/* More panels about this athlete go below, each a section of its own. */}
-      <AthleteReview athleteId={id} />
+      <AthleteReview
+        athleteId={id}
+        history={(data, unit) => (
+          <>
+            <LiftCharts series={data.series} unit={unit} />
+            <VariantHistory variants={data.variants} unit={unit} athleteId={id} />
+          </>
+        )}
+      />
     </section>
   );
 }

@@ -2,7 +2,7 @@
 import { useQuery, type QueryClient } from '@tanstack/react-query';
 import { useSearchParams } from 'react-router-dom';
 import { PageHeader, Notice } from '../../components/ui/page';
-import { useMe } from '../../features/auth/api/queries';
+import { useMe } from '../../lib/me';
 import {
   athleteFeeListOptions,
   athleteFiltersFromSearch,

@@ -32,6 +32,7 @@ export const makeLoader: LoaderMaker =
 export function Component() {
   const [params, setParams] = useSearchParams();
   const { data: list } = useSuspenseQuery(meetListOptions());
+  const roster = useQuery(athleteListOptions(ALL_ATHLETES));
   const [adding, setAdding] = useState(false);
   const today = new Date().toISOString().slice(0, 10);
   const upcoming = list.items.filter((m) => m.date >= today);
@@ -92,7 +93,12 @@ export function Component() {
           ) : chosen.error ? (
             <Notice tone="error">{chosen.error.message}</Notice>
           ) : chosen.data ? (
-            <MeetDetail key={chosen.data.id} meet={chosen.data} onDeleted={() => choose(null)} />
+            <MeetDetail
+              key={chosen.data.id}
+              meet={chosen.data}
+              athletes={roster.data?.items ?? []}
+              onDeleted={() => choose(null)}
+            />
           ) : null}
         </div>
       </div>

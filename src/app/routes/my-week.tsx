@@ -11,7 +11,7 @@ import { WaitingToSend } from '../../features/my-week/components/waiting-to-send
 import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
 import { WeekSessions } from '../../features/my-week/components/week-sessions';
-import { useMe } from '../../features/auth/api/queries';
+import { useMe } from '../../lib/me';
 import { MessageThread } from '../../features/messages/components/message-thread';
 import { weekParam } from './my-week.loader';
 

@@ -92,3 +92,26 @@ export function TextAreaField({
     </Shell>
   );
 }
+
+/**
+ * A select's options, each value with its label: the labels' own order, or `values` when given (a subset or
+ * another order). Values travel as strings, like any option's.
+ */
+export function LabelledOptions<K extends string | number>({
+  labels,
+  values,
+}: {
+  labels: Readonly<Record<K, ReactNode>>;
+  values?: readonly K[];
+}) {
+  const keys = values ?? (Object.keys(labels) as K[]);
+  return (
+    <>
+      {keys.map((k) => (
+        <option key={k} value={k}>
+          {labels[k]}
+        </option>
+      ))}
+    </>
+  );
+}

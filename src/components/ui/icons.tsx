@@ -35,10 +35,3 @@ export const PinIcon = (p: SVGProps<SVGSVGElement>) => (
     <path d="M7 2h6l-1 5 3 3H5l3-3zM10 10v8" strokeLinejoin="round" strokeLinecap="round" />
   </svg>
 );
-export const GearIcon = (p: SVGProps<SVGSVGElement>) => (
-  <svg {...iconFrame} {...p}>
-    <rect x="2" y="8.5" width="16" height="3" rx="1" />
-    <rect x="4" y="5" width="3" height="10" rx="1" />
-    <rect x="13" y="5" width="3" height="10" rx="1" />
-  </svg>
-);

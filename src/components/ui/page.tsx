@@ -63,12 +63,3 @@ export function Loading({ label = 'Loading…' }: { label?: string }) {
     </p>
   );
 }
-
-export function Placeholder({ title, children }: { title: string; children?: ReactNode }) {
-  return (
-    <section>
-      <PageHeader title={title} />
-      <p className="text-ink-600">{children ?? 'This page is on its way.'}</p>
-    </section>
-  );
-}

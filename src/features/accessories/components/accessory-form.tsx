@@ -1,5 +1,6 @@
 // Add or edit one accessory: the same zod schema as the server checks each field, and the server's own
 // field errors land on the same fields. A save that meets someone else's newer edit loads theirs.
+import { STRESS_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -13,13 +14,12 @@ import {
   type LibraryAccessory,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
 import { useCreateAccessory, useUpdateAccessory } from '../api/use-save-accessory';
 
-export const STRESS_WORDS = ['0 · none', '1 · light', '2 · moderate', '3 · heavy'] as const;
 export const jointTitle = (j: Joint) => jointName(j).replace(/^./, (c) => c.toUpperCase());
 
 const blank: AccessoryBody = {
@@ -95,11 +95,7 @@ export function AccessoryForm({
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Name" autoComplete="off" error={errors.name?.message} {...form.register('name')} />
         <SelectField label="Category" error={errors.category?.message} {...form.register('category')}>
-          {ACCESSORY_CATEGORIES.map((c) => (
-            <option key={c} value={c}>
-              {ACCESSORY_CATEGORY_LABELS[c]}
-            </option>
-          ))}
+          <LabelledOptions labels={ACCESSORY_CATEGORY_LABELS} values={ACCESSORY_CATEGORIES} />
         </SelectField>
       </div>
       <fieldset className="rounded-md border border-chalk-300 p-3">
@@ -156,7 +152,7 @@ export function AccessoryForm({
               error={errors.stress?.[j]?.message}
               {...form.register(`stress.${j}`, { setValueAs: toNumber })}
             >
-              {STRESS_WORDS.map((label, n) => (
+              {STRESS_LABEL.map((label, n) => (
                 <option key={n} value={n}>
                   {label}
                 </option>

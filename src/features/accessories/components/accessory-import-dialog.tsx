@@ -6,7 +6,7 @@ import { detectCsvDelimiter, readAccessoryTable, type CsvProblem } from '../../.
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { refusedCsvRows } from '../../../lib/api-client';
 import { useImportAccessories } from '../api/use-import-accessories';
 
 function ProblemList({ problems }: { problems: CsvProblem[] }) {
@@ -34,7 +34,7 @@ export function AccessoryImportDialog({
   const [file, setFile] = useState<File | null>(null);
   const [preview, setPreview] = useState<{ valid: number; problems: CsvProblem[] } | null>(null);
   const upload = useImportAccessories();
-  const serverRows = isApiError(upload.error) ? ((upload.error.body?.rows as CsvProblem[] | undefined) ?? []) : [];
+  const serverRows = refusedCsvRows(upload.error) ?? [];
 
   const choose = async (f: File | null) => {
     upload.reset();

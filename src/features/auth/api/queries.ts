@@ -1,25 +1,8 @@
-// Who is signed in and where: the key factory and query options for the session and the account's devices.
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Me, SessionList } from '../../../../shared/schemas';
+// The signed-in account's devices; the session itself (useMe) and the key factory live in src/lib.
+import { queryOptions } from '@tanstack/react-query';
+import type { SessionList } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-
-export const authKeys = {
-  all: ['auth'] as const,
-  me: () => [...authKeys.all, 'me'] as const,
-  sessions: () => [...authKeys.all, 'sessions'] as const,
-};
-
-export const meQueryOptions = () =>
-  queryOptions({
-    queryKey: authKeys.me(),
-    queryFn: ({ signal }) => api<Me>('/auth/me', { signal }),
-    staleTime: 5 * 60_000,
-    retry: false,
-  });
-
-export function useMe() {
-  return useQuery(meQueryOptions());
-}
+import { authKeys } from '../../../lib/query-keys';
 
 /** The account's signed-in browsers and devices, most recently used first. */
 export const sessionsQueryOptions = () =>

@@ -1,7 +1,7 @@
 // Sign out one other device from the list of signed-in devices.
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { authKeys } from './queries';
+import { authKeys } from '../../../lib/query-keys';
 
 export function useEndSession() {
   const queryClient = useQueryClient();

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { LoginBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { authKeys } from './queries';
+import { authKeys } from '../../../lib/query-keys';
 
 export function useSignIn() {
   const queryClient = useQueryClient();

@@ -1,28 +1,20 @@
 // The library beside the board: filter by lift, family, equipment and risk, search by name, and drag a
 // card onto a cell (with the pointer, a finger, or the keyboard).
+import { LIFT_LABEL, RISK_CEILING_LABEL, RISK_WORD } from '../../../../shared/labels';
 import { memo, useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { SortableContext, useSortable } from '@dnd-kit/sortable';
 import type { Joint } from '../../../../shared/engine';
-import type { BoardVariant } from '../../../../shared/schemas';
+import type { BoardVariant, VariantNarrowing } from '../../../../shared/schemas';
+import { LabelledOptions } from '../../../components/ui/field';
 import { libraryDndId } from '../model/dnd';
 import { jointWords } from '../model/words';
 
 const noSorting = () => null;
-const LIFT_WORDS = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' } as const;
-const RISK_WORDS = { 1: 'low', 2: 'medium', 3: 'high' } as const;
 
-export interface LibraryFilters {
-  q: string;
-  lift: '' | BoardVariant['lift'];
-  family: string;
-  equipment: string;
-  risk: '' | '1' | '2' | '3';
-}
-
-export const NO_FILTERS: LibraryFilters = { q: '', lift: '', family: '', equipment: '', risk: '' };
+export const NO_FILTERS: VariantNarrowing = { q: '', lift: '', family: '', equipment: '', risk: '' };
 
 /** Variants a coach can still pick (archived ones stay out), narrowed by the filters. */
-export function filterLibrary(variants: BoardVariant[], f: LibraryFilters): BoardVariant[] {
+export function filterLibrary(variants: BoardVariant[], f: VariantNarrowing): BoardVariant[] {
   const q = f.q.trim().toLowerCase();
   return variants.filter(
     (v) =>
@@ -70,7 +62,7 @@ const LibraryCard = memo(function LibraryCard({ variant }: { variant: BoardVaria
         {variant.name}
       </button>
       <span id={descId} className="mt-0.5 text-xs text-ink-600">
-        {LIFT_WORDS[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORDS[variant.risk]})
+        {LIFT_LABEL[variant.lift]} · {variant.family} · risk {variant.risk} ({RISK_WORD[variant.risk]})
         <span className="block text-ink-500">
           {stressLine(variant)}
           {variant.equipment.length ? ` · needs ${variant.equipment.join(', ')}` : ''}
@@ -95,7 +87,7 @@ function Filter({ label, children }: { label: string; children: (id: string) => 
 }
 
 export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
-  const [filters, setFilters] = useState<LibraryFilters>(NO_FILTERS);
+  const [filters, setFilters] = useState<VariantNarrowing>(NO_FILTERS);
   // The cards come in the frame after the board itself is on screen.
   const [ready, setReady] = useState(false);
   useEffect(() => {
@@ -107,7 +99,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
   const live = useMemo(() => variants.filter((v) => !v.archived), [variants]);
   const families = useMemo(() => [...new Set(live.map((v) => v.family))].sort(), [live]);
   const equipment = useMemo(() => [...new Set(live.flatMap((v) => v.equipment))].sort(), [live]);
-  const set = <K extends keyof LibraryFilters>(k: K, value: LibraryFilters[K]) =>
+  const set = <K extends keyof VariantNarrowing>(k: K, value: VariantNarrowing[K]) =>
     setFilters((f) => ({ ...f, [k]: value }));
 
   return (
@@ -132,7 +124,7 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
               <select
                 id={id}
                 value={filters.lift}
-                onChange={(e) => set('lift', e.target.value as LibraryFilters['lift'])}
+                onChange={(e) => set('lift', e.target.value as VariantNarrowing['lift'])}
                 className={fieldClass}
               >
                 <option value="">Any</option>
@@ -147,13 +139,11 @@ export function LibraryDrawer({ variants }: { variants: BoardVariant[] }) {
               <select
                 id={id}
                 value={filters.risk}
-                onChange={(e) => set('risk', e.target.value as LibraryFilters['risk'])}
+                onChange={(e) => set('risk', e.target.value as VariantNarrowing['risk'])}
                 className={fieldClass}
               >
                 <option value="">Any</option>
-                <option value="1">Low only</option>
-                <option value="2">Up to medium</option>
-                <option value="3">Up to high</option>
+                <LabelledOptions labels={RISK_CEILING_LABEL} />
               </select>
             )}
           </Filter>

@@ -11,8 +11,9 @@ import {
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { TextAreaField, TextField } from '../../../components/ui/field';
+import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { useSavePlan } from '../api/use-save-plan';
 
 const FIELDS = ['name', 'price', 'description'] as const;
@@ -26,7 +27,7 @@ export function PlanForm({ plan, currency, onDone }: { plan?: FeePlan; currency:
       : { name: '', price: '', description: '' },
   });
   const { errors, isSubmitting } = form.formState;
-  const conflict = isApiError(save.error, 409) ? (save.error.body?.current as FeePlan | undefined) : undefined;
+  const conflict = staleSaveCurrent<FeePlan>(save.error) ?? undefined;
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {
@@ -44,9 +45,8 @@ export function PlanForm({ plan, currency, onDone }: { plan?: FeePlan; currency:
 
   const title = plan ? `Edit ${plan.name}` : 'New plan';
   return (
-    <form
+    <Form
       onSubmit={onSubmit}
-      noValidate
       aria-label={title}
       className="flex flex-col gap-3 rounded-lg border-2 border-rust-400 bg-chalk-50 p-4"
     >
@@ -56,9 +56,9 @@ export function PlanForm({ plan, currency, onDone }: { plan?: FeePlan; currency:
           Now it reads “{conflict.name}”, {fromMinorUnits(conflict.priceMinor, conflict.currency)} {conflict.currency}.
           Saving again replaces their version with yours.
         </Notice>
-      ) : save.error && !Object.keys(isApiError(save.error) ? save.error.fields : {}).length ? (
-        <Notice tone="error">{save.error.message}</Notice>
-      ) : null}
+      ) : (
+        <FormFailure failure={save.error} fieldErrors={errors} />
+      )}
       <TextField
         label="Name"
         autoComplete="off"
@@ -87,13 +87,13 @@ export function PlanForm({ plan, currency, onDone }: { plan?: FeePlan; currency:
         {...form.register('description')}
       />
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : plan ? 'Save plan' : 'Add plan'}
-        </Button>
+        <SubmitButton busy={isSubmitting} busyText="Saving…">
+          {plan ? 'Save plan' : 'Add plan'}
+        </SubmitButton>
         <Button variant="secondary" onClick={onDone}>
           Cancel
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -2,6 +2,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { ListResponse, Series, TopSet, Unit, VariantHistory, Video } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
+import { historyKeys, type TopSetFilter } from '../../../lib/query-keys';
 
 export interface MyHistory {
   unit: Unit;
@@ -9,18 +10,6 @@ export interface MyHistory {
   series: Series;
   videos: Video[];
 }
-
-export interface TopSetFilter {
-  athleteId?: number;
-  variantId: number;
-}
-
-export const historyKeys = {
-  all: ['history'] as const,
-  mine: () => [...historyKeys.all, 'mine'] as const,
-  topSetLists: () => [...historyKeys.all, 'top-sets'] as const,
-  topSets: (filter: TopSetFilter) => [...historyKeys.topSetLists(), filter] as const,
-};
 
 export const myHistoryQueryOptions = () =>
   queryOptions({

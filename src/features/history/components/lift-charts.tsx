@@ -1,5 +1,6 @@
 // e1RM per competition lift, drawn from the top sets of that lift's variants, with the caveat that a
 // variant's estimate is not a competition max, and a switch to keep only close variants.
+import { LIFT_NAME } from '../../../../shared/labels';
 import { useId, useState } from 'react';
 import type { WeightUnit } from '../../../../shared/calc';
 import type { Series } from '../../../../shared/schemas';
@@ -7,11 +8,7 @@ import { BodyweightChart } from './bodyweight-chart';
 import { CLOSE_SPECIFICITY } from './chart-data';
 import { E1rmChart } from './e1rm-chart';
 
-const LIFTS = [
-  ['squat', 'Squat'],
-  ['bench', 'Bench press'],
-  ['deadlift', 'Deadlift'],
-] as const;
+const LIFTS = (['squat', 'bench', 'deadlift'] as const).map((l) => [l, LIFT_NAME[l]] as const);
 
 export function LiftCharts({ series, unit }: { series: Series; unit: WeightUnit }) {
   const id = useId();

@@ -1,10 +1,9 @@
 // Records per variant, most recently trained first; each opens to its top sets.
+import { LIFT_LABEL } from '../../../../shared/labels';
 import { useState } from 'react';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import type { TopSet, VariantHistory as VariantHistoryRow } from '../../../../shared/schemas';
 import { useTopSets } from '../api/queries';
-
-const LIFT_LABEL = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' } as const;
 
 function setText(s: TopSet, unit: WeightUnit): string {
   return `${s.reps} × ${formatWeight(s.weightKg, unit, { decimals: 1 })}${s.rpe ? ` @ RPE ${s.rpe}` : ''}`;

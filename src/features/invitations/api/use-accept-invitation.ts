@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AcceptExistingAccountBody, AcceptNewAccountBody, Role } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { authKeys } from '../../auth/api/queries';
+import { authKeys } from '../../../lib/query-keys';
 
 export function useAcceptInvitation() {
   const queryClient = useQueryClient();

@@ -11,11 +11,10 @@ import {
   type AcceptNewAccountBody,
   type InvitationPreview,
 } from '../../../../shared/schemas';
-import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { Notice } from '../../../components/ui/page';
+import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { applyFieldErrors } from '../../../lib/form-errors';
-import { meQueryOptions } from '../../auth/api/queries';
+import { meQueryOptions } from '../../../lib/me';
 import { useAcceptInvitation } from '../api/use-accept-invitation';
 
 const ROLE_WORDS = { head_coach: 'head coach', coach: 'coach', athlete: 'athlete' } as const;
@@ -45,8 +44,8 @@ function NewAccountForm({ token }: { token: string }) {
   const { errors, isSubmitting } = form.formState;
   const { accept, onSubmit } = useAcceptSubmit(form);
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      {accept.error && !Object.keys(errors).length ? <Notice tone="error">{accept.error.message}</Notice> : null}
+    <Form onSubmit={onSubmit}>
+      <FormFailure failure={accept.error} fieldErrors={errors} />
       <TextField label="Your name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
       <TextField
         label="Choose a password"
@@ -63,10 +62,10 @@ function NewAccountForm({ token }: { token: string }) {
         error={errors.confirmPassword?.message}
         {...form.register('confirmPassword')}
       />
-      <Button type="submit" size="lg" disabled={isSubmitting}>
-        {isSubmitting ? 'Joining…' : 'Join the team'}
-      </Button>
-    </form>
+      <SubmitButton size="lg" busy={isSubmitting} busyText="Joining…">
+        Join the team
+      </SubmitButton>
+    </Form>
   );
 }
 
@@ -78,9 +77,9 @@ function ExistingAccountForm({ token }: { token: string }) {
   const { errors, isSubmitting } = form.formState;
   const { accept, onSubmit } = useAcceptSubmit(form);
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+    <Form onSubmit={onSubmit}>
       <p className="text-ink-700">This address already has a Rackturn account. Confirm with its password.</p>
-      {accept.error && !Object.keys(errors).length ? <Notice tone="error">{accept.error.message}</Notice> : null}
+      <FormFailure failure={accept.error} fieldErrors={errors} />
       <TextField
         label="Your password"
         type="password"
@@ -88,13 +87,13 @@ function ExistingAccountForm({ token }: { token: string }) {
         error={errors.password?.message}
         {...form.register('password')}
       />
-      <Button type="submit" size="lg" disabled={isSubmitting}>
-        {isSubmitting ? 'Joining…' : 'Join the team'}
-      </Button>
+      <SubmitButton size="lg" busy={isSubmitting} busyText="Joining…">
+        Join the team
+      </SubmitButton>
       <Link to="/forgot-password" className="text-center text-ink-700 underline underline-offset-2">
         Forgot your password?
       </Link>
-    </form>
+    </Form>
   );
 }
 

@@ -1,5 +1,5 @@
 // The Roster page's invitations panel, for the head coach only: invite by e-mail, and the open invitations.
-import { useMe } from '../../auth/api/queries';
+import { useMe } from '../../../lib/me';
 import { InviteForm } from './invite-form';
 import { OpenInvitations } from './open-invitations';
 

@@ -2,15 +2,11 @@
 // variant, and the families, bars and equipment in use.
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import type { Lift } from '../../../../shared/engine/types';
-import type { LibraryVariant, ListResponse, VariantFacets } from '../../../../shared/schemas';
+import type { LibraryVariant, ListResponse, VariantFacets, VariantNarrowing } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
 
-export interface LibraryFilters {
-  q: string;
-  lift: Lift | '';
-  family: string;
-  equipment: string;
-  risk: '' | '1' | '2' | '3';
+/** The library page's filters: the narrowing the board's drawer shares, plus archive, sort and page. */
+export interface LibraryFilters extends VariantNarrowing {
   includeArchived: boolean;
   sort: string;
   page: number;

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { VariantDeleteResult } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { athleteKeys } from '../../roster/api/queries';
+import { athleteKeys } from '../../../lib/query-keys';
 import { variantKeys } from './queries';
 
 export function useDeleteVariant() {

@@ -14,7 +14,7 @@ import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { BreakIcon, CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, refusedCsvRows } from '../../../lib/api-client';
 import { useImportLibrary } from '../api/use-import-library';
 
 const PREVIEW_ROWS = 50;
@@ -59,7 +59,8 @@ function ImportBody({ onClose }: { onClose: () => void }) {
     try {
       setDone(await upload.mutateAsync(file));
     } catch (err) {
-      if (isApiError(err, 422) && Array.isArray(err.body?.rows)) setServerRows(err.body.rows as CsvProblem[]);
+      const rows = isApiError(err, 422) ? refusedCsvRows(err) : null;
+      if (rows) setServerRows(rows);
     }
   };
 

@@ -1,12 +1,9 @@
-// How the library's values read on screen.
-import { JOINTS, type Joint, type Lift } from '../../../../shared/engine/types';
+// How the library's own values read on screen (lift, risk and stress words are in shared/labels).
+import { JOINTS, type Joint } from '../../../../shared/engine/types';
 import { jointName } from '../../../../shared/engine/words';
 
-export const LIFT_LABEL: Record<Lift, string> = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' };
 export const EMPHASIS_LABEL = { bottom: 'Bottom', midRange: 'Mid-range', lockout: 'Lockout' } as const;
 export const SCHEME_LABEL = { single: 'Single', triple: 'Triple', five: 'Five' } as const;
-export const RISK_LABEL: Record<1 | 2 | 3, string> = { 1: '1 · low', 2: '2 · moderate', 3: '3 · high' };
-export const STRESS_LABEL = ['0 · none', '1 · light', '2 · moderate', '3 · heavy'] as const;
 
 export const jointLabel = (j: Joint) => jointName(j).replace(/^./, (c) => c.toUpperCase());
 

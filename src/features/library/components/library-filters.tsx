@@ -1,12 +1,11 @@
 // The library's filters: text search (applied as you type, after a short pause), lift, family,
 // equipment, risk, and whether archived variants are shown.
+import { LIFT_LABEL, RISK_LABEL } from '../../../../shared/labels';
 import { useEffect, useState } from 'react';
-import { LIFTS } from '../../../../shared/engine/types';
 import type { VariantFacets } from '../../../../shared/schemas';
 import { CheckboxField } from '../../../components/ui/choices';
-import { SelectField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextField } from '../../../components/ui/field';
 import type { LibraryFilters } from '../api/queries';
-import { LIFT_LABEL, RISK_LABEL } from './labels';
 
 export function LibraryFiltersBar({
   filters,
@@ -44,11 +43,7 @@ export function LibraryFiltersBar({
         onChange={(e) => onChange({ lift: e.target.value as LibraryFilters['lift'] })}
       >
         <option value="">All lifts</option>
-        {LIFTS.map((l) => (
-          <option key={l} value={l}>
-            {LIFT_LABEL[l]}
-          </option>
-        ))}
+        <LabelledOptions labels={LIFT_LABEL} />
       </SelectField>
       <SelectField label="Family" value={filters.family} onChange={(e) => onChange({ family: e.target.value })}>
         <option value="">All families</option>

@@ -1,18 +1,19 @@
 // Add or edit one variant: the same zod schema as the server checks each field, and the server's own
 // field errors land on the same fields. A save that meets someone else's newer edit loads theirs.
+import { LIFT_LABEL, RISK_LABEL, STRESS_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useController, useForm, type Control } from 'react-hook-form';
-import { JOINTS, LIFTS } from '../../../../shared/engine/types';
+import { JOINTS } from '../../../../shared/engine/types';
 import { variantBody, type LibraryVariant, type VariantBody, type VariantFacets } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
-import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors, loadTheirEdit } from '../../../lib/form-errors';
 import { useCreateVariant, useUpdateVariant } from '../api/use-save-variant';
-import { EMPHASIS_LABEL, LIFT_LABEL, RISK_LABEL, SCHEME_LABEL, STRESS_LABEL, jointLabel } from './labels';
+import { EMPHASIS_LABEL, SCHEME_LABEL, jointLabel } from './labels';
 
 const blank: VariantBody = {
   name: '',
@@ -101,11 +102,7 @@ export function VariantForm({
       <TextField label="Name" autoComplete="off" error={errors.name?.message} {...form.register('name')} />
       <div className="grid gap-4 sm:grid-cols-3">
         <SelectField label="Lift" error={errors.lift?.message} {...form.register('lift')}>
-          {LIFTS.map((l) => (
-            <option key={l} value={l}>
-              {LIFT_LABEL[l]}
-            </option>
-          ))}
+          <LabelledOptions labels={LIFT_LABEL} />
         </SelectField>
         <TextField
           label="Family"
@@ -147,11 +144,7 @@ export function VariantForm({
           error={errors.emphasis?.message}
           {...form.register('emphasis')}
         >
-          {(Object.keys(EMPHASIS_LABEL) as (keyof typeof EMPHASIS_LABEL)[]).map((e) => (
-            <option key={e} value={e}>
-              {EMPHASIS_LABEL[e]}
-            </option>
-          ))}
+          <LabelledOptions labels={EMPHASIS_LABEL} />
         </SelectField>
         <SelectField
           label="Risk"
@@ -159,11 +152,7 @@ export function VariantForm({
           error={errors.risk?.message}
           {...form.register('risk', { setValueAs: toNumber })}
         >
-          {([1, 2, 3] as const).map((r) => (
-            <option key={r} value={r}>
-              {RISK_LABEL[r]}
-            </option>
-          ))}
+          <LabelledOptions labels={RISK_LABEL} />
         </SelectField>
         <TextField
           label="Specificity"

@@ -1,10 +1,11 @@
 // The library table: sorted on the server (the column headers set the list's `sort`), one row per variant.
+import { LIFT_LABEL, RISK_LABEL } from '../../../../shared/labels';
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import type { LibraryVariant } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { DataTable } from '../../../components/ui/data-table';
-import { EMPHASIS_LABEL, LIFT_LABEL, RISK_LABEL, SCHEME_LABEL } from './labels';
+import { EMPHASIS_LABEL, SCHEME_LABEL } from './labels';
 import { StressPips } from './stress-pips';
 
 const col = createColumnHelper<LibraryVariant>();

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { JumpsBody, MeetDay, WeighInBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { athleteKeys } from '../../roster/api/queries';
+import { athleteKeys } from '../../../lib/query-keys';
 import { meetKeys } from './queries';
 
 function useSetDay(meetId: number) {

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { MeetEntry, MeetEntryBody, MeetEntryPatchBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { athleteKeys } from '../../roster/api/queries';
+import { athleteKeys } from '../../../lib/query-keys';
 import { meetKeys } from './queries';
 
 function useRefresh(meetId: number) {

@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { Meet, MeetBody, MeetPatchBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { athleteKeys } from '../../roster/api/queries';
+import { athleteKeys } from '../../../lib/query-keys';
 import { meetKeys } from './queries';
 
 async function refresh(queryClient: QueryClient, meet: Meet | null) {

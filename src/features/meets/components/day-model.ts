@@ -12,7 +12,7 @@ import {
 import type { DayEntry, MeetDay } from '../../../../shared/schemas';
 import type { QueuedMark } from '../api/mark-queue';
 
-export const LIFT_NAME: Record<MeetLift, string> = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' };
+export { LIFT_NAME } from '../../../../shared/labels';
 export const ATTEMPT_NAME = ['1st', '2nd', '3rd'] as const;
 
 export interface ViewAttempt {

@@ -1,5 +1,6 @@
 // One athlete's entry in a meet: weight class (with the class their latest bodyweight falls in),
 // division, and three attempts per lift in kg, which can be planned from the current e1RM.
+import { DIVISION_LABEL, LIFT_NAME } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm, useWatch, type Resolver } from 'react-hook-form';
@@ -15,16 +16,14 @@ import {
   type MeetEntry,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField } from '../../../components/ui/field';
 import { WarningIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useRemoveEntry, useUpdateEntry } from '../api/use-save-entry';
-import { DIVISION_LABEL } from '../../roster/components/labels';
 import { dateText } from './when';
 
-const LIFT_LABEL: Record<CompetitionLift, string> = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' };
 const ATTEMPT_LABEL = ['Opener', 'Second', 'Third'] as const;
 const PERCENTS = ATTEMPT_FRACTIONS.map((f) => `${Math.round(f * 100)}%`).join(', ');
 
@@ -80,8 +79,9 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
       form.reset(valuesOf(saved));
       setNotice({ tone: 'success', text: 'Entry saved.' });
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        form.reset(valuesOf(err.body.current as MeetEntry));
+      const theirs = staleSaveCurrent<MeetEntry>(err);
+      if (theirs && isApiError(err)) {
+        form.reset(valuesOf(theirs));
         setNotice({ tone: 'error', text: err.message });
         return;
       }
@@ -137,11 +137,7 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
             ))}
           </SelectField>
           <SelectField label="Division" error={errors.division?.message} {...form.register('division')}>
-            {(Object.keys(DIVISION_LABEL) as (keyof typeof DIVISION_LABEL)[]).map((d) => (
-              <option key={d} value={d}>
-                {DIVISION_LABEL[d]}
-              </option>
-            ))}
+            <LabelledOptions labels={DIVISION_LABEL} />
           </SelectField>
         </div>
 
@@ -170,12 +166,12 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
                 return (
                   <tr key={lift} className="align-top">
                     <th scope="row" className="py-1 pr-2 font-semibold">
-                      {LIFT_LABEL[lift]}
+                      {LIFT_NAME[lift]}
                     </th>
                     {ATTEMPT_LABEL.map((label, i) => (
                       <td key={label} className="px-1 py-1">
                         <input
-                          aria-label={`${LIFT_LABEL[lift]} ${label.toLowerCase()} (kg)`}
+                          aria-label={`${LIFT_NAME[lift]} ${label.toLowerCase()} (kg)`}
                           inputMode="decimal"
                           aria-invalid={err ? true : undefined}
                           className={`w-20 rounded-md border bg-chalk-50 px-2 py-1.5 text-base tabular-nums ${err ? 'border-breach-600' : 'border-ink-300'}`}
@@ -216,7 +212,7 @@ export function EntryCard({ entry, meetId }: { entry: MeetEntry; meetId: number 
           {COMPETITION_LIFTS.map((lift) =>
             liftError(lift) ? (
               <p key={lift} role="alert" className="text-sm font-medium text-breach-700">
-                {LIFT_LABEL[lift]}: {liftError(lift)}
+                {LIFT_NAME[lift]}: {liftError(lift)}
               </p>
             ) : null,
           )}

@@ -1,29 +1,27 @@
 // One meet: when and where, who is entered (with class, division and attempts), and entering more athletes.
-import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import type { Meet } from '../../../../shared/schemas';
+import type { Athlete, Meet } from '../../../../shared/schemas';
 import { Link } from 'react-router-dom';
 import { Button, buttonClass } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { SelectField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { athleteListOptions } from '../../roster/api/queries';
 import { useDeleteMeet } from '../api/use-save-meet';
 import { useAddEntry } from '../api/use-save-entry';
 import { EntryCard } from './entry-card';
 import { MeetForm } from './meet-form';
 import { dateText, meetWhen } from './when';
 
-export function MeetDetail({ meet, onDeleted }: { meet: Meet; onDeleted: () => void }) {
+/** `athletes` is the team's roster, offered for entering; the page reads it. */
+export function MeetDetail({ meet, athletes, onDeleted }: { meet: Meet; athletes: Athlete[]; onDeleted: () => void }) {
   const [editing, setEditing] = useState(false);
   const [confirmDelete, setConfirmDelete] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
   const [athleteId, setAthleteId] = useState('');
-  const roster = useQuery(athleteListOptions({ q: '', includeArchived: false, sort: 'name' }));
   const add = useAddEntry(meet.id);
   const remove = useDeleteMeet();
   const entered = new Set(meet.entries.map((e) => e.athlete.id));
-  const free = (roster.data?.items ?? []).filter((a) => !entered.has(a.id));
+  const free = athletes.filter((a) => !entered.has(a.id));
 
   return (
     <section aria-label={meet.name} className="flex flex-col gap-4">

@@ -5,7 +5,7 @@ import { meetBody, type Meet, type MeetBody } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useCreateMeet, useUpdateMeet } from '../api/use-save-meet';
 
@@ -34,8 +34,9 @@ export function MeetForm({ meet, onSaved }: { meet: Meet | null; onSaved: (m: Me
           : await create.mutateAsync(values),
       );
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        onSaved(err.body.current as Meet, err.message);
+      const theirs = staleSaveCurrent<Meet>(err);
+      if (theirs && isApiError(err)) {
+        onSaved(theirs, err.message);
         return;
       }
       applyFieldErrors(err, form.setError);

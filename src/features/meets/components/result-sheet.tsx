@@ -1,6 +1,7 @@
 // The printable result sheet of a meet: every lifter's attempts, best lifts, total, DOTS and GL points,
 // by class, heaviest total first. Printing (or saving as PDF) uses the print styles: no navigation, no buttons.
 import { AGE_GROUP_LABELS, MEET_LIFTS } from '../../../../shared/calc';
+import { SEX_LABEL } from '../../../../shared/labels';
 import type { MeetDay } from '../../../../shared/schemas';
 import { ATTEMPT_NAME, LIFT_NAME, lifterView, points } from './day-model';
 import { dateText } from './when';
@@ -72,7 +73,7 @@ export function ResultSheet({ day }: { day: MeetDay }) {
                 <th scope="row" className="py-1 pr-2 font-semibold">
                   {v.entry.athlete.name}
                   <span className="block text-xs font-normal text-ink-600">
-                    {v.entry.athlete.sex === 'F' ? 'Women' : 'Men'}
+                    {SEX_LABEL[v.entry.athlete.sex]}
                     {v.entry.ageGroup ? ` · ${AGE_GROUP_LABELS[v.entry.ageGroup]}` : ''}
                   </span>
                 </th>

@@ -3,7 +3,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { LogTopSetBody, LoggedTopSet } from '../../../../shared/schemas';
 import { sendOrQueue } from '../../../lib/offline-queue';
-import { historyKeys } from '../../history/api/queries';
+import { historyKeys } from '../../../lib/query-keys';
 import { currentAthleteId, myWeekKeys } from './queries';
 
 export function useLogTopSet() {

@@ -4,7 +4,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useCallback, useRef, useState } from 'react';
 import { VIDEO_FIELD, type ApiErrorBody, type Video } from '../../../../shared/schemas';
 import { ApiError } from '../../../lib/api-client';
-import { historyKeys } from '../../history/api/queries';
+import { historyKeys } from '../../../lib/query-keys';
 import { myWeekKeys } from './queries';
 
 export class UploadCancelled extends Error {

@@ -1,5 +1,6 @@
 // Bodyweight: the day's reading, the weight class it falls in, and a caution when the gain in the last
 // week before a meet passes the team's line (common practice, not a rule).
+import { DIVISION_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -14,8 +15,6 @@ import { isApiError } from '../../../lib/api-client';
 import { useLogBodyweight } from '../api/use-log-bodyweight';
 
 type FormValues = BodyweightFormValues;
-
-const DIVISION_LABEL = { open: 'open', junior: 'junior', subjunior: 'sub-junior' } as const;
 
 function signed(kg: number, unit: WeightUnit): string {
   const text = formatWeight(Math.abs(kg), unit, { decimals: 1 });
@@ -75,7 +74,7 @@ export function BodyweightCard({
           </dd>
         </div>
         <div className="rounded-md bg-chalk-100 px-3 py-2">
-          <dt className="text-sm text-ink-600">Weight class ({DIVISION_LABEL[bw.division]})</dt>
+          <dt className="text-sm text-ink-600">Weight class ({DIVISION_LABEL[bw.division].toLowerCase()})</dt>
           <dd className="font-semibold text-ink-900" data-testid="weight-class">
             {bw.weightClass ? `${bw.weightClass} kg` : '—'}
             {bw.enteredClass && bw.enteredClass !== bw.weightClass ? (

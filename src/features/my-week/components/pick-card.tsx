@@ -1,19 +1,23 @@
 // One max-effort pick of the week: the variant and scheme, last time and record, the warm-up with
 // plates, and the log form.
+import { LIFT_NAME } from '../../../../shared/labels';
 import { Suspense, lazy, useState } from 'react';
-import { formatWeight, fromKg, roundToLoadable, type WeightUnit } from '../../../../shared/calc';
-import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
+import { formatWeight, fromKg, roundToLoadable, suggestedTopSet, type WeightUnit } from '../../../../shared/calc';
+import type { MyWeekPick, Scheme, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
-import { SCHEME_LABEL, suggestedTopSet } from '../lib/top-set-math';
 import { WarmupRamp } from './warmup-ramp';
 
 // The forms (and the validation library they bring) load after the pick is on screen.
 const TopSetForm = lazy(() => import('./top-set-form').then((m) => ({ default: m.TopSetForm })));
 const VideoUpload = lazy(() => import('./video-upload').then((m) => ({ default: m.VideoUpload })));
-const formLoading = <p className="text-sm text-ink-600">Loading the form…</p>;
+const SCHEME_LABEL: Readonly<Record<Scheme, string>> = {
+  single: 'Work up to a top single',
+  triple: 'Work up to a top triple',
+  five: 'Work up to a top five',
+};
 
-const LIFT_LABEL = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' } as const;
+const formLoading = <p className="text-sm text-ink-600">Loading the form…</p>;
 
 function setText(s: TopSet, unit: WeightUnit): string {
   return `${s.reps} × ${formatWeight(s.weightKg, unit, { decimals: 1 })}${s.rpe ? ` @ RPE ${s.rpe}` : ''}`;
@@ -36,7 +40,7 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
     >
       <header className="flex flex-col gap-1">
         <p className="text-sm font-semibold uppercase tracking-wide text-rust-600">
-          {pick.slotLabel} · {LIFT_LABEL[pick.variant.lift]}
+          {pick.slotLabel} · {LIFT_NAME[pick.variant.lift]}
         </p>
         <h2 id={headingId} className="text-2xl font-bold leading-tight text-ink-900">
           {pick.variant.name}
@@ -56,7 +60,7 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
               <span className="block text-sm font-normal text-ink-700" data-testid="opening-range">
                 Suggested start: {formatWeight(pick.opening.low, unit, { decimals: 1 })} –{' '}
                 {formatWeight(pick.opening.high, unit, { decimals: 1 })} (an estimate from your{' '}
-                {LIFT_LABEL[pick.variant.lift].toLowerCase()}; work up by feel)
+                {LIFT_NAME[pick.variant.lift].toLowerCase()}; work up by feel)
               </span>
             ) : null}
           </dd>

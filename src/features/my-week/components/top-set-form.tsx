@@ -3,7 +3,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { RPE_VALUES, formatWeight, type WeightUnit } from '../../../../shared/calc';
+import { RPE_VALUES, formatWeight, liveEstimate, type WeightUnit } from '../../../../shared/calc';
 import {
   logTopSetBody,
   type LogTopSetBody,
@@ -18,7 +18,6 @@ import { CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { useLogTopSet } from '../api/use-log-top-set';
-import { liveEstimate } from '../lib/top-set-math';
 import { VIDEO_ACCEPT, VideoUpload } from './video-upload';
 
 type FormValues = LogTopSetBody;
@@ -44,7 +43,13 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
   const { errors } = form.formState;
   const [weight, reps, rpe] = useWatch({ control: form.control, name: ['weight', 'reps', 'rpe'] });
   const typedRpe = String(rpe ?? '').trim() === '' ? null : Number(String(rpe).replace(',', '.'));
-  const live = liveEstimate(Number(String(weight ?? '').replace(',', '.')), Number(reps), unit, pick.record, typedRpe);
+  const live = liveEstimate(
+    Number(String(weight ?? '').replace(',', '.')),
+    Number(reps),
+    unit,
+    pick.record.bestE1rm?.e1rmKg,
+    typedRpe,
+  );
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {

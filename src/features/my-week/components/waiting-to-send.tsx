@@ -5,7 +5,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '../../../components/ui/button';
 import { discardQueued, flushQueue, useQueuedWrites } from '../../../lib/offline-queue';
 import { useOnline } from '../../../lib/use-online';
-import { historyKeys } from '../../history/api/queries';
+import { historyKeys } from '../../../lib/query-keys';
 import { myWeekKeys } from '../api/queries';
 
 const RETRY_MS = 20_000;

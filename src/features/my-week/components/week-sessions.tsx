@@ -1,6 +1,7 @@
 // The week's sessions on the phone: today's first, then the rest in the order of the week, each one
 // folded open or shut; speed sets and accessory sets are counted as they are done, and a session is
 // marked done with one tap.
+import { LIFT_NAME } from '../../../../shared/labels';
 import { useState } from 'react';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import {
@@ -17,7 +18,6 @@ import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { useLogSession } from '../api/use-log-session';
 
-const LIFT = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' } as const;
 const ACCOMMODATION = { none: '', bands: ' + bands', chains: ' + chains' } as const;
 
 /** Today's session first, then the rest of the week in order. */
@@ -132,7 +132,7 @@ function SessionCard({
         {session.speed ? (
           <div className="flex flex-col gap-2">
             <p className="text-ink-800">
-              <span className="font-semibold">Speed:</span> {LIFT[session.speed.lift]} {session.speed.sets} ×{' '}
+              <span className="font-semibold">Speed:</span> {LIFT_NAME[session.speed.lift]} {session.speed.sets} ×{' '}
               {session.speed.reps} at {session.speed.pct} % of your training max
               {session.speed.barKg !== null
                 ? ` · ${formatWeight(session.speed.barKg, unit, { decimals: 1 })} on the bar${ACCOMMODATION[session.speed.accommodation]}`

@@ -1,19 +1,23 @@
 // The coach's review panel on an athlete's page: connective-tissue suggestions and pain flags, recent
-// check-ins, top-set videos to watch and comment on, and the e1RM and bodyweight charts.
+// check-ins, top-set videos to watch and comment on, then the history the page composes in (charts).
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import { jointName } from '../../../../shared/engine/words';
-import { videoCommentBody, type Video, type VideoCommentBody } from '../../../../shared/schemas';
+import type { ReactNode } from 'react';
+import {
+  videoCommentBody,
+  type AthleteReview as AthleteReviewData,
+  type Video,
+  type VideoCommentBody,
+} from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { TextAreaField } from '../../../components/ui/field';
 import { CleanIcon, WarningIcon } from '../../../components/ui/icons';
 import { Loading, Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
-import { useMe } from '../../auth/api/queries';
-import { LiftCharts } from '../../history/components/lift-charts';
-import { VariantHistory } from '../../history/components/variant-history';
+import { useMe } from '../../../lib/me';
 import { useAthleteReview } from '../api/queries';
 import { useAddComment } from '../api/use-add-comment';
 
@@ -90,7 +94,10 @@ function VideoCard({ video, athleteId, unit }: { video: Video; athleteId: number
   );
 }
 
-export function AthleteReview({ athleteId }: { athleteId: number }) {
+/** What the review shows below the videos: the athlete's charts and records, composed by the page. */
+export type ReviewHistory = (data: Pick<AthleteReviewData, 'series' | 'variants'>, unit: WeightUnit) => ReactNode;
+
+export function AthleteReview({ athleteId, history }: { athleteId: number; history: ReviewHistory }) {
   const { data, error } = useAthleteReview(athleteId);
   const unit: WeightUnit = useMe().data?.unit ?? 'kg';
   if (error) return <Notice tone="error">{error.message}</Notice>;
@@ -176,8 +183,7 @@ export function AthleteReview({ athleteId }: { athleteId: number }) {
         )}
       </section>
 
-      <LiftCharts series={data.series} unit={unit} />
-      <VariantHistory variants={data.variants} unit={unit} athleteId={athleteId} />
+      {history(data, unit)}
     </section>
   );
 }

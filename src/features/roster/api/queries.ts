@@ -3,25 +3,9 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import type { Athlete, AthleteHistory, LinkableAccount, ListResponse, VariantFacets } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
+import { athleteKeys, type RosterFilters } from '../../../lib/query-keys';
 
-export interface RosterFilters {
-  q: string;
-  includeArchived: boolean;
-  sort: string;
-}
-
-export const athleteKeys = {
-  all: ['athletes'] as const,
-  lists: () => [...athleteKeys.all, 'list'] as const,
-  list: (f: RosterFilters) => [...athleteKeys.lists(), f] as const,
-  details: () => [...athleteKeys.all, 'detail'] as const,
-  detail: (id: number) => [...athleteKeys.details(), id] as const,
-  histories: () => [...athleteKeys.all, 'history'] as const,
-  history: (id: number) => [...athleteKeys.histories(), id] as const,
-  accounts: () => [...athleteKeys.all, 'accounts'] as const,
-  /** The library's families, offered by the restrictions form. */
-  families: () => [...athleteKeys.all, 'families'] as const,
-};
+export type { RosterFilters };
 
 export function rosterFiltersFromSearch(params: URLSearchParams): RosterFilters {
   return {

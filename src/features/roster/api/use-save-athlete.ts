@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { Athlete, AthleteBody, AthletePatchBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { athleteKeys } from './queries';
+import { athleteKeys } from '../../../lib/query-keys';
 
 async function afterWrite(queryClient: QueryClient, athlete: Athlete, accountsChanged: boolean) {
   queryClient.setQueryData(athleteKeys.detail(athlete.id), athlete);

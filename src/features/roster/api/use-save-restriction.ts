@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Restriction, RestrictionBody, RestrictionPatchBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { athleteKeys } from './queries';
+import { athleteKeys } from '../../../lib/query-keys';
 
 function useRefresh(athleteId: number) {
   const queryClient = useQueryClient();

@@ -5,9 +5,9 @@ import { useQuery } from '@tanstack/react-query';
 import { useForm } from 'react-hook-form';
 import { athleteBody, type Athlete, type AthleteBody } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { accountsOptions } from '../api/queries';
 import { useCreateAthlete, useUpdateAthlete } from '../api/use-save-athlete';
@@ -55,8 +55,9 @@ export function AthleteProfileForm({
         : await create.mutateAsync(values);
       onSaved(saved);
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current && onConflict) {
-        onConflict(err.body.current as Athlete, err.message);
+      const theirs = staleSaveCurrent<Athlete>(err);
+      if (theirs && isApiError(err) && onConflict) {
+        onConflict(theirs, err.message);
         return;
       }
       applyFieldErrors(err, form.setError);
@@ -85,11 +86,7 @@ export function AthleteProfileForm({
           {...form.register('birthYear', { setValueAs: optionalNumber })}
         />
         <SelectField label="Division" error={errors.division?.message} {...form.register('division')}>
-          {(Object.keys(DIVISION_LABEL) as (keyof typeof DIVISION_LABEL)[]).map((d) => (
-            <option key={d} value={d}>
-              {DIVISION_LABEL[d]}
-            </option>
-          ))}
+          <LabelledOptions labels={DIVISION_LABEL} />
         </SelectField>
         <SelectField
           label="Heaviest risk allowed"
@@ -98,11 +95,7 @@ export function AthleteProfileForm({
           {...form.register('maxRisk', { setValueAs: optionalNumber })}
         >
           <option value="">No ceiling</option>
-          {([1, 2, 3] as const).map((r) => (
-            <option key={r} value={r}>
-              {MAX_RISK_LABEL[r]}
-            </option>
-          ))}
+          <LabelledOptions labels={MAX_RISK_LABEL} />
         </SelectField>
       </div>
       <SelectField

@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { equipmentListSchema, type Athlete } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { useUpdateAthlete } from '../api/use-save-athlete';
 import { Panel } from './panel';
 
@@ -31,7 +31,8 @@ export function EquipmentPanel({
     try {
       await update.mutateAsync({ id: athlete.id, body: { equipment, version: athlete.version } });
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) onConflict(err.body.current as Athlete, err.message);
+      const theirs = staleSaveCurrent<Athlete>(err);
+      if (theirs && isApiError(err)) onConflict(theirs, err.message);
     }
   });
   return (

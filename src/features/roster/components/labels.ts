@@ -1,16 +1,16 @@
 // How roster values read on screen.
 import { weekOfDate, weeksBetween } from '../../../../shared/engine/weeks';
+import { RISK_WORD } from '../../../../shared/labels';
 export { restrictionText } from '../../../../shared/planning/words';
 
 /** The heaviest risk tier the planner may pick for an athlete, as the roster reads it. */
 export const MAX_RISK_LABEL = {
-  1: 'Risk 1 · low only',
-  2: 'Up to risk 2 · moderate',
-  3: 'Up to risk 3 · high',
+  1: `Risk 1 · ${RISK_WORD[1]} only`,
+  2: `Up to risk 2 · ${RISK_WORD[2]}`,
+  3: `Up to risk 3 · ${RISK_WORD[3]}`,
 } as const;
 export const maxRiskText = (m: 1 | 2 | 3 | null) => (m === null ? 'No ceiling' : MAX_RISK_LABEL[m]);
-export const DIVISION_LABEL = { open: 'Open', junior: 'Junior', subjunior: 'Sub-junior' } as const;
-export const SEX_LABEL = { M: 'Men', F: 'Women' } as const;
+export { DIVISION_LABEL } from '../../../../shared/labels';
 export const STRESS_CAP = ['0 · no load at all', '1 · light load only', '2 · up to moderate', '3 · any load'] as const;
 
 export const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);

@@ -7,7 +7,7 @@ import { jointName, weeks } from '../../../../shared/engine/words';
 import { athleteRuleOverridesSchema, type Athlete, type TeamRules } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useUpdateAthlete } from '../api/use-save-athlete';
 import { capital } from './labels';
@@ -61,8 +61,9 @@ export function OverridesPanel({
     try {
       await update.mutateAsync({ id: athlete.id, body: { ruleOverrides: clean(values), version: athlete.version } });
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        onConflict(err.body.current as Athlete, err.message);
+      const theirs = staleSaveCurrent<Athlete>(err);
+      if (theirs && isApiError(err)) {
+        onConflict(theirs, err.message);
         return;
       }
       applyFieldErrors(err, form.setError, (f) => f.replace(/^ruleOverrides\./, ''));

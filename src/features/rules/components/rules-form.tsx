@@ -1,5 +1,6 @@
 // The head coach's rules: max-effort slots, rotation windows, joint budgets, taper steps, the bodyweight
 // caution, connective-tissue settings and the gym's equipment, each with what its value does beside it.
+import { LIFT_LABEL, RISK_LABEL } from '../../../../shared/labels';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useController, useFieldArray, useForm, useWatch, type Control, type UseFormReturn } from 'react-hook-form';
@@ -8,16 +9,15 @@ import { jointName, weeks } from '../../../../shared/engine/words';
 import { teamRulesBody, type TeamRulesBody, type TeamRulesDoc } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
-import { SelectField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useSaveRules } from '../api/use-save-rules';
 import { RuleRow, RuleSection } from './rule-row';
 import { SessionsSection } from './sessions-section';
 
 type Form = UseFormReturn<TeamRulesBody>;
-const LIFT_WORD = { squat: 'squat', bench: 'bench', deadlift: 'deadlift' } as const;
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const num = (v: unknown) => (v === '' || v === null || v === undefined ? Number.NaN : Number(v));
 const optionalNum = (v: unknown) => (v === '' || v === null || v === undefined ? undefined : Number(v));
@@ -41,8 +41,8 @@ export function RulesForm({ doc }: { doc: TeamRulesDoc }) {
       form.reset(toValues(next));
       setNotice({ tone: 'success', text: 'The rules are saved. The board uses them from its next fill.' });
     } catch (err) {
-      if (isApiError(err, 409) && err.body?.current) {
-        const theirs = err.body.current as TeamRulesDoc;
+      const theirs = staleSaveCurrent<TeamRulesDoc>(err);
+      if (theirs && isApiError(err)) {
         setSaved(theirs);
         form.reset(toValues(theirs));
         setNotice({ tone: 'error', text: err.message });
@@ -116,7 +116,7 @@ function Slots({ form, savedIds }: { form: Form; savedIds: Set<string> }) {
             key={f.id}
             effect={
               lifts.length
-                ? `Every week each athlete gets one ${lifts.map((l) => LIFT_WORD[l]).join(' or ')} variant in “${slot?.label || 'this slot'}”.`
+                ? `Every week each athlete gets one ${lifts.map((l) => LIFT_LABEL[l].toLowerCase()).join(' or ')} variant in “${slot?.label || 'this slot'}”.`
                 : 'Pick at least one lift: the slot takes only variants of the lifts ticked.'
             }
           >
@@ -361,9 +361,7 @@ function Taper({ form }: { form: Form }) {
                 error={e?.[i]?.maxRisk?.message}
                 {...form.register(`rules.taper.${i}.maxRisk`, { setValueAs: num })}
               >
-                <option value={1}>1 · low</option>
-                <option value={2}>2 · moderate</option>
-                <option value={3}>3 · high</option>
+                <LabelledOptions labels={RISK_LABEL} />
               </SelectField>
               <TextField
                 label="Min. specificity"

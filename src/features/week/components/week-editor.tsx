@@ -27,7 +27,7 @@ import {
   type WeekSession,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextField } from '../../../components/ui/field';
+import { LabelledOptions, SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { accessorySuggestionOptions, weekAccessoryLibraryOptions } from '../api/queries';
@@ -130,11 +130,7 @@ function Accessories({
                   />
                 </div>
                 <SelectField label="Category" {...register(`${base}.${i}.category`)}>
-                  {ACCESSORY_CATEGORIES.map((c) => (
-                    <option key={c} value={c}>
-                      {ACCESSORY_CATEGORY_LABELS[c]}
-                    </option>
-                  ))}
+                  <LabelledOptions labels={ACCESSORY_CATEGORY_LABELS} values={ACCESSORY_CATEGORIES} />
                 </SelectField>
               </>
             ) : null}

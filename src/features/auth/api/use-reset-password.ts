@@ -2,8 +2,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ResetPasswordBody } from '../../../../shared/schemas';
 import { api } from '../../../lib/api-client';
-import { authKeys } from '../../auth/api/queries';
-import { passwordResetKeys } from './queries';
+import { authKeys } from '../../../lib/query-keys';
+import { passwordResetKeys } from './reset-link';
 
 export function useResetPassword() {
   const queryClient = useQueryClient();

@@ -1,0 +1,29 @@
+// How the trade's values read on screen: one definition of each word, for the client and the server.
+import type { Division, Sex } from './calc/classes';
+import type { Lift } from './engine/types';
+
+/** The short lift names of the library, the board and the history lists. */
+export const LIFT_LABEL: Record<Lift, string> = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' };
+/** The full competition lift names of training days and meets. */
+export const LIFT_NAME: Record<Lift, string> = { squat: 'Squat', bench: 'Bench press', deadlift: 'Deadlift' };
+
+/** A variant's risk tier in one word, and as the library lists it ("2 · moderate"). */
+export const RISK_WORD: Record<1 | 2 | 3, string> = { 1: 'low', 2: 'moderate', 3: 'high' };
+export const RISK_LABEL: Record<1 | 2 | 3, string> = {
+  1: `1 · ${RISK_WORD[1]}`,
+  2: `2 · ${RISK_WORD[2]}`,
+  3: `3 · ${RISK_WORD[3]}`,
+};
+
+/** A risk ceiling, as the board's library filter offers it. */
+export const RISK_CEILING_LABEL: Record<1 | 2 | 3, string> = {
+  1: `${RISK_WORD[1].charAt(0).toUpperCase()}${RISK_WORD[1].slice(1)} only`,
+  2: `Up to ${RISK_WORD[2]}`,
+  3: `Up to ${RISK_WORD[3]}`,
+};
+
+/** Joint stress 0–3 of a variant or an accessory. */
+export const STRESS_LABEL = ['0 · none', '1 · light', '2 · moderate', '3 · heavy'] as const;
+
+export const DIVISION_LABEL: Record<Division, string> = { open: 'Open', junior: 'Junior', subjunior: 'Sub-junior' };
+export const SEX_LABEL: Record<Sex, string> = { M: 'Men', F: 'Women' };
