@@ -1,5 +1,6 @@
 // The roster's contracts: athletes (with equipment, a linked account and rule overrides), their
 // restrictions, and the read-only history of picks, top sets and bodyweights on the Athlete page.
+import type { Sex } from '../calc/classes';
 import { z } from 'zod';
 import { idParam, isoDate, isoWeek, listQuery, versionField } from './common';
 import { booleanQuery, emphasisSchema, optionalQueryText, optionalText, sortParam } from './library';
@@ -188,7 +189,7 @@ export interface AthleteAccount {
 export interface Athlete {
   id: number;
   name: string;
-  sex: 'M' | 'F';
+  sex: Sex;
   birthYear: number | null;
   division: z.infer<typeof divisionSchema>;
   maxRisk: 1 | 2 | 3 | null;

@@ -1,4 +1,5 @@
 // Videos of top sets and the coaches' comments on them, and the coach's review of one athlete.
+import type { Division, Sex } from '../calc/classes';
 import { z } from 'zod';
 import type { TissueSuggestion } from '../engine/tissue';
 import type { Series, TissueCheckinRow, TopSet, VariantHistory } from './training';
@@ -33,7 +34,7 @@ export interface Video {
 }
 
 export interface AthleteReview {
-  athlete: { id: number; name: string; sex: 'M' | 'F'; division: 'open' | 'junior' | 'subjunior' };
+  athlete: { id: number; name: string; sex: Sex; division: Division };
   week: string;
   /** Restrictions to consider, from pain flagged in recent check-ins. */
   suggestions: TissueSuggestion[];

@@ -1,12 +1,14 @@
 // The invented demo club and its people. Every name here is made up for the demo.
+import type { Division, Sex } from '../../../shared/calc';
+
 export const DEMO_PASSWORD = 'rackturn-demo';
 
 export interface DemoAthlete {
   key: string;
   name: string;
-  sex: 'M' | 'F';
+  sex: Sex;
   birthYear: number;
-  division: 'open' | 'junior' | 'subjunior';
+  division: Division;
   /** The heaviest risk tier the planner may pick; absent: no ceiling. */
   maxRisk?: 1 | 2 | 3;
   email?: string;

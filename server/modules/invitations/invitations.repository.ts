@@ -1,4 +1,5 @@
 // SQL for invitations: the team's list, token look-ups, and the rows an acceptance creates.
+import type { Sex } from '../../../shared/calc';
 import { and, asc, desc, eq, gt, isNotNull, isNull, lte, notExists, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/mysql-core';
 import type { Queryable } from '../../db/client';
@@ -183,7 +184,7 @@ export async function athleteHasPendingInvitation(db: Queryable, athleteId: numb
 }
 
 /** A roster entry for an invited athlete who is not on the roster yet, with the gym's equipment. */
-export async function insertRosterEntry(db: Queryable, teamId: number, name: string, sex: 'M' | 'F') {
+export async function insertRosterEntry(db: Queryable, teamId: number, name: string, sex: Sex) {
   const [rules] = await db
     .select({ equipment: teamRules.equipment })
     .from(teamRules)

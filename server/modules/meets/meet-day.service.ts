@@ -1,6 +1,7 @@
 // Meet day: the live state of every entered athlete, marks (idempotent by key, one result per attempt,
 // checked against the federation's attempt rules), the weigh-in against the class limit, the usual jumps,
 // and writing the results into the athletes' histories once the meet is over.
+import type { Sex } from '../../../shared/calc';
 import type { z } from 'zod';
 import {
   ACCOMMODATION_EQUIPMENT,
@@ -23,6 +24,7 @@ import {
   weightClass,
   type MeetLift,
 } from '../../../shared/calc';
+import { LIFT_NAME } from '../../../shared/labels';
 import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
 import { isDuplicateKey } from '../../db/errors';
@@ -34,7 +36,8 @@ import * as meetsRepo from './meets.repository';
 import * as repo from './meet-day.repository';
 import { checkWeightClass } from './meets.service';
 
-const LIFT_WORD: Record<MeetLift, string> = { squat: 'squat', bench: 'bench press', deadlift: 'deadlift' };
+/** The lift's full name inside a sentence ("the second bench press"). */
+const liftWord = (lift: MeetLift) => LIFT_NAME[lift].toLowerCase();
 const ORDINAL = ['', 'first', 'second', 'third'] as const;
 
 function attemptDto(r: repo.AttemptRow): DayAttempt {
@@ -127,7 +130,7 @@ function sameMark(row: repo.AttemptRow, body: z.output<typeof markBody>) {
 }
 
 function alreadyMarked(row: repo.AttemptRow, name = 'another coach') {
-  const what = `${ORDINAL[row.attemptNo]} ${LIFT_WORD[row.lift]}`;
+  const what = `${ORDINAL[row.attemptNo]} ${liftWord(row.lift)}`;
   return new ConflictError(
     `The ${what} attempt was already marked ${row.result} at ${Number(row.weightKg)} kg by ${name}. It counts once; check the board before marking again.`,
     markResult(row, false).attempt,
@@ -170,7 +173,7 @@ export async function mark(
       const taken = done.find((a) => a.attemptNo === body.attemptNo);
       if (taken) throw alreadyMarked(taken);
       if (body.attemptNo > done.length + 1) {
-        throw new ValidationError(`Mark the ${ORDINAL[done.length + 1]} ${LIFT_WORD[body.lift]} attempt first.`, {
+        throw new ValidationError(`Mark the ${ORDINAL[done.length + 1]} ${liftWord(body.lift)} attempt first.`, {
           attemptNo: [`The ${ORDINAL[done.length + 1]} attempt is not marked yet`],
         });
       }
@@ -234,7 +237,7 @@ export async function undoMark(
   });
 }
 
-function classProblem(bodyweightKg: number, label: string, sex: 'M' | 'F', division: DayEntry['division']) {
+function classProblem(bodyweightKg: number, label: string, sex: Sex, division: DayEntry['division']) {
   const limit = classLimitKg(label);
   if (limit !== null && bodyweightKg > limit) {
     return `Over the ${label} kg class limit: ${bodyweightKg} kg at the weigh-in. A lifter must weigh at most the class limit; enter the ${weightClass(bodyweightKg, sex, { division })} kg class or weigh in again.`;
@@ -345,12 +348,12 @@ export async function saveResults(
           variantId: variant.id,
           weightKg: best,
           performedOn: meet.date,
-          note: `Best ${LIFT_WORD[lift]} at ${meet.name}`,
+          note: `Best ${liftWord(lift)} at ${meet.name}`,
         });
       }
     }
     if (missing.size) {
-      const lifts = [...missing].map((l) => LIFT_WORD[l]).join(', ');
+      const lifts = [...missing].map((l) => liftWord(l)).join(', ');
       throw new ValidationError(`Add a straight-bar competition variant (specificity 1) for: ${lifts}.`, {
         meet: [`The library has no competition variant for ${lifts}`],
       });

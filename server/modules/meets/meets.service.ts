@@ -1,7 +1,7 @@
 // Meets: who competes, in which weight class and division (checked against the federation's classes),
 // and the attempt plans, with each entry's latest bodyweight and current max beside it.
 import type { z } from 'zod';
-import { WEIGHT_CLASSES, weightClass } from '../../../shared/calc';
+import { WEIGHT_CLASSES, weightClass, type Division, type Sex } from '../../../shared/calc';
 import { addWeeks, mondayOf, weekOfDate } from '../../../shared/engine/weeks';
 import {
   CURRENT_MAX_MIN_SPECIFICITY,
@@ -21,6 +21,7 @@ import type {
   meetListQuery,
   meetPatchBody,
 } from '../../../shared/schemas/meets';
+import { DIVISION_LABEL, SEX_LABEL } from '../../../shared/labels';
 import type { Queryable } from '../../db/client';
 import type { AppContext } from '../../context';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
@@ -28,14 +29,11 @@ import { findAthlete, latestBodyweights, todayIso } from '../athletes/athletes.s
 import { isDuplicateKey } from '../../db/errors';
 import * as repo from './meets.repository';
 
-type Division = 'open' | 'junior' | 'subjunior';
-const DIVISION_WORDS: Record<Division, string> = { open: 'open', junior: 'junior', subjunior: 'sub-junior' };
-
-export function checkWeightClass(label: string | null | undefined, sex: 'M' | 'F', division: Division) {
+export function checkWeightClass(label: string | null | undefined, sex: Sex, division: Division) {
   if (!label) return;
   const allowed = WEIGHT_CLASSES[sex][division];
   if (!allowed.includes(label)) {
-    const who = `${DIVISION_WORDS[division]} ${sex === 'F' ? 'women' : 'men'}`;
+    const who = `${DIVISION_LABEL[division]} ${SEX_LABEL[sex]}`.toLowerCase();
     throw new ValidationError('Some fields need attention.', {
       weightClass: [`Not a weight class for ${who}: use ${allowed.join(', ')}`],
     });
