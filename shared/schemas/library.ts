@@ -136,8 +136,8 @@ export interface VariantNarrowing {
   risk: '' | '1' | '2' | '3';
 }
 
-export const libraryVariantSchema = z.object({
-  id: z.number(),
+/** What describes a variant to the engine and on every screen: the library, the board and the demo. */
+export const variantTraitsSchema = z.object({
   name: z.string(),
   lift: liftSchema,
   family: z.string(),
@@ -148,8 +148,13 @@ export const libraryVariantSchema = z.object({
   risk: riskSchema,
   specificity: z.number(),
   scheme: schemeSchema,
-  notes: z.string().nullable(),
   meetPhaseWeeks: z.number().nullable(),
+});
+export type VariantTraits = z.infer<typeof variantTraitsSchema>;
+
+export const libraryVariantSchema = variantTraitsSchema.extend({
+  id: z.number(),
+  notes: z.string().nullable(),
   archived: z.boolean(),
   /** Used by a plan entry or a top set: deleting it archives it instead. */
   inHistory: z.boolean(),

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import type { Emphasis, Joint, RiskTier, RuleId } from '../engine/types';
 import { isIsoWeek, weeksBetween } from '../engine/weeks';
 import { idParam, isoWeek, listQuery, type ListResponse } from './common';
+import type { VariantTraits } from './library';
 import type { AthleteRuleOverrides, TeamRules } from './rules';
 
 export const planSourceSchema = z.enum(['engine', 'coach']);
@@ -159,20 +160,8 @@ export interface PlanHistoryRow {
 export type PlanList = ListResponse<PlanEntryDto>;
 export type PlanHistoryList = ListResponse<PlanHistoryRow>;
 
-export interface BoardVariant {
+export interface BoardVariant extends VariantTraits {
   id: number;
-  name: string;
-  lift: 'squat' | 'bench' | 'deadlift';
-  family: string;
-  bar: string;
-  equipment: string[];
-  emphasis: 'bottom' | 'midRange' | 'lockout';
-  stress: Partial<Record<Joint, number>>;
-  risk: 1 | 2 | 3;
-  specificity: number;
-  scheme: 'single' | 'triple' | 'five';
-  /** Only for the last N weeks before a meet; null: any week. */
-  meetPhaseWeeks: number | null;
   archived: boolean;
 }
 

@@ -10,19 +10,11 @@
 //   usually done with a mixed grip, whose under-hand arm loads the elbow (biceps), so they carry elbow 1.
 // - Reverse bands unload the bottom of the bench and leave the most load at the top: lockout emphasis.
 // - Opener singles rehearse the first attempt and belong to the last weeks before a meet: meetPhaseWeeks 3.
+import type { VariantTraits } from '../../../shared/schemas';
 import type { StressMap } from '../schema';
 
-export interface DemoVariant {
-  name: string;
-  lift: 'squat' | 'bench' | 'deadlift';
-  family: string;
-  bar: string;
-  equipment: string[];
-  emphasis: 'bottom' | 'midRange' | 'lockout';
+export interface DemoVariant extends Omit<VariantTraits, 'stress' | 'meetPhaseWeeks'> {
   stress: StressMap;
-  risk: 1 | 2 | 3;
-  specificity: number;
-  scheme: 'single' | 'triple' | 'five';
   notes?: string;
   /** Only for the last N weeks before a meet. */
   meetPhaseWeeks?: number;

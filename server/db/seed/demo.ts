@@ -55,23 +55,9 @@ export async function insertLibrary(
   teamId: number,
   library: DemoVariant[],
 ): Promise<Map<string, number>> {
-  await tx.insert(variants).values(
-    library.map((v) => ({
-      teamId,
-      name: v.name,
-      lift: v.lift,
-      family: v.family,
-      bar: v.bar,
-      equipment: v.equipment,
-      emphasis: v.emphasis,
-      stress: v.stress,
-      risk: v.risk,
-      specificity: v.specificity,
-      scheme: v.scheme,
-      notes: v.notes ?? null,
-      meetPhaseWeeks: v.meetPhaseWeeks ?? null,
-    })),
-  );
+  await tx
+    .insert(variants)
+    .values(library.map((v) => ({ teamId, ...v, notes: v.notes ?? null, meetPhaseWeeks: v.meetPhaseWeeks ?? null })));
   const rows = await tx
     .select({ id: variants.id, name: variants.name })
     .from(variants)

@@ -24,6 +24,7 @@ import {
   type AthleteRow,
 } from './plans.repository';
 import { isoDay } from '../../lib/days';
+import { variantTraits } from '../variants/variants.service';
 
 export interface Today {
   day: string;
@@ -49,21 +50,7 @@ export interface Planning extends PlanningFacts {
 }
 
 function boardVariant(v: Awaited<ReturnType<typeof teamVariants>>[number]): BoardVariant {
-  return {
-    id: v.id,
-    name: v.name,
-    lift: v.lift,
-    family: v.family,
-    bar: v.bar,
-    equipment: v.equipment,
-    emphasis: v.emphasis,
-    stress: v.stress,
-    risk: v.risk as 1 | 2 | 3,
-    specificity: Number(v.specificity),
-    scheme: v.scheme,
-    meetPhaseWeeks: v.meetPhaseWeeks,
-    archived: v.archivedAt !== null,
-  };
+  return { id: v.id, ...variantTraits(v), archived: v.archivedAt !== null };
 }
 
 /**

@@ -1,5 +1,18 @@
 // SQL for the team's exercise library. Every function takes the caller's teamId.
-import { and, asc, desc, eq, inArray, isNull, like, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
+import {
+  and,
+  asc,
+  desc,
+  eq,
+  getTableColumns,
+  inArray,
+  isNull,
+  like,
+  or,
+  sql,
+  type AnyColumn,
+  type SQL,
+} from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
 import { containsPattern } from '../../db/patterns';
 import { variants } from '../../db/schema';
@@ -15,27 +28,7 @@ const inHistory = sql<number>`(exists(select 1 from plan_entries pe where pe.var
   or exists(select 1 from top_sets ts where ts.variant_id = variants.id))`;
 
 function columns() {
-  return {
-    id: variants.id,
-    teamId: variants.teamId,
-    name: variants.name,
-    lift: variants.lift,
-    family: variants.family,
-    bar: variants.bar,
-    equipment: variants.equipment,
-    emphasis: variants.emphasis,
-    stress: variants.stress,
-    risk: variants.risk,
-    specificity: variants.specificity,
-    scheme: variants.scheme,
-    notes: variants.notes,
-    meetPhaseWeeks: variants.meetPhaseWeeks,
-    archivedAt: variants.archivedAt,
-    version: variants.version,
-    createdAt: variants.createdAt,
-    updatedAt: variants.updatedAt,
-    inHistory,
-  };
+  return { ...getTableColumns(variants), inHistory };
 }
 
 const toRow = (r: Omit<VariantRow, 'inHistory'> & { inHistory: number | string | boolean }): VariantRow => ({

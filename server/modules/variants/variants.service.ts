@@ -13,18 +13,20 @@ import {
   type VariantDeleteResult,
   type VariantFacets,
   type VariantListFilters,
+  type VariantTraits,
   type VariantValues as VariantInput,
 } from '../../../shared/schemas';
 import type { Queryable } from '../../db/client';
+import type { variants } from '../../db/schema';
 import type { AppContext } from '../../context';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import { buildLibraryCsv, parseLibraryCsv } from './variants.csv';
 import { driverMessage, isDuplicateKey, isStillReferenced } from '../../db/errors';
 import * as repo from './variants.repository';
 
-export function toVariantDto(r: repo.VariantRow): LibraryVariant {
+/** A variant's traits from its row, as the library, the board and the engine's request read them. */
+export function variantTraits(r: typeof variants.$inferSelect): VariantTraits {
   return {
-    id: r.id,
     name: r.name,
     lift: r.lift,
     family: r.family,
@@ -35,8 +37,15 @@ export function toVariantDto(r: repo.VariantRow): LibraryVariant {
     risk: r.risk as 1 | 2 | 3,
     specificity: Number(r.specificity),
     scheme: r.scheme,
-    notes: r.notes,
     meetPhaseWeeks: r.meetPhaseWeeks,
+  };
+}
+
+export function toVariantDto(r: repo.VariantRow): LibraryVariant {
+  return {
+    id: r.id,
+    ...variantTraits(r),
+    notes: r.notes,
     archived: r.archivedAt !== null,
     inHistory: r.inHistory,
     version: r.version,
