@@ -5,7 +5,13 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useController, useForm, type Control } from 'react-hook-form';
 import { JOINTS } from '../../../../shared/engine/types';
-import { variantBody, type LibraryVariant, type VariantBody, type VariantFacets } from '../../../../shared/schemas';
+import {
+  variantBody,
+  variantTraitsSchema,
+  type LibraryVariant,
+  type VariantBody,
+  type VariantFacets,
+} from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
 import { LabelledOptions, SelectField, TextAreaField, TextField } from '../../../components/ui/field';
@@ -31,19 +37,11 @@ const blank: VariantBody = {
 };
 
 function valuesOf(v: LibraryVariant): VariantBody {
+  // The traits, without the library's bookkeeping (id, version, archived…): zod leaves unknown keys out.
   return {
-    name: v.name,
-    lift: v.lift,
-    family: v.family,
-    bar: v.bar,
-    equipment: v.equipment,
-    emphasis: v.emphasis,
+    ...variantTraitsSchema.parse(v),
     stress: Object.fromEntries(JOINTS.map((j) => [j, v.stress[j] ?? 0])),
-    risk: v.risk,
-    specificity: v.specificity,
-    scheme: v.scheme,
     notes: v.notes ?? '',
-    meetPhaseWeeks: v.meetPhaseWeeks,
   };
 }
 
