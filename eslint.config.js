@@ -11,15 +11,18 @@ import { dirname, relative, resolve, sep } from 'node:path';
 const nodeOnly = [...builtinModules, ...builtinModules.map((m) => `node:${m}`)];
 
 // The door of a client feature: a file in src/features/<x>/ imports only src/components/ui, src/lib,
-// shared/, packages and src/features/<x>/ itself. Composing features is the job of src/app/.
+// shared/, packages and src/features/<x>/ itself. Composing features is the job of src/app/; components/ and
+// lib/ never import a feature or the app.
 export function featureDoorViolation(cwd, filename, spec) {
   if (!spec.startsWith('.')) return null;
   const from = relative(cwd, filename).split(sep).join('/');
-  const own = /^src\/features\/([^/]+)\//.exec(from);
-  if (!own) return null;
   const to = relative(cwd, resolve(dirname(filename), spec))
     .split(sep)
     .join('/');
+  // The shared client pieces sit below every feature: they never reach up into a feature or the app.
+  if (/^src\/(components|lib)\//.test(from)) return /^src\/(features|app)\//.test(`${to}/`) ? to : null;
+  const own = /^src\/features\/([^/]+)\//.exec(from);
+  if (!own) return null;
   const allowed = [`src/features/${own[1]}/`, 'src/components/ui/', 'src/lib/', 'shared/'];
   return allowed.some((dir) => `${to}/`.startsWith(dir)) ? null : to;
 }

@@ -81,6 +81,16 @@ describe('import boundaries', () => {
     expect(files('src/features').length).toBeGreaterThan(50);
   });
 
+  it('src/lib and src/components never import a feature or the app', () => {
+    const bad = [...files('src/lib'), ...files('src/components')].flatMap((f) =>
+      importsOf(f)
+        .filter((s) => s.startsWith('.'))
+        .filter((s) => /^src\/(features|app)\//.test(`${relative(ROOT, resolve(join(ROOT, dirname(f)), s))}/`))
+        .map((s) => `${f} → ${s}`),
+    );
+    expect(bad).toEqual([]);
+  });
+
   it('the checker itself sees imports of each form', () => {
     // Guards against a regex that silently matches nothing.
     expect(importsOf('tests/lint/boundaries.test.ts')).toEqual(
@@ -135,6 +145,24 @@ describe('the linter guards the doors of client features', () => {
       'src/features/library/components/x.ts',
     );
     expect(found).toEqual([]);
+  });
+
+  it('reports src/lib or components/ui reaching up into a feature or the app', async () => {
+    const fromLib = await messagesOf(
+      "import { myWeekKeys } from '../features/my-week/api/queries';\nexport const x = myWeekKeys;\n",
+      'src/lib/x.ts',
+    );
+    const fromUi = await messagesOf(
+      "import { guards } from '../../app/guards';\nexport const y = guards;\n",
+      'src/components/ui/x.tsx',
+    );
+    expect(fromLib.map((m) => m.message)).toEqual([expect.stringContaining('src/features/my-week/api/queries')]);
+    expect(fromUi).toHaveLength(1);
+    const allowed = await messagesOf(
+      "import { api } from './api-client';\nimport { Button } from '../components/ui/button';\nexport const z = [api, Button];\n",
+      'src/lib/x.ts',
+    );
+    expect(allowed).toEqual([]);
   });
 
   it('lets src/app compose features', async () => {
