@@ -153,6 +153,38 @@ describe('GET /api/events', () => {
     expect(mate.events.filter((e) => e.athleteId !== mateId)).toEqual([]);
   });
 
+  it("a plan run reaches the coaches' boards, and a training-week save (a deload) the athlete's page", async () => {
+    const coach = await subscribe(base1, await cookieOf(one, team.headCoach.email));
+    const athlete = await subscribe(base1, await cookieOf(one, team.athleteUser.email));
+    const coachAgent = await one.signIn(team.coach.email);
+    const db = one.ctx.database.db;
+    for (const lift of ['squat', 'bench', 'deadlift'] as const) {
+      for (let i = 0; i < 3; i++) await createVariant(db, team.teamId, { lift, family: `${lift} family ${i}` });
+    }
+    const run = await coachAgent.post('/api/plans/generate').send({ weeks: 'next', athleteIds: [team.athleteId] });
+    expect(run.status, JSON.stringify(run.body)).toBe(200);
+    expect(run.body.changes.length, JSON.stringify(run.body)).toBeGreaterThan(0);
+    const next = addWeeks(week, 1);
+    await expect
+      .poll(() => coach.events.find((e) => about(team.athleteId, 'plan')(e) && e.weeks.includes(next)), {
+        timeout: 5_000,
+      })
+      .toBeTruthy();
+    const later = addWeeks(week, 2);
+    const saved = await coachAgent
+      .put(`/api/athletes/${team.athleteId}/weeks/${later}`)
+      .send({ version: 0, deload: true, trainingMaxPct: 85, sessions: {} });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    await expect
+      .poll(() => athlete.events.find((e) => about(team.athleteId, 'plan')(e) && e.weeks.includes(later)), {
+        timeout: 5_000,
+      })
+      .toBeTruthy();
+    // The deload's rest-week mark was written with the week.
+    const rest = await coachAgent.get(`/api/athletes/${team.athleteId}/weeks/${later}`);
+    expect(rest.body.deload).toBe(true);
+  });
+
   it('a write on one app instance reaches a subscriber of another', async () => {
     const athleteOnTwo = await subscribe(base2, await cookieOf(two, team.athleteUser.email));
     const coachOnOne = await one.signIn(team.headCoach.email);

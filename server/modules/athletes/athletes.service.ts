@@ -306,8 +306,8 @@ export async function markRestWeek(
   auth: AuthContext,
   athleteId: number,
   week: string,
+  db: Queryable = ctx.database.db,
 ): Promise<{ created: boolean; item: RestWeek }> {
-  const db = ctx.database.db;
   await mustFind(db, auth.teamId, athleteId);
   mustBePlannable(week);
   const before = await repo.findRestWeek(db, auth.teamId, athleteId, week);
@@ -316,8 +316,13 @@ export async function markRestWeek(
   return { created: !before, item: { athleteId, week, createdAt: row.createdAt.toISOString() } };
 }
 
-export async function unmarkRestWeek(ctx: AppContext, teamId: number, athleteId: number, week: string) {
-  const db = ctx.database.db;
+export async function unmarkRestWeek(
+  ctx: AppContext,
+  teamId: number,
+  athleteId: number,
+  week: string,
+  db: Queryable = ctx.database.db,
+) {
   await mustFind(db, teamId, athleteId);
   mustBePlannable(week);
   if (!(await repo.deleteRestWeek(db, teamId, athleteId, week))) throw new NotFoundError('That rest week');

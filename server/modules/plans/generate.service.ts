@@ -15,6 +15,7 @@ import type { z } from 'zod';
 import type { Db } from '../../db/client';
 import type { AuthContext } from '../../middleware/auth';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
+import { publishChange } from '../events/events.service';
 import { loadPlanning, today } from './plans.context';
 import { entryDtos } from './plans.dto';
 import {
@@ -218,6 +219,12 @@ export async function generate(db: Db, auth: AuthContext, body: Body): Promise<G
       teamId,
       written.map((w) => w.id),
     );
+    // Open boards (and, once published, athletes' pages) hear which athletes and weeks the run changed.
+    const changedWeeks = new Map<number, Set<string>>();
+    for (const r of saved) changedWeeks.set(r.athleteId, (changedWeeks.get(r.athleteId) ?? new Set()).add(r.week));
+    for (const [athleteId, weeksChanged] of changedWeeks) {
+      await publishChange(tx, { teamId, athleteId, topic: 'plan', weeks: [...weeksChanged] });
+    }
     const dtos = new Map((await entryDtos(tx, saved)).map((d) => [d.id, d]));
     const weeks = [...new Set(jobs.flatMap((j) => j.weeks))].sort();
     return {

@@ -31,7 +31,9 @@ import type { Queryable } from '../../db/client';
 import { isDuplicateKey } from '../../db/errors';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { AuthContext } from '../../middleware/auth';
+import { inTransaction } from '../../db/transaction';
 import { markRestWeek, unmarkRestWeek } from '../athletes/athletes.service';
+import { publishChange } from '../events/events.service';
 import { closeLiftSetsOf } from '../meets/meets.service';
 import { readRulesOfTeam } from '../tissue/tissue.service';
 import { withLibraryAccessories } from './accessory-rotation.service';
@@ -185,27 +187,30 @@ export async function putAthleteWeek(
     work,
     updatedBy: auth.userId,
   };
-  let ok: boolean;
-  if (body.version === 0) {
-    try {
-      await repo.insertAthleteWeek(db, key, values);
-      ok = true;
-    } catch (err) {
-      if (!isDuplicateKey(err)) throw err;
-      ok = false;
+  // The week, its rest-week mark and the live event are one write: all of it lands or none.
+  const ok = await inTransaction(db, async (tx) => {
+    if (body.version === 0) {
+      try {
+        await repo.insertAthleteWeek(tx, key, values);
+      } catch (err) {
+        if (!isDuplicateKey(err)) throw err;
+        return false;
+      }
+    } else if (!(await repo.updateAthleteWeek(tx, key, body.version, values))) {
+      return false;
     }
-  } else {
-    ok = await repo.updateAthleteWeek(db, key, body.version, values);
-  }
+    // A deload week is a rest week for max effort: the rest-week mark follows (both are safe to repeat).
+    if (deloadChanged) {
+      if (body.deload) await markRestWeek(ctx, auth, athleteId, week, tx);
+      else
+        await unmarkRestWeek(ctx, teamId, athleteId, week, tx).catch((err: unknown) => {
+          if (!(err instanceof NotFoundError)) throw err;
+        });
+    }
+    await publishChange(tx, { teamId, athleteId, topic: 'plan', weeks: [week] });
+    return true;
+  });
   if (!ok) throw new ConflictError(STALE, await getAthleteWeek(ctx, teamId, athleteId, week));
-  // A deload week is a rest week for max effort: the rest-week mark follows (both are safe to repeat).
-  if (deloadChanged) {
-    if (body.deload) await markRestWeek(ctx, auth, athleteId, week);
-    else
-      await unmarkRestWeek(ctx, teamId, athleteId, week).catch((err: unknown) => {
-        if (!(err instanceof NotFoundError)) throw err;
-      });
-  }
   return getAthleteWeek(ctx, teamId, athleteId, week);
 }
 
