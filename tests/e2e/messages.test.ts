@@ -1,7 +1,8 @@
 // Messages end to end: the athlete asks a question from My week on a phone, a coach sees it among the
 // notices and answers from the board cell's details with a link to that cell, the athlete reads the
 // answer, and the link opens the cell on the Board. Each screen on the way has no axe-core violations.
-// Then live updates: the athlete's open My week shows the coach's next reply without a reload.
+// Then live updates: the athlete's open My week shows the coach's next reply, and a pick the coach swaps on
+// the published week, without a reload.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
 import { request } from 'playwright-core';
@@ -124,6 +125,49 @@ describe('messages between an athlete and the coaches', () => {
       expect(await page.evaluate(() => (window as unknown as { liveMark?: number }).liveMark)).toBe(1);
     } finally {
       await api.dispose();
+    }
+    expect(athlete.problems).toEqual([]);
+  });
+
+  it("the athlete's open My week shows a pick the coach swaps, without a reload", async () => {
+    const page = athlete.page;
+    await page.goto(`${athlete.baseUrl}/my-week`);
+    const [[cell]] = (await db.query(
+      `SELECT pe.version, pe.variant_id AS variantId, pe.source, pe.pinned, v.name FROM plan_entries pe
+         JOIN variants v ON v.id = pe.variant_id WHERE pe.athlete_id = ? AND pe.week = ? AND pe.slot_id = ?`,
+      [noorId, thisWeek, slotId],
+    )) as unknown as [{ version: number; variantId: number; source: string; pinned: number; name: string }[]];
+    const main = page.getByRole('main');
+    await main.getByText(cell!.name, { exact: true }).first().waitFor();
+    await page.evaluate(() => ((window as unknown as { liveMark: number }).liveMark = 2));
+
+    const api = await request.newContext({ baseURL: athlete.baseUrl, extraHTTPHeaders: { Origin: athlete.baseUrl } });
+    let version = cell!.version;
+    try {
+      expect(
+        (await api.post('/api/auth/login', { data: { email: 'coach@rackturn.test', password: DEMO_PASSWORD } })).ok(),
+      ).toBe(true);
+      // A variant the server says fits this cell (the demo's history moves with the date).
+      const fits = (await (await api.get(`/api/plans/${noorId}/${thisWeek}/${slotId}/alternatives`)).json()) as {
+        items: { variantId: number; name: string; status: string; current: boolean }[];
+      };
+      const swap = fits.items.find((i) => i.status !== 'break' && !i.current);
+      expect(swap).toBeDefined();
+      const saved = await api.put(`/api/plans/${noorId}/${thisWeek}/${slotId}`, {
+        data: { variantId: swap!.variantId, version, reason: 'Elbow: a kinder press this week' },
+      });
+      expect(saved.status(), await saved.text()).toBe(200);
+      version += 1;
+      await main.getByText(swap!.name, { exact: true }).first().waitFor({ timeout: 15_000 });
+      await expect(main.getByText(cell!.name, { exact: true }).count()).resolves.toBe(0);
+      expect(await page.evaluate(() => (window as unknown as { liveMark?: number }).liveMark)).toBe(2);
+    } finally {
+      // The week goes back as it was, for the tests after this one.
+      const back = await api.put(`/api/plans/${noorId}/${thisWeek}/${slotId}`, {
+        data: { variantId: cell!.variantId, version, source: cell!.source, pinned: Boolean(cell!.pinned) },
+      });
+      await api.dispose();
+      expect(back.status()).toBe(200);
     }
     expect(athlete.problems).toEqual([]);
   });
