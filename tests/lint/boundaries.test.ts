@@ -100,7 +100,8 @@ describe('import boundaries', () => {
   });
 });
 
-describe('the linter guards the doors of client features', () => {
+// ESLint loads the TypeScript parser and every plugin on first use: seconds on a busy machine.
+describe('the linter guards the doors of client features', { timeout: 60_000 }, () => {
   const eslint = new ESLint({ cwd: ROOT });
   const messagesOf = async (code: string, filePath: string) => {
     const [result] = await eslint.lintText(code, { filePath: join(ROOT, filePath) });
