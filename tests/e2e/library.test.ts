@@ -52,8 +52,9 @@ describe('Library', () => {
     await page.waitForURL(/q=spoto/);
     const rows = page.getByRole('table', { name: 'Variants of the library' }).getByRole('row');
     await rows.filter({ hasText: name }).waitFor();
-    // Header row and the new variant only.
-    await expect.poll(() => rows.count()).toBe(2);
+    // Header row and the new variant only, once the filtered list has come (the new variant shows in the
+    // unfiltered one too, so the wait above passes before it).
+    await expect.poll(() => rows.count(), { timeout: 10_000 }).toBe(2);
     const row = rows.filter({ hasText: name });
     await expect(row.textContent()).resolves.toMatch(/Bench.*spoto press.*2 · moderate.*0\.85/);
     await expect(row.getByText('Shoulder 2, elbow 1').count()).resolves.toBe(1);
