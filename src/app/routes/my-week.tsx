@@ -42,11 +42,6 @@ export function Component() {
   const requested = weekParam(search);
   const { data, error } = useMyWeek(requested);
   const queryClient = useQueryClient();
-  const nextWeek = data && !requested && !data.fromCache ? addWeeks(data.week, 1) : null;
-  // Next week read once too, so the phone keeps it for a gym without signal.
-  useEffect(() => {
-    if (nextWeek) void queryClient.prefetchQuery(myWeekQueryOptions(nextWeek));
-  }, [queryClient, nextWeek]);
   const { data: me } = useMe();
   // The picks go on screen first; the rest of the page (and the code and requests it starts) a frame
   // later, so that work never holds the picks back on a slow phone. Then the service worker may fetch
@@ -64,6 +59,11 @@ export function Component() {
       clearTimeout(timer);
     };
   }, [shown]);
+  // Next week read once too (after the picks are shown), so the phone keeps it for a gym without signal.
+  const nextWeek = rest && data && !requested && !data.fromCache ? addWeeks(data.week, 1) : null;
+  useEffect(() => {
+    if (nextWeek) void queryClient.prefetchQuery(myWeekQueryOptions(nextWeek));
+  }, [queryClient, nextWeek]);
   if (error) return <Notice tone="error">{error.message}</Notice>;
   if (!data) return <Loading />;
   const isCurrent = !requested;
