@@ -1,6 +1,7 @@
 // How the trade's values read on screen: one definition of each word, for the client and the server.
 import type { Division, Sex } from './calc/classes';
 import type { Lift } from './engine/types';
+import type { AccessoryCategory, SessionPart } from './schemas/week';
 
 /** The short lift names of the library, the board and the history lists. */
 export const LIFT_LABEL: Record<Lift, string> = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' };
@@ -27,3 +28,26 @@ export const STRESS_LABEL = ['0 · none', '1 · light', '2 · moderate', '3 · h
 
 export const DIVISION_LABEL: Record<Division, string> = { open: 'Open', junior: 'Junior', subjunior: 'Sub-junior' };
 export const SEX_LABEL: Record<Sex, string> = { M: 'Men', F: 'Women' };
+
+/** The parts of a training session, as the rules and My week name them. */
+export const SESSION_PART_LABELS: Readonly<Record<SessionPart, string>> = {
+  maxEffort: 'Max effort',
+  speed: 'Speed',
+  supplemental: 'Supplemental',
+  accessories: 'Accessories',
+  tissue: 'Connective-tissue work',
+};
+
+export const WEEKDAY_LABELS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
+
+/** Accessory categories, as the library and My week list them. */
+export const ACCESSORY_CATEGORY_LABELS: Readonly<Record<AccessoryCategory, string>> = {
+  upperBack: 'Upper back',
+  lats: 'Lats',
+  triceps: 'Triceps',
+  hamstrings: 'Hamstrings',
+  abdominals: 'Abdominals',
+  grip: 'Grip',
+  glutes: 'Glutes',
+  shoulders: 'Shoulders',
+};

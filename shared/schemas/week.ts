@@ -4,17 +4,11 @@ import { z } from 'zod';
 import { ACCOMMODATIONS, LOAD_PCT_MAX, LOAD_PCT_MIN, isValidRpe } from '../calc';
 import { isoWeek } from './common';
 
+// The words for these live with the other labels (no validation code with them, for the phone's first load).
+export { ACCESSORY_CATEGORY_LABELS, SESSION_PART_LABELS, WEEKDAY_LABELS } from '../labels';
+
 export const SESSION_PARTS = ['maxEffort', 'speed', 'supplemental', 'accessories', 'tissue'] as const;
 export type SessionPart = (typeof SESSION_PARTS)[number];
-export const SESSION_PART_LABELS: Readonly<Record<SessionPart, string>> = {
-  maxEffort: 'Max effort',
-  speed: 'Speed',
-  supplemental: 'Supplemental',
-  accessories: 'Accessories',
-  tissue: 'Connective-tissue work',
-};
-
-export const WEEKDAY_LABELS = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
 
 export const ACCESSORY_CATEGORIES = [
   'upperBack',
@@ -27,16 +21,6 @@ export const ACCESSORY_CATEGORIES = [
   'shoulders',
 ] as const;
 export type AccessoryCategory = (typeof ACCESSORY_CATEGORIES)[number];
-export const ACCESSORY_CATEGORY_LABELS: Readonly<Record<AccessoryCategory, string>> = {
-  upperBack: 'Upper back',
-  lats: 'Lats',
-  triceps: 'Triceps',
-  hamstrings: 'Hamstrings',
-  abdominals: 'Abdominals',
-  grip: 'Grip',
-  glutes: 'Glutes',
-  shoulders: 'Shoulders',
-};
 
 const sessionId = z
   .string()

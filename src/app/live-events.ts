@@ -40,19 +40,39 @@ export function useLiveEvents(role: Role | undefined): void {
   const queryClient = useQueryClient();
   useEffect(() => {
     if (!role || typeof EventSource === 'undefined') return;
-    const source = new EventSource('/api/events');
-    let opened = false;
-    source.addEventListener('open', () => {
-      if (opened) invalidateAll(queryClient, role);
-      opened = true;
-    });
-    source.addEventListener('change', (m) => {
-      try {
-        invalidateFor(queryClient, role, JSON.parse((m as MessageEvent<string>).data) as LiveEvent);
-      } catch {
-        // A malformed event is ignored; the next one or a reconnect brings the page up to date.
-      }
-    });
-    return () => source.close();
+    // Opened once the first screen has had its turn (an idle moment, at most a few seconds): on a slow
+    // phone the stream's request would otherwise go out before the page's own content is shown.
+    let source: EventSource | null = null;
+    let closed = false;
+    const open = () => {
+      if (!closed) source = listen(queryClient, role);
+    };
+    const idle =
+      typeof window.requestIdleCallback === 'function'
+        ? window.requestIdleCallback(open, { timeout: 3000 })
+        : window.setTimeout(open, 500);
+    return () => {
+      closed = true;
+      if (typeof window.cancelIdleCallback === 'function') window.cancelIdleCallback(idle);
+      else window.clearTimeout(idle);
+      source?.close();
+    };
   }, [queryClient, role]);
+}
+
+function listen(queryClient: QueryClient, role: Role): EventSource {
+  const source = new EventSource('/api/events');
+  let opened = false;
+  source.addEventListener('open', () => {
+    if (opened) invalidateAll(queryClient, role);
+    opened = true;
+  });
+  source.addEventListener('change', (m) => {
+    try {
+      invalidateFor(queryClient, role, JSON.parse((m as MessageEvent<string>).data) as LiveEvent);
+    } catch {
+      // A malformed event is ignored; the next one or a reconnect brings the page up to date.
+    }
+  });
+  return source;
 }

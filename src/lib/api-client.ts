@@ -1,11 +1,5 @@
 // The one way the client talks to the API: JSON in, JSON out, failures as a typed ApiError.
-import {
-  apiErrorBodySchema,
-  csvImportErrorSchema,
-  staleSaveErrorSchema,
-  type ApiErrorBody,
-  type CsvProblem,
-} from '../../shared/schemas';
+import type { ApiErrorBody } from '../../shared/schemas';
 import { takeEarly } from './early-requests';
 
 export class ApiError extends Error {
@@ -65,8 +59,11 @@ export async function apiWithDate<T>(path: string, opts: RequestOptions = {}): P
     /* not JSON: handled below */
   }
   if (!res.ok) {
-    const decoded = apiErrorBodySchema.safeParse(data);
-    const err = decoded.success ? decoded.data.error : undefined;
+    // The contracts (and the validation library) load only now, so they stay out of every page's first code.
+    const err = await import('./api-refusals').then(
+      (m) => m.decodeErrorBody(data),
+      () => null,
+    );
     throw new ApiError(
       res.status,
       err?.code ?? 'http_error',
@@ -80,21 +77,4 @@ export async function apiWithDate<T>(path: string, opts: RequestOptions = {}): P
 
 export function isApiError(err: unknown, status?: number): err is ApiError {
   return err instanceof ApiError && (status === undefined || err.status === status);
-}
-
-/**
- * The stored row a save refused as stale (409) carries — the other person's edit — or null for any other
- * failure. The body's shape is checked here; the row's type is the one the caller saved.
- */
-export function staleSaveCurrent<Row extends object>(err: unknown): Row | null {
-  if (!isApiError(err, 409)) return null;
-  const parsed = staleSaveErrorSchema.safeParse(err.body);
-  return parsed.success ? (parsed.data.current as Row) : null;
-}
-
-/** The problems, row by row, of a CSV import the server refused; null for any other failure. */
-export function refusedCsvRows(err: unknown): CsvProblem[] | null {
-  if (!isApiError(err)) return null;
-  const parsed = csvImportErrorSchema.safeParse(err.body);
-  return parsed.success ? parsed.data.rows : null;
 }

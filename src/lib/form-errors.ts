@@ -1,6 +1,7 @@
 // Puts the server's field errors (`{ fields: { "stress.elbow": [...] } }`) on the matching form fields.
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { isApiError, staleSaveCurrent } from './api-client';
+import { isApiError } from './api-client';
+import { staleSaveCurrent } from './api-refusals';
 
 /** True when at least one field error was placed; the caller shows anything else as a notice. */
 export function applyFieldErrors<T extends FieldValues>(

@@ -6,6 +6,7 @@ import mysql from 'mysql2/promise';
 import { request } from 'playwright-core';
 import { formatWeight } from '../../shared/calc';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import { axeViolations } from './support/axe';
 import { DEMO_PASSWORD, openBrowser, signInAs, type Browser } from './support/browser';
 
 const thisWeek = weekOfDate(new Date());
@@ -173,6 +174,52 @@ describe('My week on a phone', () => {
     const width = await b.page.evaluate(() => document.documentElement.scrollWidth);
     expect(width).toBeLessThanOrEqual(375);
     await b.page.screenshot({ path: '.tmp/e2e-my-week-sessions-375.png', fullPage: true });
+  });
+
+  it('opens the check-in and the bodyweight form on demand: focus moves in, Escape closes, typing is kept', async () => {
+    const page = b.page;
+    /** The name of the form the focus is in. */
+    const focusedForm = () =>
+      page.evaluate(() => document.activeElement?.closest('form')?.getAttribute('aria-label') ?? null);
+    const checkin = page.locator('section', { has: page.getByRole('heading', { name: 'Next-day check-in' }) });
+    const bodyweight = page.locator('section', { has: page.getByRole('heading', { name: 'Bodyweight', exact: true }) });
+    await bodyweight.waitFor();
+    // Shut, the forms take no room: only their buttons show.
+    await expect(bodyweight.getByRole('form', { name: 'Log bodyweight' }).count()).resolves.toBe(0);
+    const openBw = bodyweight.getByRole('button', { name: 'Log bodyweight' });
+    expect(await openBw.getAttribute('aria-expanded')).toBe('false');
+    await openBw.click();
+    const bwForm = bodyweight.getByRole('form', { name: 'Log bodyweight' });
+    await bwForm.waitFor();
+    // The focus is in the form's first field.
+    await expect.poll(focusedForm).toBe('Log bodyweight');
+    await bwForm.getByLabel(/^Weight/).fill('71.4');
+    expect(await axeViolations(page)).toEqual([]);
+    await page.keyboard.press('Escape');
+    await expect(bodyweight.getByRole('form', { name: 'Log bodyweight' }).isVisible()).resolves.toBe(false);
+    // The focus is back on the button that opened it, which opens it again with the typing kept.
+    await expect.poll(() => page.evaluate(() => document.activeElement?.textContent)).toBe('Log bodyweight');
+    await page.keyboard.press('Enter');
+    await expect(bwForm.getByLabel(/^Weight/).inputValue()).resolves.toBe('71.4');
+    await bodyweight.getByRole('button', { name: 'Close the bodyweight form' }).last().click();
+    await expect(bwForm.isVisible()).resolves.toBe(false);
+
+    // The check-in opens the same way when there is work to report on; its close button shuts it.
+    const openCheckin = checkin.getByRole('button', { name: 'Open the check-in' });
+    if ((await openCheckin.count()) > 0) {
+      await openCheckin.click();
+      const form = checkin.getByRole('form', { name: 'Next-day check-in' });
+      await form.waitFor();
+      await expect.poll(focusedForm).toBe('Next-day check-in');
+      await checkin.getByRole('button', { name: 'Close the check-in' }).last().click();
+      await expect(form.isVisible()).resolves.toBe(false);
+    }
+    // Everything shut, the page at 375 px (the figure is kept for the record, not a timed or sized goal).
+    const height = await page.evaluate(() => document.documentElement.scrollHeight);
+    console.log(`My week at 375 px, forms shut: ${height} px tall`);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(375);
+    expect(await axeViolations(page)).toEqual([]);
+    await page.screenshot({ path: '.tmp/e2e-my-week-shut-375.png', fullPage: true });
   });
 
   it('logs a top set over the record, sees the new record, then the updated chart', async () => {

@@ -1,6 +1,6 @@
 // My week (athlete, phone first): the week's max-effort picks with warm-ups and logging, connective-
 // tissue work and its check-in, bodyweight, the training caution below the picks, and the week's sessions.
-import { Suspense, lazy, useEffect } from 'react';
+import { Suspense, lazy, useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useSearchParams } from 'react-router-dom';
 import { addWeeks, mondayOf } from '../../../shared/engine/weeks';
@@ -12,9 +12,13 @@ import { PickCard } from '../../features/my-week/components/pick-card';
 import { TissueWork } from '../../features/my-week/components/tissue-work';
 import { WeekSessions } from '../../features/my-week/components/week-sessions';
 import { useMe } from '../../lib/me';
-import { MessageThread } from '../../features/messages/components/message-thread';
+import { firstScreenShown } from '../../lib/service-worker';
 import { weekParam } from './my-week.loader';
 
+// Below the picks: the thread (its request and its form) starts once the picks are on screen.
+const MessageThread = lazy(() =>
+  import('../../features/messages/components/message-thread').then((m) => ({ default: m.MessageThread })),
+);
 // Below the picks, with forms: their code (and the validation library) loads after the picks are shown.
 const CheckinForm = lazy(() =>
   import('../../features/my-week/components/checkin-form').then((m) => ({ default: m.CheckinForm })),
@@ -38,12 +42,28 @@ export function Component() {
   const requested = weekParam(search);
   const { data, error } = useMyWeek(requested);
   const queryClient = useQueryClient();
-  const nextWeek = data && !requested && !data.fromCache ? addWeeks(data.week, 1) : null;
-  // Next week read once too, so the phone keeps it for a gym without signal.
+  const { data: me } = useMe();
+  // The picks go on screen first; the rest of the page (and the code and requests it starts) a frame
+  // later, so that work never holds the picks back on a slow phone. Then the service worker may fetch
+  // the app's files for offline use.
+  const shown = data !== undefined;
+  const [rest, setRest] = useState(false);
+  useEffect(() => {
+    if (!shown) return;
+    firstScreenShown();
+    // After the frame that paints the picks, not before it.
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const frame = requestAnimationFrame(() => (timer = setTimeout(() => setRest(true))));
+    return () => {
+      cancelAnimationFrame(frame);
+      clearTimeout(timer);
+    };
+  }, [shown]);
+  // Next week read once too (after the picks are shown), so the phone keeps it for a gym without signal.
+  const nextWeek = rest && data && !requested && !data.fromCache ? addWeeks(data.week, 1) : null;
   useEffect(() => {
     if (nextWeek) void queryClient.prefetchQuery(myWeekQueryOptions(nextWeek));
   }, [queryClient, nextWeek]);
-  const { data: me } = useMe();
   if (error) return <Notice tone="error">{error.message}</Notice>;
   if (!data) return <Loading />;
   const isCurrent = !requested;
@@ -76,28 +96,34 @@ export function Component() {
         data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)
       )}
       <TrainingCaution />
-      <WeekSessions
-        sessions={data.sessions}
-        week={data.week}
-        today={data.today}
-        editable={mondayOf(data.week).toISOString().slice(0, 10) <= data.today}
-        unit={data.unit}
-        picks={data.picks}
-        deload={data.deload}
-      />
-      {me?.athleteId ? (
-        <MessageThread
-          athleteId={me.athleteId}
-          week={data.week}
-          side="athlete"
-          slotLabels={Object.fromEntries(data.picks.map((p) => [p.slotId, p.slotLabel]))}
-        />
+      {rest ? (
+        <>
+          <WeekSessions
+            sessions={data.sessions}
+            week={data.week}
+            today={data.today}
+            editable={mondayOf(data.week).toISOString().slice(0, 10) <= data.today}
+            unit={data.unit}
+            picks={data.picks}
+            deload={data.deload}
+          />
+          {me?.athleteId ? (
+            <Suspense fallback={<Loading />}>
+              <MessageThread
+                athleteId={me.athleteId}
+                week={data.week}
+                side="athlete"
+                slotLabels={Object.fromEntries(data.picks.map((p) => [p.slotId, p.slotLabel]))}
+              />
+            </Suspense>
+          ) : null}
+          <TissueWork tissue={data.tissue} />
+          <Suspense fallback={<Loading />}>
+            <CheckinForm weeks={data.checkins} thisWeek={data.week} />
+            <BodyweightCard bodyweight={data.bodyweight} unit={data.unit} today={data.today} meet={data.meet} />
+          </Suspense>
+        </>
       ) : null}
-      <TissueWork tissue={data.tissue} />
-      <Suspense fallback={<Loading />}>
-        <CheckinForm weeks={data.checkins} thisWeek={data.week} />
-        <BodyweightCard bodyweight={data.bodyweight} unit={data.unit} today={data.today} meet={data.meet} />
-      </Suspense>
     </div>
   );
 }

@@ -1,7 +1,8 @@
 // Error bodies are decoded once, in the API client: a refusal becomes a typed ApiError, a stale save's
 // stored row and an import's row problems are read through their schemas, anything else is left out.
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { ApiError, api, refusedCsvRows, staleSaveCurrent } from '../../../src/lib/api-client';
+import { ApiError, api } from '../../../src/lib/api-client';
+import { refusedCsvRows, staleSaveCurrent } from '../../../src/lib/api-refusals';
 
 function answer(status: number, body: string) {
   vi.stubGlobal('fetch', async () => new Response(body, { status, headers: { 'Content-Type': 'application/json' } }));

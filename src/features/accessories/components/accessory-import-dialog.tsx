@@ -6,7 +6,7 @@ import { detectCsvDelimiter, readAccessoryTable, type CsvProblem } from '../../.
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { Notice } from '../../../components/ui/page';
-import { refusedCsvRows } from '../../../lib/api-client';
+import { refusedCsvRows } from '../../../lib/api-refusals';
 import { useImportAccessories } from '../api/use-import-accessories';
 
 function ProblemList({ problems }: { problems: CsvProblem[] }) {

@@ -13,7 +13,8 @@ import { Button } from '../../../components/ui/button';
 import { TextAreaField, TextField } from '../../../components/ui/field';
 import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { Notice } from '../../../components/ui/page';
-import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
+import { isApiError } from '../../../lib/api-client';
+import { staleSaveCurrent } from '../../../lib/api-refusals';
 import { useSavePlan } from '../api/use-save-plan';
 
 const FIELDS = ['name', 'price', 'description'] as const;

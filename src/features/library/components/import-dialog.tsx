@@ -14,7 +14,8 @@ import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { BreakIcon, CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
-import { isApiError, refusedCsvRows } from '../../../lib/api-client';
+import { isApiError } from '../../../lib/api-client';
+import { refusedCsvRows } from '../../../lib/api-refusals';
 import { useImportLibrary } from '../api/use-import-library';
 
 const PREVIEW_ROWS = 50;

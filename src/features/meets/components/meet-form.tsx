@@ -5,7 +5,8 @@ import { meetBody, type Meet, type MeetBody } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
+import { isApiError } from '../../../lib/api-client';
+import { staleSaveCurrent } from '../../../lib/api-refusals';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { useCreateMeet, useUpdateMeet } from '../api/use-save-meet';
 

@@ -6,6 +6,7 @@ import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import { bodyweightForm, type BodyweightFormValues, type BodyweightState } from '../../../../shared/schemas';
+import { OnDemand } from './on-demand';
 import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
@@ -110,33 +111,35 @@ export function BodyweightCard({
           {formatWeight(bw.thresholdKg, unit, { decimals: 1 })} in 7 days (common practice, not a rule).
         </p>
       ) : null}
-      <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Log bodyweight">
-        {save.data?.sent ? <Notice tone="success">Bodyweight saved.</Notice> : null}
-        {save.data && !save.data.sent ? (
-          <Notice>No signal: the reading is kept on this phone and sent when you are back online.</Notice>
-        ) : null}
-        <div className="grid grid-cols-2 gap-3">
-          <TextField
-            style={TOUCH}
-            label="Day"
-            type="date"
-            max={today}
-            error={errors.measuredOn?.message}
-            {...form.register('measuredOn')}
-          />
-          <TextField
-            style={TOUCH}
-            label={`Weight (${unit})`}
-            inputMode="decimal"
-            autoComplete="off"
-            error={errors.weight?.message}
-            {...form.register('weight')}
-          />
-        </div>
-        <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
-          {form.formState.isSubmitting ? 'Saving…' : 'Save bodyweight'}
-        </Button>
-      </form>
+      <OnDemand openLabel="Log bodyweight" closeLabel="Close the bodyweight form">
+        <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Log bodyweight">
+          {save.data?.sent ? <Notice tone="success">Bodyweight saved.</Notice> : null}
+          {save.data && !save.data.sent ? (
+            <Notice>No signal: the reading is kept on this phone and sent when you are back online.</Notice>
+          ) : null}
+          <div className="grid grid-cols-2 gap-3">
+            <TextField
+              style={TOUCH}
+              label="Day"
+              type="date"
+              max={today}
+              error={errors.measuredOn?.message}
+              {...form.register('measuredOn')}
+            />
+            <TextField
+              style={TOUCH}
+              label={`Weight (${unit})`}
+              inputMode="decimal"
+              autoComplete="off"
+              error={errors.weight?.message}
+              {...form.register('weight')}
+            />
+          </div>
+          <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
+            {form.formState.isSubmitting ? 'Saving…' : 'Save bodyweight'}
+          </Button>
+        </form>
+      </OnDemand>
     </section>
   );
 }

@@ -5,6 +5,7 @@ import type { z } from 'zod';
 import { JOINTS } from '../../../../shared/engine/types';
 import { jointName } from '../../../../shared/engine/words';
 import { tissueCheckinBody, type MyWeekCheckin, type TissueCheckinBody } from '../../../../shared/schemas';
+import { OnDemand } from './on-demand';
 import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField } from '../../../components/ui/field';
@@ -68,57 +69,64 @@ export function CheckinForm({ weeks, thisWeek }: { weeks: MyWeekCheckin[]; thisW
       {open.length === 0 ? (
         <p className="text-ink-600">No connective-tissue work to report on this week or last.</p>
       ) : (
-        <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Next-day check-in">
-          {save.data?.sent ? <Notice tone="success">Check-in saved. Thank you.</Notice> : null}
-          {save.data && !save.data.sent ? (
-            <Notice>No signal: the check-in is kept on this phone and sent when you are back online.</Notice>
-          ) : null}
-          {save.error && !(isApiError(save.error) && Object.keys(save.error.fields).length) ? (
-            <Notice tone="error">{save.error.message}</Notice>
-          ) : null}
-          <SelectField style={TOUCH} label="Which week's work" error={errors.week?.message} {...form.register('week')}>
-            {open.map((w) => (
-              <option key={w.week} value={w.week}>
-                {w.week === thisWeek ? 'This week' : 'Last week'}: {TISSUE_KIND_LABEL[w.kind!].toLowerCase()}
-              </option>
-            ))}
-          </SelectField>
-          <fieldset className="flex flex-col gap-1">
-            <legend className="text-sm font-semibold text-ink-800">Soreness today (0 none … 10 worst)</legend>
-            <div className="grid grid-cols-6 gap-2 sm:grid-cols-11">
-              {SORENESS.map((n) => (
-                <label key={n} className="relative">
-                  <input type="radio" value={String(n)} className="peer sr-only" {...form.register('soreness')} />
-                  <span className="flex min-h-11 cursor-pointer items-center justify-center rounded-md border border-ink-300 bg-chalk-50 font-semibold text-ink-900 peer-checked:border-ink-900 peer-checked:bg-ink-900 peer-checked:text-chalk-50 peer-focus-visible:outline-3 peer-focus-visible:outline-rust-400">
-                    {n}
-                  </span>
-                </label>
-              ))}
-            </div>
-            {errors.soreness ? (
-              <p role="alert" className="text-sm font-medium text-breach-700">
-                {errors.soreness.message}
-              </p>
+        <OnDemand openLabel="Open the check-in" closeLabel="Close the check-in">
+          <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Next-day check-in">
+            {save.data?.sent ? <Notice tone="success">Check-in saved. Thank you.</Notice> : null}
+            {save.data && !save.data.sent ? (
+              <Notice>No signal: the check-in is kept on this phone and sent when you are back online.</Notice>
             ) : null}
-          </fieldset>
-          <fieldset className="flex flex-col gap-1">
-            <legend className="text-sm font-semibold text-ink-800">Pain at a joint (not soreness)</legend>
-            <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
-              {JOINTS.map((j) => (
-                <label key={j} className="relative">
-                  <input type="checkbox" value={j} className="peer sr-only" {...form.register('painJoints')} />
-                  <span className="flex min-h-11 cursor-pointer items-center justify-center rounded-md border border-ink-300 bg-chalk-50 px-2 font-semibold text-ink-900 peer-checked:border-breach-600 peer-checked:bg-breach-100 peer-checked:text-breach-700 peer-focus-visible:outline-3 peer-focus-visible:outline-rust-400">
-                    {jointName(j)}
-                  </span>
-                </label>
+            {save.error && !(isApiError(save.error) && Object.keys(save.error.fields).length) ? (
+              <Notice tone="error">{save.error.message}</Notice>
+            ) : null}
+            <SelectField
+              style={TOUCH}
+              label="Which week's work"
+              error={errors.week?.message}
+              {...form.register('week')}
+            >
+              {open.map((w) => (
+                <option key={w.week} value={w.week}>
+                  {w.week === thisWeek ? 'This week' : 'Last week'}: {TISSUE_KIND_LABEL[w.kind!].toLowerCase()}
+                </option>
               ))}
-            </div>
-          </fieldset>
-          <TextAreaField label="Note (optional)" rows={2} error={errors.note?.message} {...form.register('note')} />
-          <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
-            {form.formState.isSubmitting ? 'Saving…' : 'Save check-in'}
-          </Button>
-        </form>
+            </SelectField>
+            <fieldset className="flex flex-col gap-1">
+              <legend className="text-sm font-semibold text-ink-800">Soreness today (0 none … 10 worst)</legend>
+              <div className="grid grid-cols-6 gap-2 sm:grid-cols-11">
+                {SORENESS.map((n) => (
+                  <label key={n} className="relative">
+                    <input type="radio" value={String(n)} className="peer sr-only" {...form.register('soreness')} />
+                    <span className="flex min-h-11 cursor-pointer items-center justify-center rounded-md border border-ink-300 bg-chalk-50 font-semibold text-ink-900 peer-checked:border-ink-900 peer-checked:bg-ink-900 peer-checked:text-chalk-50 peer-focus-visible:outline-3 peer-focus-visible:outline-rust-400">
+                      {n}
+                    </span>
+                  </label>
+                ))}
+              </div>
+              {errors.soreness ? (
+                <p role="alert" className="text-sm font-medium text-breach-700">
+                  {errors.soreness.message}
+                </p>
+              ) : null}
+            </fieldset>
+            <fieldset className="flex flex-col gap-1">
+              <legend className="text-sm font-semibold text-ink-800">Pain at a joint (not soreness)</legend>
+              <div className="grid grid-cols-2 gap-2 sm:grid-cols-3">
+                {JOINTS.map((j) => (
+                  <label key={j} className="relative">
+                    <input type="checkbox" value={j} className="peer sr-only" {...form.register('painJoints')} />
+                    <span className="flex min-h-11 cursor-pointer items-center justify-center rounded-md border border-ink-300 bg-chalk-50 px-2 font-semibold text-ink-900 peer-checked:border-breach-600 peer-checked:bg-breach-100 peer-checked:text-breach-700 peer-focus-visible:outline-3 peer-focus-visible:outline-rust-400">
+                      {jointName(j)}
+                    </span>
+                  </label>
+                ))}
+              </div>
+            </fieldset>
+            <TextAreaField label="Note (optional)" rows={2} error={errors.note?.message} {...form.register('note')} />
+            <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
+              {form.formState.isSubmitting ? 'Saving…' : 'Save check-in'}
+            </Button>
+          </form>
+        </OnDemand>
       )}
     </section>
   );

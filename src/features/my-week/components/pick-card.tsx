@@ -6,6 +6,7 @@ import { formatWeight, fromKg, roundToLoadable, suggestedTopSet, type WeightUnit
 import type { MyWeekPick, Scheme, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
+import { OnDemand } from './on-demand';
 import { WarmupRamp } from './warmup-ramp';
 
 // The forms (and the validation library they bring) load after the pick is on screen.
@@ -25,7 +26,6 @@ function setText(s: TopSet, unit: WeightUnit): string {
 
 export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit }) {
   const [warmup, setWarmup] = useState(false);
-  const [logging, setLogging] = useState(false);
   const best = pick.record.bestE1rm;
   const suggested = best
     ? suggestedTopSet(best.e1rmKg, pick.schemeReps, unit)
@@ -125,22 +125,11 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
       <div className="flex flex-col gap-2 border-t border-ink-200 pt-4">
         <h3 className="text-lg font-semibold text-ink-900">Log the top set</h3>
         {/* Opened on demand: the page stays short on a phone until the athlete is ready to log. */}
-        <Button
-          variant={logging ? 'secondary' : 'primary'}
-          aria-expanded={logging}
-          aria-controls={`${headingId}-log`}
-          onClick={() => setLogging((l) => !l)}
-          className="self-stretch sm:self-start"
-        >
-          {logging ? 'Close the log form' : 'Open the log form'}
-        </Button>
-        {logging ? (
-          <div id={`${headingId}-log`}>
-            <Suspense fallback={formLoading}>
-              <TopSetForm pick={pick} unit={unit} />
-            </Suspense>
-          </div>
-        ) : null}
+        <OnDemand openLabel="Open the log form" closeLabel="Close the log form" primary>
+          <Suspense fallback={formLoading}>
+            <TopSetForm pick={pick} unit={unit} />
+          </Suspense>
+        </OnDemand>
       </div>
     </section>
   );

@@ -1,17 +1,10 @@
 // The week's sessions on the phone: today's first, then the rest in the order of the week, each one
 // folded open or shut; speed sets and accessory sets are counted as they are done, and a session is
 // marked done with one tap.
-import { LIFT_NAME } from '../../../../shared/labels';
+import { ACCESSORY_CATEGORY_LABELS, LIFT_NAME, SESSION_PART_LABELS, WEEKDAY_LABELS } from '../../../../shared/labels';
 import { useState } from 'react';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
-import {
-  ACCESSORY_CATEGORY_LABELS,
-  SESSION_PART_LABELS,
-  WEEKDAY_LABELS,
-  type AccessoryWork,
-  type MyWeekPick,
-  type MyWeekSession,
-} from '../../../../shared/schemas';
+import type { AccessoryWork, MyWeekPick, MyWeekSession } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';

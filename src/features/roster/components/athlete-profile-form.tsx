@@ -7,7 +7,8 @@ import { athleteBody, type Athlete, type AthleteBody } from '../../../../shared/
 import { Button } from '../../../components/ui/button';
 import { LabelledOptions, SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
-import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
+import { isApiError } from '../../../lib/api-client';
+import { staleSaveCurrent } from '../../../lib/api-refusals';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { accountsOptions } from '../api/queries';
 import { useCreateAthlete, useUpdateAthlete } from '../api/use-save-athlete';

@@ -6,7 +6,8 @@ import { z } from 'zod';
 import { equipmentListSchema, type Athlete } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { AddItemField, CheckboxGroup } from '../../../components/ui/choices';
-import { isApiError, staleSaveCurrent } from '../../../lib/api-client';
+import { isApiError } from '../../../lib/api-client';
+import { staleSaveCurrent } from '../../../lib/api-refusals';
 import { useUpdateAthlete } from '../api/use-save-athlete';
 import { Panel } from './panel';
 
