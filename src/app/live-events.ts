@@ -31,9 +31,15 @@ export function invalidateFor(queryClient: QueryClient, role: Role, e: LiveEvent
   }
 }
 
-function invalidateAll(queryClient: QueryClient, role: Role) {
+/** Asks again for everything the stream covers (only what was read before `before`, when given). */
+export function invalidateAll(queryClient: QueryClient, role: Role, before?: number) {
   const keys = role === 'athlete' ? [myWeekKeys.all, messageKeys.all] : [planKeys.all, messageKeys.all, noticeKeys.all];
-  for (const queryKey of keys) void queryClient.invalidateQueries({ queryKey });
+  for (const queryKey of keys) {
+    void queryClient.invalidateQueries({
+      queryKey,
+      ...(before === undefined ? {} : { predicate: (q) => q.state.dataUpdatedAt < before }),
+    });
+  }
 }
 
 export function useLiveEvents(role: Role | undefined): void {
@@ -61,10 +67,13 @@ export function useLiveEvents(role: Role | undefined): void {
 }
 
 function listen(queryClient: QueryClient, role: Role): EventSource {
+  const started = Date.now();
   const source = new EventSource('/api/events');
   let opened = false;
   source.addEventListener('open', () => {
-    if (opened) invalidateAll(queryClient, role);
+    // A reconnect may have missed events: everything is asked again. The first opening comes a moment after
+    // the page's data (see above): what was read before the stream began is asked again, in case it changed.
+    invalidateAll(queryClient, role, opened ? undefined : started);
     opened = true;
   });
   source.addEventListener('change', (m) => {
