@@ -124,14 +124,16 @@ describe('triggers', () => {
   it('a published pick with no top set once its week is over is a missed top set, noticed once', async () => {
     const db = t.ctx.database.db;
     const lastWeek = addWeeks(thisWeek, -1);
-    const squat = await createVariant(db, team.teamId, { lift: 'squat' });
+    const squat = await createVariant(db, team.teamId, { lift: 'squat', name: 'Missed-week box squat' });
     await createPlanEntry(db, team.teamId, team.athleteId, squat, { week: lastWeek, slotId: 'lower' });
     await publishAthleteWeek(db, team.teamId, team.athleteId, lastWeek);
     await noticeMissedTopSets(t.ctx);
     await noticeMissedTopSets(t.ctx);
     const missed = (await noticesOf(coach)).items.filter((n) => n.kind === 'top_set_missed');
     expect(missed).toHaveLength(1);
-    expect(missed[0]!.text).toMatch(new RegExp(`no top set for the lower slot in ${lastWeek}`));
+    // Named as the coach knows it: the slot's label from the team's rules and the variant.
+    expect(missed[0]!.text).toMatch(/ logged no top set for Lower max effort \(Missed-week box squat\) in /);
+    expect(missed[0]!.text.endsWith(lastWeek)).toBe(true);
   });
 });
 

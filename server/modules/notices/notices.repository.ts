@@ -10,6 +10,7 @@ import {
   planEntries,
   topSets,
   users,
+  variants,
 } from '../../db/schema';
 import type { NoticeKind } from '../../../shared/schemas';
 
@@ -168,9 +169,11 @@ export async function unloggedEntries(db: Queryable, week: string) {
       entryId: planEntries.id,
       slotId: planEntries.slotId,
       athleteName: athletes.name,
+      variantName: variants.name,
     })
     .from(planEntries)
     .innerJoin(athletes, and(eq(athletes.id, planEntries.athleteId), isNull(athletes.archivedAt)))
+    .innerJoin(variants, eq(variants.id, planEntries.variantId))
     .innerJoin(
       athleteWeekPublications,
       and(

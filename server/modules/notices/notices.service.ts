@@ -8,6 +8,7 @@ import { inTransaction } from '../../db/transaction';
 import { NotFoundError } from '../../lib/errors';
 import { appLink } from '../../lib/link-tokens';
 import { publishChange } from '../events/events.service';
+import { readRulesOfTeam } from '../tissue/tissue.service';
 import { noticeDigestMail, signDigestToken } from './digest';
 import {
   athleteName,
@@ -129,13 +130,17 @@ export async function noticeMissedTopSets(ctx: Pick<AppContext, 'database'>, now
   const db = ctx.database.db;
   const week = addWeeks(weekOfDate(now), -1);
   const rows = await unloggedEntries(db, week);
+  // Slots are named in each team's rules; read once per team.
+  const slotsOf = new Map<number, { id: string; label: string }[]>();
   for (const r of rows) {
+    if (!slotsOf.has(r.teamId)) slotsOf.set(r.teamId, (await readRulesOfTeam(db, r.teamId)).slots);
+    const slot = slotsOf.get(r.teamId)!.find((s) => s.id === r.slotId)?.label ?? r.slotId;
     await notifyCoaches(db, {
       teamId: r.teamId,
       kind: 'top_set_missed',
       athleteId: r.athleteId,
       week,
-      text: `${r.athleteName} logged no top set for the ${r.slotId} slot in ${week}`,
+      text: `${r.athleteName} logged no top set for ${slot} (${r.variantName}) in ${week}`,
       path: athletePath(r.athleteId),
       dedupeKey: `missed:${r.entryId}`,
     });
