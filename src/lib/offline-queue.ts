@@ -128,6 +128,12 @@ export function flushQueue(owner: number): Promise<number> {
   return flushing;
 }
 
+/** The owner's kept writes, oldest first, as they are now. */
+export async function queuedWritesOf(owner: number): Promise<QueuedWrite[]> {
+  await load();
+  return items.filter((w) => w.owner === owner);
+}
+
 /** Drops a write the athlete chose not to send. */
 export function discardQueued(id: string): Promise<void> {
   return remove(id);
