@@ -15,9 +15,11 @@
 //    restriction on it.
 // 3. Dose, per joint, from that joint's last prescription of the same kind and the check-in after it
 //    (a check-in carries the week of the work it reports on, not the day it was filled in):
-//    - high-rep: soreness at or over `sorenessThreshold` makes it lighter: first the band one step lighter,
-//      once at the lightest band `highRepRepStep` fewer reps (not below `highRepMinReps`). Without
-//      soreness, reps climb back by the step to `highRepReps`; the band never gets heavier by itself.
+//    - high-rep: soreness at or over `sorenessThreshold` lowers the effort, never the reps (the work is 100
+//      reps or more by definition): first the band one step lighter; once on the lightest band the reps stay
+//      and the item says to split them into easy sets with short rests, and the coach gets a suggestion to
+//      review the work. Reps never go below `highRepMinReps` (at least 100); without soreness they climb by
+//      `highRepRepStep` to `highRepReps`; the band never gets heavier by itself.
 //    - isometric pulses: seconds start at `isometricStartSeconds`, rise by `isometricStepSeconds` after a
 //      week that left no soreness, cap at `isometricMaxSeconds`; soreness steps back one step; no check-in
 //      holds the time (the pulses are harder to recover from than they feel). A gap longer than
@@ -39,6 +41,18 @@ export type BandLevel = 'lightest' | 'light' | 'medium';
 /** Band tensions, lightest first. */
 export const BAND_LEVELS: readonly BandLevel[] = ['lightest', 'light', 'medium'];
 
+/**
+ * The fewest reps high-rep work may have (common practice, no single published source: very-high-rep
+ * tendon work is 100 reps or more with the least effort; fewer reps at a harder effort is other work).
+ */
+export const HIGH_REP_FLOOR = 100;
+/**
+ * Reps per easy set when sore high-rep work on the lightest band is split, and the rest between those sets.
+ * Our choice (no published source): sets short enough to stay easy, rests short enough to keep it light work.
+ */
+export const EASY_SET_REPS = 25;
+export const EASY_SET_REST_SECONDS = '30–60';
+
 export interface TissueRules {
   /** A kind runs at most this many weeks in a row. */
   maxConsecutiveWeeks: number;
@@ -55,6 +69,7 @@ export interface TissueRules {
   /** Degrees either side of each pulse angle that it is taken to cover. */
   isometricAngleCoverDegrees: number;
   highRepReps: number;
+  /** High-rep work never has fewer reps than this; at least HIGH_REP_FLOOR. */
   highRepMinReps: number;
   highRepRepStep: number;
   highRepBand: BandLevel;
@@ -75,7 +90,8 @@ export interface TissueRules {
  * about ±10°; high-rep work of 100 reps or more that leaves no soreness the next day; holds of minutes in
  * the stretch; riskier work pulled first as a meet nears. The rest are our own choices: three weeks in a
  * row, loaded stretch out 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line,
- * +0.5 s a week, three pulses per angle, high-rep floor 60 reps in steps of 20, holds from 1 min by 15 s
+ * +0.5 s a week, three pulses per angle, high-rep work of exactly 100 reps (the floor) climbing back in steps
+ * of 20 from older, shorter doses, holds from 1 min by 15 s
  * to 3 min, three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
  */
 export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
@@ -89,7 +105,7 @@ export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   isometricPulsesPerAngle: 3,
   isometricAngleCoverDegrees: 10,
   highRepReps: 100,
-  highRepMinReps: 60,
+  highRepMinReps: HIGH_REP_FLOOR,
   highRepRepStep: 20,
   highRepBand: 'light',
   stretchFatigueReps: 25,
@@ -104,6 +120,8 @@ export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
 export interface HighRepDose {
   reps: number;
   band: BandLevel;
+  /** Set when the reps are to be split into this many easy sets with short rests (sore on the lightest band). */
+  easySets?: number;
 }
 export interface IsometricDose {
   seconds: number;
@@ -138,6 +156,8 @@ export interface TissueCheckin {
 
 export interface TissueSuggestion {
   joint: Joint;
+  /** 'pain': pain flagged in a check-in; 'soreness': still sore after high-rep work on the lightest band. */
+  reason: 'pain' | 'soreness';
   message: string;
 }
 
@@ -285,7 +305,11 @@ function checkRules(r: TissueRules): void {
   }
   wholeAtLeast('isometricPulsesPerAngle', r.isometricPulsesPerAngle, 1);
   positive('isometricAngleCoverDegrees', r.isometricAngleCoverDegrees);
-  wholeAtLeast('highRepMinReps', r.highRepMinReps, 1);
+  if (finite('highRepMinReps', r.highRepMinReps) < HIGH_REP_FLOOR || !Number.isInteger(r.highRepMinReps)) {
+    throw new RangeError(
+      `highRepMinReps must be a whole number of at least ${HIGH_REP_FLOOR} (high-rep work is ${HIGH_REP_FLOOR} reps or more), got ${r.highRepMinReps}`,
+    );
+  }
   if (wholeAtLeast('highRepReps', r.highRepReps, 1) < r.highRepMinReps) {
     throw new RangeError(`highRepReps (${r.highRepReps}) must be at least highRepMinReps (${r.highRepMinReps})`);
   }
@@ -526,13 +550,18 @@ function climb(
     : { value, why: 'at the cap' };
 }
 
-function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: HighRepDose; why?: string } {
+function highRepDose(
+  input: TissueInput,
+  past: Past,
+  joint: Joint,
+): { dose: HighRepDose; why?: string; suggestion?: string } {
   const r = input.rules;
   const last = lastItem(past, 'highRep', joint);
   const ruleBand = BAND_LEVELS.indexOf(r.highRepBand);
   if (!last) return { dose: { reps: r.highRepReps, band: r.highRepBand } };
   const band = Math.min(BAND_LEVELS.indexOf(last.dose.band), ruleBand);
-  const reps = Math.min(last.dose.reps, r.highRepReps);
+  // Doses stored before the floor existed may hold fewer reps: they come back to the floor at once.
+  const reps = Math.max(r.highRepMinReps, Math.min(last.dose.reps, r.highRepReps));
   const checkin = checkinFor(past, last.week, 'highRep');
   if (!checkin) {
     return { dose: { reps, band: BAND_LEVELS[band]! }, why: `Same dose as last time: no check-in after ${last.week}.` };
@@ -542,16 +571,14 @@ function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: High
     if (band > 0) {
       return { dose: { reps, band: BAND_LEVELS[band - 1]! }, why: `Band one step lighter, same reps: ${sore}.` };
     }
-    const fewer = Math.max(r.highRepMinReps, reps - r.highRepRepStep);
-    if (fewer < reps) {
-      return {
-        dose: { reps: fewer, band: BAND_LEVELS[band]! },
-        why: `${reps - fewer} fewer reps (already on the lightest band): ${sore}.`,
-      };
-    }
+    const easySets = Math.ceil(reps / EASY_SET_REPS);
     return {
-      dose: { reps, band: BAND_LEVELS[band]! },
-      why: `Already the lightest dose and still sore (${sore}): the coach should review this work.`,
+      dose: { reps, band: BAND_LEVELS[band]!, easySets },
+      why: `Already on the lightest band and still sore (${sore}): the same ${reps} reps, split into easy sets.`,
+      suggestion:
+        `High-rep work at the ${jointName(joint)} left soreness on the lightest band (${sore}). ` +
+        `This week it is split into ${easySets} easy sets; consider another kind of tissue work for this joint ` +
+        'or fewer sessions, and review how the reps are done.',
     };
   }
   const more = Math.min(r.highRepReps, reps + r.highRepRepStep);
@@ -572,22 +599,30 @@ function capitalise(s: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
 
-function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Joint): TissuePrescription {
+function buildItem(
+  input: TissueInput,
+  past: Past,
+  kind: TissueKind,
+  joint: Joint,
+): { item: TissuePrescription; suggestion?: string } {
   const r = input.rules;
   const base = { week: input.week, joint, exercise: TISSUE_EXERCISES[joint][kind] };
   if (kind === 'highRep') {
-    const { dose, why } = highRepDose(input, past, joint);
-    return {
+    const { dose, why, suggestion } = highRepDose(input, past, joint);
+    const item: TissuePrescription = {
       ...base,
       kind,
       dose,
       instructions: [
-        `${dose.reps} reps with the ${dose.band} band, in as few sets as feels easy.`,
+        dose.easySets
+          ? `${dose.reps} reps with the ${dose.band} band, split into ${dose.easySets} easy sets of about ${Math.ceil(dose.reps / dose.easySets)} with ${EASY_SET_REST_SECONDS} s rest between them.`
+          : `${dose.reps} reps with the ${dose.band} band, in as few sets as feels easy.`,
         'Use the least effort that moves the band: smooth reps, no chasing a burn or a pump.',
         'Soreness the next day means it was done too hard: say so in the check-in.',
         ...(why ? [why] : []),
       ],
     };
+    return suggestion ? { item, suggestion } : { item };
   }
   if (kind === 'isometric') {
     const last = lastItem(past, 'isometric', joint);
@@ -599,7 +634,7 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
       past,
     );
     const angles = isometricAngles(joint, r.isometricAngleCoverDegrees);
-    return {
+    const item: TissuePrescription = {
       ...base,
       kind,
       dose: { seconds: step.value, pulsesPerAngle: r.isometricPulsesPerAngle, angles },
@@ -611,6 +646,7 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
         ...(step.why ? [`Hold time ${step.why}.`] : []),
       ],
     };
+    return { item };
   }
   const last = lastItem(past, 'loadedStretch', joint);
   const step = climb(
@@ -620,7 +656,7 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
     input,
     past,
   );
-  return {
+  const item: TissuePrescription = {
     ...base,
     kind,
     dose: { fatigueReps: r.stretchFatigueReps, holdSeconds: step.value },
@@ -631,6 +667,7 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
       ...(step.why ? [`Hold time ${step.why}.`] : []),
     ],
   };
+  return { item };
 }
 
 /** The athlete's connective-tissue work for `input.week`. Throws a RangeError on malformed input. */
@@ -644,6 +681,7 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
     const label = jointName(joint);
     return {
       joint,
+      reason: 'pain' as const,
       message:
         `Pain at the ${label} reported after ${[...after].map((k) => KIND_LABEL[k]).join(' and ')} (${[...weeks].join(', ')}). ` +
         `Consider adding a restriction on the ${label} for max-effort picks. Its connective-tissue work is paused meanwhile. ` +
@@ -660,7 +698,9 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
         notes.push(`No work on the ${jointName(joint)} this week: pain was reported there recently.`);
         continue;
       }
-      items.push(buildItem(input, past, kind, joint));
+      const { item, suggestion } = buildItem(input, past, kind, joint);
+      items.push(item);
+      if (suggestion) suggestions.push({ joint, reason: 'soreness', message: suggestion });
     }
   }
   return { kind, items, suggestions, notes: [...notes, ...TISSUE_CAUTION] };

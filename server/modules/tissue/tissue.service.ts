@@ -46,7 +46,9 @@ export function tissueRulesOf(team: TeamRules): {
   focusJoints: TeamRules['tissue']['focusJoints'];
 } {
   const { focusJoints, ...settings } = team.tissue;
-  return { rules: { ...DEFAULT_TISSUE_RULES, ...settings }, focusJoints };
+  // The team sets the reps of high-rep work as its floor; the target is never below it.
+  const highRepReps = Math.max(DEFAULT_TISSUE_RULES.highRepReps, settings.highRepMinReps);
+  return { rules: { ...DEFAULT_TISSUE_RULES, ...settings, highRepReps }, focusJoints };
 }
 
 /**

@@ -14,7 +14,7 @@ export const TISSUE_KIND_LABEL = {
 function doseText(item: TissuePrescription): string {
   switch (item.kind) {
     case 'highRep':
-      return `${item.dose.reps} reps, ${item.dose.band} band`;
+      return `${item.dose.reps} reps, ${item.dose.band} band${item.dose.easySets ? `, in ${item.dose.easySets} easy sets` : ''}`;
     case 'isometric':
       return `${item.dose.pulsesPerAngle} × ${item.dose.seconds} s at ${item.dose.angles.length} angles`;
     case 'loadedStretch':

@@ -114,18 +114,21 @@ export function AthleteReview({ athleteId, history }: { athleteId: number; histo
         </h3>
         {data.suggestions.length === 0 ? (
           <p className="flex items-center gap-2 text-ink-700">
-            <CleanIcon className="text-clean-700" /> No pain flagged in recent check-ins.
+            <CleanIcon className="text-clean-700" /> No pain flagged in recent check-ins, and no work still sore.
           </p>
         ) : (
           <ul className="flex flex-col gap-2">
             {data.suggestions.map((s) => (
               <li
-                key={s.joint}
+                key={`${s.joint}-${s.reason}`}
                 className="flex gap-2 rounded-md border border-caution-600/50 bg-caution-100 p-3 text-ink-900"
               >
                 <WarningIcon className="mt-0.5 shrink-0 text-caution-700" />
                 <p>
-                  <strong>Pain flagged: {jointName(s.joint)}.</strong> {s.message}
+                  <strong>
+                    {s.reason === 'pain' ? 'Pain flagged' : 'Still sore'}: {jointName(s.joint)}.
+                  </strong>{' '}
+                  {s.message}
                 </p>
               </li>
             ))}

@@ -474,6 +474,22 @@ function Tissue({ form }: { form: Form }) {
           {...form.register('rules.tissue.sorenessThreshold', { setValueAs: num })}
         />
       </RuleRow>
+      <RuleRow
+        effect={
+          Number.isFinite(t?.highRepMinReps)
+            ? `High-rep light work is ${t?.highRepMinReps} reps; soreness makes the band lighter, never the reps fewer.`
+            : 'Enter a number of reps, 100 or more.'
+        }
+      >
+        <TextField
+          label="High-rep work: reps (100 or more)"
+          type="number"
+          min={100}
+          max={300}
+          error={e?.highRepMinReps?.message}
+          {...form.register('rules.tissue.highRepMinReps', { setValueAs: num })}
+        />
+      </RuleRow>
       <FocusJoints control={form.control} error={e?.focusJoints?.message} />
     </RuleSection>
   );
