@@ -20,9 +20,9 @@
 //      and the item says to split them into easy sets with short rests, and the coach gets a suggestion to
 //      review the work. Reps never go below `highRepMinReps` (at least 100); without soreness they climb by
 //      `highRepRepStep` to `highRepReps`; the band never gets heavier by itself.
-//    - isometric pulses: seconds start at `isometricStartSeconds`, rise by `isometricStepSeconds` after a
-//      week that left no soreness, cap at `isometricMaxSeconds`; soreness steps back one step; no check-in
-//      holds the time (the pulses are harder to recover from than they feel). A gap longer than
+//    - isometric pulses: seconds start very short at `isometricStartSeconds` (1 s), rise by
+//      `isometricStepSeconds` after a week that left no soreness, cap at `isometricMaxSeconds` (5 s); soreness
+//      steps back one step; no check-in holds the time (the pulses are harder to recover from than they feel). A gap longer than
 //      `progressionResetWeeks` starts over. Angles are spread so that, each covering about ± the cover
 //      angle, together they span the joint's working range.
 //    - loaded stretch: the hold progresses the same way between its own start, step and cap.
@@ -86,20 +86,21 @@ export interface TissueRules {
 }
 
 /**
- * Defaults. Common practice with no single published source: pulses of about 3–5 s, each angle covering
- * about ±10°; high-rep work of 100 reps or more that leaves no soreness the next day; holds of minutes in
- * the stretch; riskier work pulled first as a meet nears. The rest are our own choices: three weeks in a
- * row, loaded stretch out 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line,
- * +0.5 s a week, three pulses per angle, high-rep work of exactly 100 reps (the floor) climbing back in steps
- * of 20 from older, shorter doses, holds from 1 min by 15 s
- * to 3 min, three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
+ * Defaults. Common practice with no single published source: isometric pulses built up from very short
+ * ones (about 1 s) toward about 3–5 s over weeks, each angle covering about ±10°; high-rep work of 100 reps
+ * or more that leaves no soreness the next day; holds of minutes in the stretch; riskier work pulled first
+ * as a meet nears. The numbers are our own choices within that: three weeks in a row, loaded stretch out
+ * 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line, pulses from 1 s by +0.5 s per
+ * easy week to a cap of 5 s (3 s after four easy weeks of pulses), three pulses per angle, high-rep work of
+ * 100 reps (the floor) climbing back in steps of 20 from older, shorter doses, holds from 1 min by 15 s to
+ * 3 min, three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
  */
 export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   maxConsecutiveWeeks: 3,
   pullIsometricWeeksOut: 2,
   pullStretchWeeksOut: 4,
   sorenessThreshold: 3,
-  isometricStartSeconds: 3,
+  isometricStartSeconds: 1,
   isometricStepSeconds: 0.5,
   isometricMaxSeconds: 5,
   isometricPulsesPerAngle: 3,
