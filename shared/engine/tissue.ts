@@ -25,7 +25,10 @@
 //      steps back one step; no check-in holds the time (the pulses are harder to recover from than they feel). A gap longer than
 //      `progressionResetWeeks` starts over. Angles are spread so that, each covering about ± the cover
 //      angle, together they span the joint's working range.
-//    - loaded stretch: the hold progresses the same way between its own start, step and cap.
+//    - loaded stretch: the hold is not progressed week on week. It stays at `stretchHoldSeconds`; a sore week
+//      shortens the next hold by a quarter (rounded to 5 s, not under STRETCH_MIN_HOLD_SECONDS), no check-in
+//      keeps the last hold, and a week without soreness goes back to the set time, never past it. Step and
+//      cap settings of older rules are ignored.
 // Only history and check-ins from weeks before `week` count. Everything here is coaching guidance, not
 // medical advice; the notes always carry the usual cautions.
 
@@ -52,6 +55,10 @@ export const HIGH_REP_FLOOR = 100;
  */
 export const EASY_SET_REPS = 25;
 export const EASY_SET_REST_SECONDS = '30–60';
+/** The shortest loaded-stretch hold a sore week leads to (our choice: under half a minute is no longer a hold). */
+export const STRETCH_MIN_HOLD_SECONDS = 30;
+/** After a sore week the hold is this share of the last one (our choice). */
+const STRETCH_SORE_SHARE = 0.75;
 
 export interface TissueRules {
   /** A kind runs at most this many weeks in a row. */
@@ -75,9 +82,8 @@ export interface TissueRules {
   highRepBand: BandLevel;
   /** Light reps that tire the muscle before the stretched hold. */
   stretchFatigueReps: number;
-  stretchStartSeconds: number;
-  stretchStepSeconds: number;
-  stretchMaxSeconds: number;
+  /** The loaded-stretch hold: set, not progressed week on week; soreness may shorten it. */
+  stretchHoldSeconds: number;
   maxJointsPerWeek: number;
   /** Pain flagged in a check-in of this many past weeks pauses that joint's work. */
   painLookbackWeeks: number;
@@ -92,8 +98,8 @@ export interface TissueRules {
  * as a meet nears. The numbers are our own choices within that: three weeks in a row, loaded stretch out
  * 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line, pulses from 1 s by +0.5 s per
  * easy week to a cap of 5 s (3 s after four easy weeks of pulses), three pulses per angle, high-rep work of
- * 100 reps (the floor) climbing back in steps of 20 from older, shorter doses, holds from 1 min by 15 s to
- * 3 min, three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
+ * 100 reps (the floor) climbing back in steps of 20 from older, shorter doses, a stretched hold of 2 min
+ * (shortened by a quarter after a sore week, never under 30 s), three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
  */
 export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   maxConsecutiveWeeks: 3,
@@ -110,9 +116,7 @@ export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   highRepRepStep: 20,
   highRepBand: 'light',
   stretchFatigueReps: 25,
-  stretchStartSeconds: 60,
-  stretchStepSeconds: 15,
-  stretchMaxSeconds: 180,
+  stretchHoldSeconds: 120,
   maxJointsPerWeek: 3,
   painLookbackWeeks: 2,
   progressionResetWeeks: 8,
@@ -293,16 +297,18 @@ function checkRules(r: TissueRules): void {
   if (positive('sorenessThreshold', r.sorenessThreshold) > 10) {
     throw new RangeError(`sorenessThreshold must be at most 10, got ${r.sorenessThreshold}`);
   }
-  for (const [prefix, start, step, max] of [
-    ['isometric', r.isometricStartSeconds, r.isometricStepSeconds, r.isometricMaxSeconds],
-    ['stretch', r.stretchStartSeconds, r.stretchStepSeconds, r.stretchMaxSeconds],
-  ] as const) {
-    positive(`${prefix}StartSeconds`, start);
-    if (finite(`${prefix}StepSeconds`, step) < 0)
-      throw new RangeError(`${prefix}StepSeconds must not be negative, got ${step}`);
-    if (finite(`${prefix}MaxSeconds`, max) < start) {
-      throw new RangeError(`${prefix}MaxSeconds (${max}) must be at least ${prefix}StartSeconds (${start})`);
-    }
+  positive('isometricStartSeconds', r.isometricStartSeconds);
+  if (finite('isometricStepSeconds', r.isometricStepSeconds) < 0)
+    throw new RangeError(`isometricStepSeconds must not be negative, got ${r.isometricStepSeconds}`);
+  if (finite('isometricMaxSeconds', r.isometricMaxSeconds) < r.isometricStartSeconds) {
+    throw new RangeError(
+      `isometricMaxSeconds (${r.isometricMaxSeconds}) must be at least isometricStartSeconds (${r.isometricStartSeconds})`,
+    );
+  }
+  if (finite('stretchHoldSeconds', r.stretchHoldSeconds) < STRETCH_MIN_HOLD_SECONDS) {
+    throw new RangeError(
+      `stretchHoldSeconds must be at least ${STRETCH_MIN_HOLD_SECONDS}, got ${r.stretchHoldSeconds}`,
+    );
   }
   wholeAtLeast('isometricPulsesPerAngle', r.isometricPulsesPerAngle, 1);
   positive('isometricAngleCoverDegrees', r.isometricAngleCoverDegrees);
@@ -589,6 +595,34 @@ function highRepDose(
   };
 }
 
+/** The loaded-stretch hold: the set time, shortened after a sore week, never longer than the set time. */
+function stretchHold(
+  input: TissueInput,
+  past: Past,
+  last: ItemOf<'loadedStretch'> | undefined,
+): { value: number; why?: string } {
+  const set = input.rules.stretchHoldSeconds;
+  if (!last) return { value: set };
+  const gap = past.now - weekNumber(last.week);
+  if (gap > input.rules.progressionResetWeeks) return { value: set };
+  // A hold stored under older rules (progressed past today's set time) comes back to the set time.
+  const prev = Math.min(set, last.dose.holdSeconds);
+  const checkin = checkinFor(past, last.week, 'loadedStretch');
+  if (!checkin) {
+    return prev < set ? { value: prev, why: `kept as last time: no check-in after ${last.week}` } : { value: set };
+  }
+  if (checkin.soreness >= input.rules.sorenessThreshold) {
+    const shorter = Math.max(STRETCH_MIN_HOLD_SECONDS, Math.round((prev * STRETCH_SORE_SHARE) / 5) * 5);
+    return {
+      value: Math.min(prev, shorter),
+      why: `shortened: soreness ${checkin.soreness}/10 after ${last.week}`,
+    };
+  }
+  return prev < set
+    ? { value: set, why: `back to the set time: no soreness to speak of after ${last.week}` }
+    : { value: set };
+}
+
 function formatSeconds(s: number): string {
   if (s < 60) return `${s} s`;
   const m = Math.floor(s / 60);
@@ -650,13 +684,7 @@ function buildItem(
     return { item };
   }
   const last = lastItem(past, 'loadedStretch', joint);
-  const step = climb(
-    { start: r.stretchStartSeconds, step: r.stretchStepSeconds, max: r.stretchMaxSeconds },
-    last && { week: last.week, value: last.dose.holdSeconds },
-    last && checkinFor(past, last.week, 'loadedStretch'),
-    input,
-    past,
-  );
+  const step = stretchHold(input, past, last);
   const item: TissuePrescription = {
     ...base,
     kind,
@@ -665,6 +693,7 @@ function buildItem(
       `First tire the muscle: ${r.stretchFatigueReps} light reps of the same movement.`,
       `Then hold the stretched position for ${formatSeconds(step.value)}, breathing slowly; the load moves from the tired muscle to the tendon.`,
       'Light enough to hold still and relaxed; ease out at once if the stretch turns sharp.',
+      'The hold stays at this time from week to week: do not lengthen it on your own.',
       ...(step.why ? [`Hold time ${step.why}.`] : []),
     ],
   };

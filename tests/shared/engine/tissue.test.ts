@@ -278,23 +278,53 @@ describe('loaded stretch', () => {
   const history = (extra: TissuePrescription[]) => [iso(before(8), 'elbow', 3), ...extra];
 
   it('tires the muscle with high reps, then holds the stretch for minutes', () => {
+    // Common practice, no single published source: hold the stretched position for minutes. The 2 min
+    // set time is our choice.
     const out = prescribeTissueWork(input({ history: history([1, 2, 3].map((n) => highRep(before(n), 'elbow'))) }));
     expect(out.kind).toBe('loadedStretch');
-    expect(out.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 60 });
+    expect(out.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
     expect(out.items[0]!.instructions[0]).toBe('First tire the muscle: 25 light reps of the same movement.');
-    expect(out.items[0]!.instructions[1]).toMatch(/^Then hold the stretched position for 1 min,/);
+    expect(out.items[0]!.instructions[1]).toMatch(/^Then hold the stretched position for 2 min,/);
+    expect(out.items[0]!.instructions.join(' ')).toMatch(/do not lengthen it on your own/);
   });
 
-  it('lengthens the hold by 15 s after a week without soreness and steps back after a sore one', () => {
-    const up = prescribeTissueWork(
-      input({ history: [stretch(before(1), 'elbow', 75)], checkins: [checkin(before(1), 'loadedStretch', 2)] }),
-    );
-    expect(up.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 90 });
-    expect(up.items[0]!.instructions[1]).toMatch(/1 min 30 s/);
-    const back = prescribeTissueWork(
-      input({ history: [stretch(before(1), 'elbow', 75)], checkins: [checkin(before(1), 'loadedStretch', 4)] }),
-    );
-    expect(back.items[0]!.dose).toEqual({ fatigueReps: 25, holdSeconds: 60 });
+  const stretchWeek = (holdSeconds: number, soreness?: number) =>
+    prescribeTissueWork(
+      input({
+        history: [stretch(before(1), 'elbow', holdSeconds)],
+        checkins: soreness === undefined ? [] : [checkin(before(1), 'loadedStretch', soreness)],
+      }),
+    ).items[0]!;
+
+  it('keeps the hold at the set time week on week: no progression after easy weeks', () => {
+    expect(stretchWeek(120, 0).dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
+    expect(stretchWeek(120, 2).dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
+    expect(stretchWeek(120).dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
+    // A hold progressed under older rules comes back to the set time.
+    expect(stretchWeek(180, 0).dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
+    expect(stretchWeek(180).dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
+  });
+
+  it('shortens the hold by a quarter after a sore week, never under 30 s, and goes back to the set time', () => {
+    const sore = stretchWeek(120, 4);
+    expect(sore.dose).toEqual({ fatigueReps: 25, holdSeconds: 90 });
+    expect(sore.instructions.join(' ')).toMatch(/Hold time shortened: soreness 4\/10 after 2027-W09/);
+    expect(stretchWeek(90, 6).dose).toEqual({ fatigueReps: 25, holdSeconds: 70 });
+    expect(stretchWeek(35, 9).dose).toEqual({ fatigueReps: 25, holdSeconds: 30 });
+    expect(stretchWeek(30, 9).dose).toEqual({ fatigueReps: 25, holdSeconds: 30 });
+    expect(stretchWeek(90).dose).toEqual({ fatigueReps: 25, holdSeconds: 90 });
+    const back = stretchWeek(90, 1);
+    expect(back.dose).toEqual({ fatigueReps: 25, holdSeconds: 120 });
+    expect(back.instructions.join(' ')).toMatch(/back to the set time/);
+  });
+
+  it('ignores the step and cap settings of older rules', () => {
+    const old = { ...DEFAULT_TISSUE_RULES, stretchStartSeconds: 60, stretchStepSeconds: 15, stretchMaxSeconds: 180 };
+    const inp = input({
+      history: [stretch(before(1), 'elbow', 120)],
+      checkins: [checkin(before(1), 'loadedStretch', 0)],
+    });
+    expect(prescribeTissueWork({ ...inp, rules: old as TissueRules })).toEqual(prescribeTissueWork(inp));
   });
 });
 
@@ -479,6 +509,9 @@ describe('bad input', () => {
       /soreness .*NaN/,
     );
     expect(() => prescribeTissueWork(input({ focusJoints: ['neck' as Joint] }))).toThrow(/neck/);
+    expect(() => prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, stretchHoldSeconds: 10 } }))).toThrow(
+      /stretchHoldSeconds must be at least 30, got 10/,
+    );
     expect(() => prescribeTissueWork(input({ history: [highRep(before(1), 'elbow', 0)] }))).toThrow(
       /reps in history .*0/,
     );
@@ -660,6 +693,34 @@ describe('properties', () => {
               .reduce((m, c) => Math.max(m, c.soreness), -1);
             // After a sore week, or with no check-in, the pulses never get longer.
             if (soreness < 0 || soreness >= r.sorenessThreshold) expect(item.dose.seconds).toBeLessThanOrEqual(last);
+          }
+        }
+      }),
+    );
+  });
+
+  it('never holds a loaded stretch longer than the set time, nor longer than last time after a sore week', () => {
+    const holdRules = fc
+      .tuple(rulesArb, fc.integer({ min: 6, max: 60 }))
+      .map(([r, fives]) => ({ ...r, stretchHoldSeconds: fives * 5 }));
+    fc.assert(
+      fc.property(fc.oneof(scenarioArb(holdRules), scenarioArb(fc.constant(DEFAULT_TISSUE_RULES))), (s) => {
+        for (const { input: inp, out } of play(s).steps) {
+          for (const item of out.items) {
+            if (item.kind !== 'loadedStretch') continue;
+            expect(item.dose.holdSeconds).toBeLessThanOrEqual(s.rules.stretchHoldSeconds);
+            expect(item.dose.holdSeconds).toBeGreaterThanOrEqual(30);
+            const prev = inp.history
+              .filter(
+                (h): h is Extract<TissuePrescription, { kind: 'loadedStretch' }> =>
+                  h.kind === 'loadedStretch' && h.joint === item.joint,
+              )
+              .sort((a, b) => weekNumber(b.week) - weekNumber(a.week) || a.dose.holdSeconds - b.dose.holdSeconds)[0];
+            if (!prev || weekNumber(item.week) - weekNumber(prev.week) > s.rules.progressionResetWeeks) continue;
+            const sore = inp.checkins.some(
+              (c) => c.week === prev.week && c.kind === 'loadedStretch' && c.soreness >= s.rules.sorenessThreshold,
+            );
+            if (sore) expect(item.dose.holdSeconds).toBeLessThanOrEqual(Math.max(30, prev.dose.holdSeconds));
           }
         }
       }),
