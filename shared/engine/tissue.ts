@@ -12,7 +12,9 @@
 // 2. Joints. The team's focus joints in their order, the ones under the most max-effort load first when
 //    `jointLoad` is given, then other loaded joints; at most `maxJointsPerWeek`. A joint with pain flagged in
 //    a check-in of the last `painLookbackWeeks` weeks is paused and the coach gets a suggestion to add a
-//    restriction on it.
+//    restriction on it. A joint the athlete has a restriction on that covers the week (the rotation engine's
+//    restrictions by joint, with their weeks) gets no work that week either, and the notes say why. Neither
+//    is replaced by another joint: the week simply holds less.
 // 3. Dose, per joint, from that joint's last prescription of the same kind and the check-in after it
 //    (a check-in carries the week of the work it reports on, not the day it was filled in):
 //    - high-rep: soreness at or over `sorenessThreshold` lowers the effort, never the reps (the work is 100
@@ -32,7 +34,7 @@
 // Only history and check-ins from weeks before `week` count. Everything here is coaching guidance, not
 // medical advice; the notes always carry the usual cautions.
 
-import { JOINTS, type Joint, type Variant } from './types';
+import { JOINTS, type Joint, type Restriction, type Variant } from './types';
 import { parseWeek, weekNumber as parseWeekNumber } from './weeks';
 import { jointName } from './words';
 
@@ -176,6 +178,8 @@ export interface TissueInput {
   focusJoints: Joint[];
   /** Load per joint from the athlete's current max-effort picks (see jointLoadOf); heavier first. */
   jointLoad?: Partial<Record<Joint, number>>;
+  /** The athlete's restrictions; those on a joint that cover the week keep that joint's work out. */
+  restrictions?: readonly Restriction[];
 }
 
 export interface TissueWeek {
@@ -255,6 +259,35 @@ export function isometricAngles(joint: Joint, coverDegrees: number): number[] {
   const first = from + Math.min(coverDegrees, span / 2);
   const last = to - Math.min(coverDegrees, span / 2);
   return Array.from({ length: count }, (_, i) => Math.round(first + ((last - first) * i) / (count - 1)));
+}
+
+/**
+ * The joints with a restriction covering `week`, each with the weeks it runs (for the note). Restrictions by
+ * emphasis or family only name no joint and keep nothing out.
+ */
+export function restrictedJoints(week: string, restrictions: readonly Restriction[]): Map<Joint, string> {
+  const n = weekNumber(week);
+  const out = new Map<Joint, string>();
+  for (const r of restrictions) {
+    if (r.joint === undefined) continue;
+    if (r.fromWeek !== undefined && weekNumber(r.fromWeek) > n) continue;
+    if (r.toWeek !== undefined && weekNumber(r.toWeek) < n) continue;
+    const span =
+      r.fromWeek && r.toWeek
+        ? `${r.fromWeek} to ${r.toWeek}`
+        : r.toWeek
+          ? `until ${r.toWeek}`
+          : r.fromWeek
+            ? `from ${r.fromWeek}, no end set`
+            : 'no end set';
+    if (!out.has(r.joint)) out.set(r.joint, span);
+  }
+  return out;
+}
+
+/** The note for a joint kept out by a restriction. */
+export function restrictedNote(joint: Joint, span: string): string {
+  return `No work on the ${jointName(joint)} this week: the athlete has a restriction on it (${span}).`;
 }
 
 /** Summed joint stress of a set of variants (e.g. the athlete's current max-effort picks). */
@@ -349,6 +382,11 @@ function checkInput(input: TissueInput): void {
     } else {
       positive('stretch hold seconds in history', item.dose.holdSeconds);
     }
+  }
+  for (const r of input.restrictions ?? []) {
+    if (r.joint !== undefined) oneOf('restricted joint', r.joint, JOINTS);
+    if (r.fromWeek !== undefined) parseWeek(r.fromWeek);
+    if (r.toWeek !== undefined) parseWeek(r.toWeek);
   }
   for (const c of input.checkins) {
     parseWeek(c.week);
@@ -721,9 +759,15 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
   const items: TissuePrescription[] = [];
   if (kind) {
     const joints = chooseJoints(input);
+    const restricted = restrictedJoints(input.week, input.restrictions ?? []);
     if (joints.length === 0)
       notes.push('No focus joints set: add some in the team rules to get connective-tissue work.');
     for (const joint of joints) {
+      const span = restricted.get(joint);
+      if (span !== undefined) {
+        notes.push(restrictedNote(joint, span));
+        continue;
+      }
       if (pain.has(joint)) {
         notes.push(`No work on the ${jointName(joint)} this week: pain was reported there recently.`);
         continue;

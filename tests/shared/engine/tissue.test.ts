@@ -9,6 +9,7 @@ import {
   TISSUE_KINDS,
   isometricAngles,
   jointLoadOf,
+  restrictedJoints,
   prescribeTissueWork,
   type BandLevel,
   type TissueCheckin,
@@ -17,7 +18,7 @@ import {
   type TissuePrescription,
   type TissueRules,
 } from '../../../shared/engine/tissue';
-import { JOINTS, type Joint } from '../../../shared/engine/types';
+import { JOINTS, type Joint, type Restriction } from '../../../shared/engine/types';
 import { addWeeks, weekNumber } from '../../../shared/engine/weeks';
 
 const WEEK = '2027-W10';
@@ -469,6 +470,55 @@ describe('pain on a joint', () => {
   });
 });
 
+describe('joint restrictions', () => {
+  it('gives no work to a joint restricted that week, says why, and does not fill its place', () => {
+    const restrictions: Restriction[] = [
+      { joint: 'elbow', maxStress: 1, fromWeek: before(2), toWeek: addWeeks(WEEK, 2) },
+      // By family only: names no joint, keeps nothing out.
+      { families: ['board press'], fromWeek: before(1) },
+    ];
+    const out = prescribeTissueWork(input({ focusJoints: ['elbow', 'knee'], restrictions }));
+    expect(out.items.map((i) => i.joint)).toEqual(['knee']);
+    expect(out.notes).toContain(
+      'No work on the elbow this week: the athlete has a restriction on it (2027-W08 to 2027-W12).',
+    );
+  });
+
+  it('keeps to the restriction’s weeks: before it starts and after it ends the joint is worked', () => {
+    const restrictions: Restriction[] = [
+      { joint: 'knee', maxStress: 0, fromWeek: addWeeks(WEEK, 1), toWeek: addWeeks(WEEK, 3) },
+    ];
+    const at = (w: string) => prescribeTissueWork(input({ week: w, focusJoints: ['knee'], restrictions })).items;
+    expect(at(WEEK).map((i) => i.joint)).toEqual(['knee']);
+    expect(at(addWeeks(WEEK, 1))).toEqual([]);
+    expect(at(addWeeks(WEEK, 3))).toEqual([]);
+    expect(at(addWeeks(WEEK, 4)).map((i) => i.joint)).toEqual(['knee']);
+    const open = prescribeTissueWork(
+      input({ focusJoints: ['knee', 'hip'], restrictions: [{ joint: 'knee', maxStress: 2, fromWeek: before(4) }] }),
+    );
+    expect(open.items.map((i) => i.joint)).toEqual(['hip']);
+    expect(open.notes.join(' ')).toMatch(/restriction on it \(from 2027-W06, no end set\)/);
+  });
+
+  it('lists the restricted joints of a week', () => {
+    const restrictions: Restriction[] = [
+      { joint: 'wrist', maxStress: 1, toWeek: WEEK },
+      { joint: 'wrist', maxStress: 2, fromWeek: before(3), toWeek: addWeeks(WEEK, 1) },
+      { joint: 'hip', maxStress: 1, fromWeek: addWeeks(WEEK, 1) },
+    ];
+    expect([...restrictedJoints(WEEK, restrictions)]).toEqual([['wrist', 'until 2027-W10']]);
+  });
+
+  it('refuses a restriction on an unknown joint or with a malformed week', () => {
+    expect(() => prescribeTissueWork(input({ restrictions: [{ joint: 'neck' as Joint, maxStress: 1 }] }))).toThrow(
+      /restricted joint .*neck/,
+    );
+    expect(() =>
+      prescribeTissueWork(input({ restrictions: [{ joint: 'knee', maxStress: 1, fromWeek: 'soon' }] })),
+    ).toThrow(/soon/);
+  });
+});
+
 describe('target joints', () => {
   it('orders the focus list by max-effort load, then adds other loaded joints, up to the weekly cap', () => {
     const jointLoad = { elbow: 2, knee: 5, hip: 4, wrist: 1 };
@@ -568,6 +618,7 @@ interface Scenario {
   focusJoints: Joint[];
   meetIn: number | null;
   weeks: number;
+  restrictions: Restriction[];
   feel: { soreness: number; pain: Joint[] }[];
 }
 
@@ -578,6 +629,21 @@ const scenarioArb = (rules: fc.Arbitrary<TissueRules>): fc.Arbitrary<Scenario> =
     focusJoints: fc.uniqueArray(jointArb, { minLength: 1, maxLength: 4 }),
     meetIn: fc.option(fc.integer({ min: 0, max: 20 })),
     weeks: fc.integer({ min: 1, max: 16 }),
+    restrictions: fc.array(
+      fc
+        .record({
+          joint: jointArb,
+          from: fc.option(fc.integer({ min: -4, max: 16 })),
+          length: fc.option(fc.integer({ min: 0, max: 6 })),
+        })
+        .map(({ joint, from, length }) => ({
+          joint,
+          maxStress: 1,
+          ...(from !== null ? { fromWeek: addWeeks(WEEK, from) } : {}),
+          ...(length !== null ? { toWeek: addWeeks(WEEK, (from ?? 0) + length) } : {}),
+        })),
+      { maxLength: 3 },
+    ),
     feel: fc.array(
       fc.record({
         soreness: fc.integer({ min: 0, max: 10 }),
@@ -611,6 +677,7 @@ function play(s: Scenario): { steps: Step[]; history: TissuePrescription[]; chec
       history,
       checkins: [...checkins],
       focusJoints: s.focusJoints,
+      restrictions: s.restrictions,
     };
     const out = prescribeTissueWork(inp);
     steps.push({ week, input: inp, out });
@@ -782,6 +849,25 @@ describe('properties', () => {
             expect(item.dose.reps).toBeGreaterThanOrEqual(100);
             expect(item.dose.reps).toBeGreaterThanOrEqual(s.rules.highRepMinReps);
             expect(item.dose.reps).toBeLessThanOrEqual(s.rules.highRepReps);
+          }
+        }
+      }),
+    );
+  });
+
+  it('never gives an item on a joint restricted that week', () => {
+    fc.assert(
+      fc.property(scenarioArb(rulesArb), (s) => {
+        for (const { week, out } of play(s).steps) {
+          const n = weekNumber(week);
+          for (const item of out.items) {
+            const covering = s.restrictions.filter(
+              (r) =>
+                r.joint === item.joint &&
+                (r.fromWeek === undefined || weekNumber(r.fromWeek) <= n) &&
+                (r.toWeek === undefined || n <= weekNumber(r.toWeek)),
+            );
+            expect(covering, `${item.joint} in ${week}`).toEqual([]);
           }
         }
       }),
