@@ -87,6 +87,8 @@ export interface TissueRules {
   /** The loaded-stretch hold: set, not progressed week on week; soreness may shorten it. */
   stretchHoldSeconds: number;
   maxJointsPerWeek: number;
+  /** Sessions of tissue work in a week, each item done in every one of them. */
+  sessionsPerWeek: number;
   /** Pain flagged in a check-in of this many past weeks pauses that joint's work. */
   painLookbackWeeks: number;
   /** A kind not done on a joint for longer than this many weeks starts over from its start dose. */
@@ -101,7 +103,10 @@ export interface TissueRules {
  * 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line, pulses from 1 s by +0.5 s per
  * easy week to a cap of 5 s (3 s after four easy weeks of pulses), three pulses per angle, high-rep work of
  * 100 reps (the floor) climbing back in steps of 20 from older, shorter doses, a stretched hold of 2 min
- * (shortened by a quarter after a sore week, never under 30 s), three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
+ * (shortened by a quarter after a sore week, never under 30 s), three joints a week, pain pausing a joint for
+ * two weeks, a restart after 8 weeks away. Sessions a week: three, on separate days — common practice for
+ * short tendon work, recalled from coaching practice with no single published source; the number is ours
+ * to default and each team sets its own.
  */
 export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   maxConsecutiveWeeks: 3,
@@ -120,6 +125,7 @@ export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   stretchFatigueReps: 25,
   stretchHoldSeconds: 120,
   maxJointsPerWeek: 3,
+  sessionsPerWeek: 3,
   painLookbackWeeks: 2,
   progressionResetWeeks: 8,
 };
@@ -146,6 +152,8 @@ interface ItemBase {
   joint: Joint;
   exercise: string;
   instructions: string[];
+  /** How many sessions of this work in the week (the team's setting when the week was made). */
+  sessionsPerWeek: number;
 }
 export type TissuePrescription =
   | (ItemBase & { kind: 'highRep'; dose: HighRepDose })
@@ -357,6 +365,8 @@ function checkRules(r: TissueRules): void {
   oneOf('highRepBand', r.highRepBand, BAND_LEVELS);
   wholeAtLeast('stretchFatigueReps', r.stretchFatigueReps, 1);
   wholeAtLeast('maxJointsPerWeek', r.maxJointsPerWeek, 1);
+  if (wholeAtLeast('sessionsPerWeek', r.sessionsPerWeek, 1) > 7)
+    throw new RangeError(`sessionsPerWeek must be at most 7, got ${r.sessionsPerWeek}`);
   wholeAtLeast('painLookbackWeeks', r.painLookbackWeeks, 1);
   wholeAtLeast('progressionResetWeeks', r.progressionResetWeeks, 1);
 }
@@ -679,7 +689,12 @@ function buildItem(
   joint: Joint,
 ): { item: TissuePrescription; suggestion?: string } {
   const r = input.rules;
-  const base = { week: input.week, joint, exercise: TISSUE_EXERCISES[joint][kind] };
+  const base = {
+    week: input.week,
+    joint,
+    exercise: TISSUE_EXERCISES[joint][kind],
+    sessionsPerWeek: r.sessionsPerWeek,
+  };
   if (kind === 'highRep') {
     const { dose, why, suggestion } = highRepDose(input, past, joint);
     const item: TissuePrescription = {

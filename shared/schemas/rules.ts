@@ -39,6 +39,12 @@ export const tissueSettingsSchema = z.object({
     .int('Use whole reps')
     .min(HIGH_REP_FLOOR, `High-rep work is ${HIGH_REP_FLOOR} reps or more: use at least ${HIGH_REP_FLOOR}`)
     .max(HIGH_REP_MAX, `Use at most ${HIGH_REP_MAX} reps`),
+  /** Sessions of tissue work in a week. */
+  sessionsPerWeek: z
+    .number({ message: 'Enter a number of sessions' })
+    .int('Use whole sessions')
+    .min(1, 'At least 1 session a week')
+    .max(7, 'At most 7 sessions a week'),
   focusJoints: z.array(jointSchema).max(6),
 });
 export type TissueSettings = z.infer<typeof tissueSettingsSchema>;
@@ -54,6 +60,7 @@ const storedTissueSettingsSchema = tissueSettingsSchema.extend({
     .int()
     .default(DEFAULT_TISSUE_RULES.highRepMinReps)
     .transform((n) => Math.min(HIGH_REP_MAX, Math.max(HIGH_REP_FLOOR, n))),
+  sessionsPerWeek: tissueSettingsSchema.shape.sessionsPerWeek.default(DEFAULT_TISSUE_RULES.sessionsPerWeek),
 });
 
 const teamRulesShape = {
@@ -141,6 +148,7 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
     pullStretchWeeksOut: DEFAULT_TISSUE_RULES.pullStretchWeeksOut,
     sorenessThreshold: DEFAULT_TISSUE_RULES.sorenessThreshold,
     highRepMinReps: DEFAULT_TISSUE_RULES.highRepMinReps,
+    sessionsPerWeek: DEFAULT_TISSUE_RULES.sessionsPerWeek,
     focusJoints: ['elbow', 'knee', 'shoulder'],
   },
   sessions: DEFAULT_SESSIONS,

@@ -1,7 +1,7 @@
 // Videos of top sets and the coaches' comments on them, and the coach's review of one athlete.
 import { z } from 'zod';
 import type { TissueSuggestion } from '../engine/tissue';
-import type { Series, TissueCheckinRow, TopSet, VariantHistory } from './training';
+import type { Series, TissueCheckinRow, TissueWorkWeek, TopSet, VariantHistory } from './training';
 
 /** Containers a video may come in, checked from the file's content, never its name. */
 export const VIDEO_TYPES = { mp4: 'video/mp4', mov: 'video/quicktime', webm: 'video/webm' } as const;
@@ -35,8 +35,10 @@ export interface Video {
 export interface AthleteReview {
   athlete: { id: number; name: string; sex: 'M' | 'F'; division: 'open' | 'junior' | 'subjunior' };
   week: string;
-  /** Restrictions to consider, from pain flagged in recent check-ins. */
+  /** Restrictions to consider (pain flagged in recent check-ins) and work still sore on the lightest band. */
   suggestions: TissueSuggestion[];
+  /** This week's connective-tissue work, as the athlete sees it. */
+  tissue: TissueWorkWeek;
   checkins: TissueCheckinRow[];
   videos: Video[];
   variants: VariantHistory[];

@@ -54,7 +54,7 @@ describe('stored tissue settings', () => {
   it('load when saved with fewer than 100 high-rep reps (clamped to 100) or with settings since dropped', async () => {
     const db = t.ctx.database.db;
     const older = await createTeam(db);
-    const { highRepMinReps: _reps, ...tissue } = DEFAULT_TEAM_RULES.tissue;
+    const { highRepMinReps: _reps, sessionsPerWeek: _sessions, ...tissue } = DEFAULT_TEAM_RULES.tissue;
     await db
       .update(teamRules)
       .set({
@@ -79,7 +79,7 @@ describe('stored tissue settings', () => {
       repeatWindowWeeks: 7,
       tissue: { ...DEFAULT_TEAM_RULES.tissue, maxConsecutiveWeeks: 2, highRepMinReps: 100 },
     });
-    // Without the setting at all: its default.
+    // Without the settings at all: their defaults.
     await db
       .update(teamRules)
       .set({ rules: { ...DEFAULT_TEAM_RULES, tissue } })
@@ -91,12 +91,17 @@ describe('stored tissue settings', () => {
     const current = (await head.get('/api/rules')).body;
     const res = await head.put('/api/rules').send({
       ...current,
-      rules: { ...current.rules, repeatWindowWeeks: 9, tissue: { ...current.rules.tissue, highRepMinReps: 60 } },
+      rules: {
+        ...current.rules,
+        repeatWindowWeeks: 9,
+        tissue: { ...current.rules.tissue, highRepMinReps: 60, sessionsPerWeek: 8 },
+      },
     });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['rules.tissue.highRepMinReps']).toEqual([
       'High-rep work is 100 reps or more: use at least 100',
     ]);
+    expect(res.body.error.fields['rules.tissue.sessionsPerWeek']).toEqual(['At most 7 sessions a week']);
     expect((await head.get('/api/rules')).body).toEqual(current);
   });
 });

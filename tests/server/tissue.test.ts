@@ -175,3 +175,40 @@ describe('restrictions', () => {
     ]);
   });
 });
+
+describe('sessions a week', () => {
+  it('carries the team’s weekly session count on every item, on My week and the coach’s review', async () => {
+    const db = t.ctx.database.db;
+    const own = await createTeam(db);
+    await db
+      .update(teamRules)
+      .set({
+        rules: {
+          ...DEFAULT_TEAM_RULES,
+          tissue: { ...DEFAULT_TEAM_RULES.tissue, sessionsPerWeek: 2 },
+        } as unknown as Record<string, unknown>,
+      })
+      .where(eq(teamRules.teamId, own.teamId));
+    const me = await t.signIn(own.athleteUser.email);
+    const page = (await me.get('/api/my-week')).body;
+    expect(page.tissue.items.length).toBeGreaterThan(0);
+    expect(page.tissue.items.map((i: { sessionsPerWeek: number }) => i.sessionsPerWeek)).toEqual(
+      page.tissue.items.map(() => 2),
+    );
+    const review = await (await t.signIn(own.coach.email)).get(`/api/athletes/${own.athleteId}/review`);
+    expect(review.status).toBe(200);
+    expect(review.body.tissue).toMatchObject({ week: thisWeek, items: page.tissue.items });
+  });
+
+  it('reads items stored before the count existed as three a week', async () => {
+    const db = t.ctx.database.db;
+    const own = await createTeam(db);
+    const { sessionsPerWeek: _n, ...old } = (await tissueWorkFor(db, own.teamId, own.athleteId, thisWeek)).items[0]!;
+    await db
+      .update(tissuePrescriptions)
+      .set({ items: [old] })
+      .where(and(eq(tissuePrescriptions.athleteId, own.athleteId), eq(tissuePrescriptions.week, thisWeek)));
+    const again = await tissueWorkFor(db, own.teamId, own.athleteId, thisWeek);
+    expect(again.items).toEqual([{ ...old, sessionsPerWeek: 3 }]);
+  });
+});

@@ -28,7 +28,7 @@ function input(over: Partial<TissueInput> = {}): TissueInput {
 }
 
 function highRep(week: string, joint: Joint, reps = 100, band: BandLevel = 'light'): TissuePrescription {
-  return { week, joint, kind: 'highRep', exercise: 'x', instructions: [], dose: { reps, band } };
+  return { week, joint, kind: 'highRep', exercise: 'x', instructions: [], sessionsPerWeek: 3, dose: { reps, band } };
 }
 function iso(week: string, joint: Joint, seconds: number): TissuePrescription {
   return {
@@ -37,6 +37,7 @@ function iso(week: string, joint: Joint, seconds: number): TissuePrescription {
     kind: 'isometric',
     exercise: 'x',
     instructions: [],
+    sessionsPerWeek: 3,
     dose: { seconds, pulsesPerAngle: 3, angles: [] },
   };
 }
@@ -47,6 +48,7 @@ function stretch(week: string, joint: Joint, holdSeconds: number): TissuePrescri
     kind: 'loadedStretch',
     exercise: 'x',
     instructions: [],
+    sessionsPerWeek: 3,
     dose: { fatigueReps: 25, holdSeconds },
   };
 }
@@ -516,6 +518,26 @@ describe('joint restrictions', () => {
     expect(() =>
       prescribeTissueWork(input({ restrictions: [{ joint: 'knee', maxStress: 1, fromWeek: 'soon' }] })),
     ).toThrow(/soon/);
+  });
+});
+
+describe('sessions a week', () => {
+  it('puts the team’s weekly session count on every item: three by default', () => {
+    // Common practice, no single published source (from memory): short tendon work about three times a
+    // week, on separate days. Three is our default; the team sets its own.
+    expect(DEFAULT_TISSUE_RULES.sessionsPerWeek).toBe(3);
+    const out = prescribeTissueWork(input({ focusJoints: ['elbow', 'knee'] }));
+    expect(out.items.map((i) => i.sessionsPerWeek)).toEqual([3, 3]);
+    const two = prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, sessionsPerWeek: 2 } }));
+    expect(two.items[0]!.sessionsPerWeek).toBe(2);
+  });
+
+  it('refuses a count outside 1–7', () => {
+    for (const sessionsPerWeek of [0, 8, 2.5]) {
+      expect(() => prescribeTissueWork(input({ rules: { ...DEFAULT_TISSUE_RULES, sessionsPerWeek } }))).toThrow(
+        /sessionsPerWeek must be/,
+      );
+    }
   });
 });
 
