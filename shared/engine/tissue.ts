@@ -759,22 +759,27 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
   const past = readPast(input);
   const { kind, notes } = chooseKind(input, past);
   const pain = recentPain(input, past);
+  const restricted = restrictedJoints(input.week, input.restrictions ?? []);
   const suggestions: TissueSuggestion[] = JOINTS.filter((j) => pain.has(j)).map((joint) => {
     const { weeks, after } = pain.get(joint)!;
     const label = jointName(joint);
+    const span = restricted.get(joint);
+    const advice =
+      span === undefined
+        ? `Consider adding a restriction on the ${label} for max-effort picks. Its connective-tissue work is paused meanwhile. `
+        : `A restriction on the ${label} is in place (${span}): keep it while the pain lasts. Its connective-tissue work stays out meanwhile. `;
     return {
       joint,
       reason: 'pain' as const,
       message:
         `Pain at the ${label} reported after ${[...after].map((k) => KIND_LABEL[k]).join(' and ')} (${[...weeks].join(', ')}). ` +
-        `Consider adding a restriction on the ${label} for max-effort picks. Its connective-tissue work is paused meanwhile. ` +
+        advice +
         'If it persists, refer the athlete to a licensed clinician.',
     };
   });
   const items: TissuePrescription[] = [];
   if (kind) {
     const joints = chooseJoints(input);
-    const restricted = restrictedJoints(input.week, input.restrictions ?? []);
     if (joints.length === 0)
       notes.push('No focus joints set: add some in the team rules to get connective-tissue work.');
     for (const joint of joints) {

@@ -502,6 +502,21 @@ describe('joint restrictions', () => {
     expect(open.notes.join(' ')).toMatch(/restriction on it \(from 2027-W06, no end set\)/);
   });
 
+  it('tells the coach a restriction is already in place when pain is flagged on a restricted joint', () => {
+    const out = prescribeTissueWork(
+      input({
+        checkins: [checkin(before(1), 'highRep', 1, ['elbow'])],
+        restrictions: [{ joint: 'elbow', maxStress: 1, fromWeek: before(1) }],
+      }),
+    );
+    expect(out.suggestions).toHaveLength(1);
+    expect(out.suggestions[0]!.message).toMatch(
+      /A restriction on the elbow is in place \(from 2027-W09, no end set\): keep it while the pain lasts/,
+    );
+    expect(out.suggestions[0]!.message).not.toMatch(/Consider adding/);
+    expect(out.suggestions[0]!.message).toMatch(/licensed clinician/);
+  });
+
   it('lists the restricted joints of a week', () => {
     const restrictions: Restriction[] = [
       { joint: 'wrist', maxStress: 1, toWeek: WEEK },
