@@ -2,6 +2,7 @@
 import type { Division, Sex } from './calc/classes';
 import type { Lift } from './engine/types';
 import type { AccessoryCategory, SessionPart } from './schemas/week';
+import type { TissuePrescription } from './engine/tissue';
 
 /** The short lift names of the library, the board and the history lists. */
 export const LIFT_LABEL: Record<Lift, string> = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' };
@@ -51,3 +52,20 @@ export const ACCESSORY_CATEGORY_LABELS: Readonly<Record<AccessoryCategory, strin
   glutes: 'Glutes',
   shoulders: 'Shoulders',
 };
+
+/** A connective-tissue item's dose in a few words, as My week and the athlete's page list it. */
+export function tissueDoseLabel(item: TissuePrescription): string {
+  switch (item.kind) {
+    case 'highRep':
+      return `${item.dose.reps} reps, ${item.dose.band} band${item.dose.easySets ? `, in ${item.dose.easySets} easy sets` : ''}`;
+    case 'isometric':
+      return `${item.dose.pulsesPerAngle} × ${item.dose.seconds} s at ${item.dose.angles.length} angles`;
+    case 'loadedStretch':
+      return `${item.dose.fatigueReps} light reps, then hold ${item.dose.holdSeconds} s`;
+  }
+}
+
+/** How often a connective-tissue item is done in its week. */
+export function tissueSessionsLabel(sessionsPerWeek: number): string {
+  return sessionsPerWeek === 1 ? 'Once this week' : `${sessionsPerWeek} sessions this week`;
+}

@@ -12,22 +12,29 @@
 // 2. Joints. The team's focus joints in their order, the ones under the most max-effort load first when
 //    `jointLoad` is given, then other loaded joints; at most `maxJointsPerWeek`. A joint with pain flagged in
 //    a check-in of the last `painLookbackWeeks` weeks is paused and the coach gets a suggestion to add a
-//    restriction on it.
+//    restriction on it. A joint the athlete has a restriction on that covers the week (the rotation engine's
+//    restrictions by joint, with their weeks) gets no work that week either, and the notes say why. Neither
+//    is replaced by another joint: the week simply holds less.
 // 3. Dose, per joint, from that joint's last prescription of the same kind and the check-in after it
 //    (a check-in carries the week of the work it reports on, not the day it was filled in):
-//    - high-rep: soreness at or over `sorenessThreshold` makes it lighter: first the band one step lighter,
-//      once at the lightest band `highRepRepStep` fewer reps (not below `highRepMinReps`). Without
-//      soreness, reps climb back by the step to `highRepReps`; the band never gets heavier by itself.
-//    - isometric pulses: seconds start at `isometricStartSeconds`, rise by `isometricStepSeconds` after a
-//      week that left no soreness, cap at `isometricMaxSeconds`; soreness steps back one step; no check-in
-//      holds the time (the pulses are harder to recover from than they feel). A gap longer than
+//    - high-rep: soreness at or over `sorenessThreshold` lowers the effort, never the reps (the work is 100
+//      reps or more by definition): first the band one step lighter; once on the lightest band the reps stay
+//      and the item says to split them into easy sets with short rests, and the coach gets a suggestion to
+//      review the work. Reps never go below `highRepMinReps` (at least 100); without soreness they climb by
+//      `highRepRepStep` to `highRepReps`; the band never gets heavier by itself.
+//    - isometric pulses: seconds start very short at `isometricStartSeconds` (1 s), rise by
+//      `isometricStepSeconds` after a week that left no soreness, cap at `isometricMaxSeconds` (5 s); soreness
+//      steps back one step; no check-in holds the time (the pulses are harder to recover from than they feel). A gap longer than
 //      `progressionResetWeeks` starts over. Angles are spread so that, each covering about ± the cover
 //      angle, together they span the joint's working range.
-//    - loaded stretch: the hold progresses the same way between its own start, step and cap.
+//    - loaded stretch: the hold is not progressed week on week. It stays at `stretchHoldSeconds`; a sore week
+//      shortens the next hold by a quarter (rounded to 5 s, not under STRETCH_MIN_HOLD_SECONDS), no check-in
+//      keeps the last hold, and a week without soreness goes back to the set time, never past it. Step and
+//      cap settings of older rules are ignored.
 // Only history and check-ins from weeks before `week` count. Everything here is coaching guidance, not
 // medical advice; the notes always carry the usual cautions.
 
-import { JOINTS, type Joint, type Variant } from './types';
+import { JOINTS, type Joint, type Restriction, type Variant } from './types';
 import { parseWeek, weekNumber as parseWeekNumber } from './weeks';
 import { jointName } from './words';
 
@@ -38,6 +45,22 @@ export const TISSUE_KINDS: readonly TissueKind[] = ['highRep', 'isometric', 'loa
 export type BandLevel = 'lightest' | 'light' | 'medium';
 /** Band tensions, lightest first. */
 export const BAND_LEVELS: readonly BandLevel[] = ['lightest', 'light', 'medium'];
+
+/**
+ * The fewest reps high-rep work may have (common practice, no single published source: very-high-rep
+ * tendon work is 100 reps or more with the least effort; fewer reps at a harder effort is other work).
+ */
+export const HIGH_REP_FLOOR = 100;
+/**
+ * Reps per easy set when sore high-rep work on the lightest band is split, and the rest between those sets.
+ * Our choice (no published source): sets short enough to stay easy, rests short enough to keep it light work.
+ */
+export const EASY_SET_REPS = 25;
+export const EASY_SET_REST_SECONDS = '30–60';
+/** The shortest loaded-stretch hold a sore week leads to (our choice: under half a minute is no longer a hold). */
+export const STRETCH_MIN_HOLD_SECONDS = 30;
+/** After a sore week the hold is this share of the last one (our choice). */
+const STRETCH_SORE_SHARE = 0.75;
 
 export interface TissueRules {
   /** A kind runs at most this many weeks in a row. */
@@ -55,15 +78,17 @@ export interface TissueRules {
   /** Degrees either side of each pulse angle that it is taken to cover. */
   isometricAngleCoverDegrees: number;
   highRepReps: number;
+  /** High-rep work never has fewer reps than this; at least HIGH_REP_FLOOR. */
   highRepMinReps: number;
   highRepRepStep: number;
   highRepBand: BandLevel;
   /** Light reps that tire the muscle before the stretched hold. */
   stretchFatigueReps: number;
-  stretchStartSeconds: number;
-  stretchStepSeconds: number;
-  stretchMaxSeconds: number;
+  /** The loaded-stretch hold: set, not progressed week on week; soreness may shorten it. */
+  stretchHoldSeconds: number;
   maxJointsPerWeek: number;
+  /** Sessions of tissue work in a week, each item done in every one of them. */
+  sessionsPerWeek: number;
   /** Pain flagged in a check-in of this many past weeks pauses that joint's work. */
   painLookbackWeeks: number;
   /** A kind not done on a joint for longer than this many weeks starts over from its start dose. */
@@ -71,32 +96,36 @@ export interface TissueRules {
 }
 
 /**
- * Defaults. Common practice with no single published source: pulses of about 3–5 s, each angle covering
- * about ±10°; high-rep work of 100 reps or more that leaves no soreness the next day; holds of minutes in
- * the stretch; riskier work pulled first as a meet nears. The rest are our own choices: three weeks in a
- * row, loaded stretch out 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line,
- * +0.5 s a week, three pulses per angle, high-rep floor 60 reps in steps of 20, holds from 1 min by 15 s
- * to 3 min, three joints a week, pain pausing a joint for two weeks, a restart after 8 weeks away.
+ * Defaults. Common practice with no single published source: isometric pulses built up from very short
+ * ones (about 1 s) toward about 3–5 s over weeks, each angle covering about ±10°; high-rep work of 100 reps
+ * or more that leaves no soreness the next day; holds of minutes in the stretch; riskier work pulled first
+ * as a meet nears. The numbers are our own choices within that: three weeks in a row, loaded stretch out
+ * 4 weeks and isometrics 2 weeks before the meet, soreness 3/10 as the line, pulses from 1 s by +0.5 s per
+ * easy week to a cap of 5 s (3 s after four easy weeks of pulses), three pulses per angle, high-rep work of
+ * 100 reps (the floor) climbing back in steps of 20 from older, shorter doses, a stretched hold of 2 min
+ * (shortened by a quarter after a sore week, never under 30 s), three joints a week, pain pausing a joint for
+ * two weeks, a restart after 8 weeks away. Sessions a week: three, on separate days — common practice for
+ * short tendon work, recalled from coaching practice with no single published source; the number is ours
+ * to default and each team sets its own.
  */
 export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
   maxConsecutiveWeeks: 3,
   pullIsometricWeeksOut: 2,
   pullStretchWeeksOut: 4,
   sorenessThreshold: 3,
-  isometricStartSeconds: 3,
+  isometricStartSeconds: 1,
   isometricStepSeconds: 0.5,
   isometricMaxSeconds: 5,
   isometricPulsesPerAngle: 3,
   isometricAngleCoverDegrees: 10,
   highRepReps: 100,
-  highRepMinReps: 60,
+  highRepMinReps: HIGH_REP_FLOOR,
   highRepRepStep: 20,
   highRepBand: 'light',
   stretchFatigueReps: 25,
-  stretchStartSeconds: 60,
-  stretchStepSeconds: 15,
-  stretchMaxSeconds: 180,
+  stretchHoldSeconds: 120,
   maxJointsPerWeek: 3,
+  sessionsPerWeek: 3,
   painLookbackWeeks: 2,
   progressionResetWeeks: 8,
 };
@@ -104,6 +133,8 @@ export const DEFAULT_TISSUE_RULES: Readonly<TissueRules> = {
 export interface HighRepDose {
   reps: number;
   band: BandLevel;
+  /** Set when the reps are to be split into this many easy sets with short rests (sore on the lightest band). */
+  easySets?: number;
 }
 export interface IsometricDose {
   seconds: number;
@@ -121,6 +152,8 @@ interface ItemBase {
   joint: Joint;
   exercise: string;
   instructions: string[];
+  /** How many sessions of this work in the week (the team's setting when the week was made). */
+  sessionsPerWeek: number;
 }
 export type TissuePrescription =
   | (ItemBase & { kind: 'highRep'; dose: HighRepDose })
@@ -138,6 +171,8 @@ export interface TissueCheckin {
 
 export interface TissueSuggestion {
   joint: Joint;
+  /** 'pain': pain flagged in a check-in; 'soreness': still sore after high-rep work on the lightest band. */
+  reason: 'pain' | 'soreness';
   message: string;
 }
 
@@ -151,6 +186,8 @@ export interface TissueInput {
   focusJoints: Joint[];
   /** Load per joint from the athlete's current max-effort picks (see jointLoadOf); heavier first. */
   jointLoad?: Partial<Record<Joint, number>>;
+  /** The athlete's restrictions; those on a joint that cover the week keep that joint's work out. */
+  restrictions?: readonly Restriction[];
 }
 
 export interface TissueWeek {
@@ -232,6 +269,35 @@ export function isometricAngles(joint: Joint, coverDegrees: number): number[] {
   return Array.from({ length: count }, (_, i) => Math.round(first + ((last - first) * i) / (count - 1)));
 }
 
+/**
+ * The joints with a restriction covering `week`, each with the weeks it runs (for the note). Restrictions by
+ * emphasis or family only name no joint and keep nothing out.
+ */
+export function restrictedJoints(week: string, restrictions: readonly Restriction[]): Map<Joint, string> {
+  const n = weekNumber(week);
+  const out = new Map<Joint, string>();
+  for (const r of restrictions) {
+    if (r.joint === undefined) continue;
+    if (r.fromWeek !== undefined && weekNumber(r.fromWeek) > n) continue;
+    if (r.toWeek !== undefined && weekNumber(r.toWeek) < n) continue;
+    const span =
+      r.fromWeek && r.toWeek
+        ? `${r.fromWeek} to ${r.toWeek}`
+        : r.toWeek
+          ? `until ${r.toWeek}`
+          : r.fromWeek
+            ? `from ${r.fromWeek}, no end set`
+            : 'no end set';
+    if (!out.has(r.joint)) out.set(r.joint, span);
+  }
+  return out;
+}
+
+/** The note for a joint kept out by a restriction. */
+export function restrictedNote(joint: Joint, span: string): string {
+  return `No work on the ${jointName(joint)} this week: the athlete has a restriction on it (${span}).`;
+}
+
 /** Summed joint stress of a set of variants (e.g. the athlete's current max-effort picks). */
 export function jointLoadOf(variants: readonly Pick<Variant, 'stress'>[]): Partial<Record<Joint, number>> {
   const load: Partial<Record<Joint, number>> = {};
@@ -272,20 +338,26 @@ function checkRules(r: TissueRules): void {
   if (positive('sorenessThreshold', r.sorenessThreshold) > 10) {
     throw new RangeError(`sorenessThreshold must be at most 10, got ${r.sorenessThreshold}`);
   }
-  for (const [prefix, start, step, max] of [
-    ['isometric', r.isometricStartSeconds, r.isometricStepSeconds, r.isometricMaxSeconds],
-    ['stretch', r.stretchStartSeconds, r.stretchStepSeconds, r.stretchMaxSeconds],
-  ] as const) {
-    positive(`${prefix}StartSeconds`, start);
-    if (finite(`${prefix}StepSeconds`, step) < 0)
-      throw new RangeError(`${prefix}StepSeconds must not be negative, got ${step}`);
-    if (finite(`${prefix}MaxSeconds`, max) < start) {
-      throw new RangeError(`${prefix}MaxSeconds (${max}) must be at least ${prefix}StartSeconds (${start})`);
-    }
+  positive('isometricStartSeconds', r.isometricStartSeconds);
+  if (finite('isometricStepSeconds', r.isometricStepSeconds) < 0)
+    throw new RangeError(`isometricStepSeconds must not be negative, got ${r.isometricStepSeconds}`);
+  if (finite('isometricMaxSeconds', r.isometricMaxSeconds) < r.isometricStartSeconds) {
+    throw new RangeError(
+      `isometricMaxSeconds (${r.isometricMaxSeconds}) must be at least isometricStartSeconds (${r.isometricStartSeconds})`,
+    );
+  }
+  if (finite('stretchHoldSeconds', r.stretchHoldSeconds) < STRETCH_MIN_HOLD_SECONDS) {
+    throw new RangeError(
+      `stretchHoldSeconds must be at least ${STRETCH_MIN_HOLD_SECONDS}, got ${r.stretchHoldSeconds}`,
+    );
   }
   wholeAtLeast('isometricPulsesPerAngle', r.isometricPulsesPerAngle, 1);
   positive('isometricAngleCoverDegrees', r.isometricAngleCoverDegrees);
-  wholeAtLeast('highRepMinReps', r.highRepMinReps, 1);
+  if (finite('highRepMinReps', r.highRepMinReps) < HIGH_REP_FLOOR || !Number.isInteger(r.highRepMinReps)) {
+    throw new RangeError(
+      `highRepMinReps must be a whole number of at least ${HIGH_REP_FLOOR} (high-rep work is ${HIGH_REP_FLOOR} reps or more), got ${r.highRepMinReps}`,
+    );
+  }
   if (wholeAtLeast('highRepReps', r.highRepReps, 1) < r.highRepMinReps) {
     throw new RangeError(`highRepReps (${r.highRepReps}) must be at least highRepMinReps (${r.highRepMinReps})`);
   }
@@ -293,6 +365,8 @@ function checkRules(r: TissueRules): void {
   oneOf('highRepBand', r.highRepBand, BAND_LEVELS);
   wholeAtLeast('stretchFatigueReps', r.stretchFatigueReps, 1);
   wholeAtLeast('maxJointsPerWeek', r.maxJointsPerWeek, 1);
+  if (wholeAtLeast('sessionsPerWeek', r.sessionsPerWeek, 1) > 7)
+    throw new RangeError(`sessionsPerWeek must be at most 7, got ${r.sessionsPerWeek}`);
   wholeAtLeast('painLookbackWeeks', r.painLookbackWeeks, 1);
   wholeAtLeast('progressionResetWeeks', r.progressionResetWeeks, 1);
 }
@@ -318,6 +392,11 @@ function checkInput(input: TissueInput): void {
     } else {
       positive('stretch hold seconds in history', item.dose.holdSeconds);
     }
+  }
+  for (const r of input.restrictions ?? []) {
+    if (r.joint !== undefined) oneOf('restricted joint', r.joint, JOINTS);
+    if (r.fromWeek !== undefined) parseWeek(r.fromWeek);
+    if (r.toWeek !== undefined) parseWeek(r.toWeek);
   }
   for (const c of input.checkins) {
     parseWeek(c.week);
@@ -526,13 +605,18 @@ function climb(
     : { value, why: 'at the cap' };
 }
 
-function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: HighRepDose; why?: string } {
+function highRepDose(
+  input: TissueInput,
+  past: Past,
+  joint: Joint,
+): { dose: HighRepDose; why?: string; suggestion?: string } {
   const r = input.rules;
   const last = lastItem(past, 'highRep', joint);
   const ruleBand = BAND_LEVELS.indexOf(r.highRepBand);
   if (!last) return { dose: { reps: r.highRepReps, band: r.highRepBand } };
   const band = Math.min(BAND_LEVELS.indexOf(last.dose.band), ruleBand);
-  const reps = Math.min(last.dose.reps, r.highRepReps);
+  // Doses stored before the floor existed may hold fewer reps: they come back to the floor at once.
+  const reps = Math.max(r.highRepMinReps, Math.min(last.dose.reps, r.highRepReps));
   const checkin = checkinFor(past, last.week, 'highRep');
   if (!checkin) {
     return { dose: { reps, band: BAND_LEVELS[band]! }, why: `Same dose as last time: no check-in after ${last.week}.` };
@@ -542,16 +626,14 @@ function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: High
     if (band > 0) {
       return { dose: { reps, band: BAND_LEVELS[band - 1]! }, why: `Band one step lighter, same reps: ${sore}.` };
     }
-    const fewer = Math.max(r.highRepMinReps, reps - r.highRepRepStep);
-    if (fewer < reps) {
-      return {
-        dose: { reps: fewer, band: BAND_LEVELS[band]! },
-        why: `${reps - fewer} fewer reps (already on the lightest band): ${sore}.`,
-      };
-    }
+    const easySets = Math.ceil(reps / EASY_SET_REPS);
     return {
-      dose: { reps, band: BAND_LEVELS[band]! },
-      why: `Already the lightest dose and still sore (${sore}): the coach should review this work.`,
+      dose: { reps, band: BAND_LEVELS[band]!, easySets },
+      why: `Already on the lightest band and still sore (${sore}): the same ${reps} reps, split into easy sets.`,
+      suggestion:
+        `High-rep work at the ${jointName(joint)} left soreness on the lightest band (${sore}). ` +
+        `This week it is split into ${easySets} easy sets; consider another kind of tissue work for this joint ` +
+        'or fewer sessions, and review how the reps are done.',
     };
   }
   const more = Math.min(r.highRepReps, reps + r.highRepRepStep);
@@ -559,6 +641,34 @@ function highRepDose(input: TissueInput, past: Past, joint: Joint): { dose: High
     dose: { reps: more, band: BAND_LEVELS[band]! },
     ...(more > reps ? { why: `${more - reps} reps back on: no soreness to speak of after ${last.week}.` } : {}),
   };
+}
+
+/** The loaded-stretch hold: the set time, shortened after a sore week, never longer than the set time. */
+function stretchHold(
+  input: TissueInput,
+  past: Past,
+  last: ItemOf<'loadedStretch'> | undefined,
+): { value: number; why?: string } {
+  const set = input.rules.stretchHoldSeconds;
+  if (!last) return { value: set };
+  const gap = past.now - weekNumber(last.week);
+  if (gap > input.rules.progressionResetWeeks) return { value: set };
+  // A hold stored under older rules (progressed past today's set time) comes back to the set time.
+  const prev = Math.min(set, last.dose.holdSeconds);
+  const checkin = checkinFor(past, last.week, 'loadedStretch');
+  if (!checkin) {
+    return prev < set ? { value: prev, why: `kept as last time: no check-in after ${last.week}` } : { value: set };
+  }
+  if (checkin.soreness >= input.rules.sorenessThreshold) {
+    const shorter = Math.max(STRETCH_MIN_HOLD_SECONDS, Math.round((prev * STRETCH_SORE_SHARE) / 5) * 5);
+    return {
+      value: Math.min(prev, shorter),
+      why: `shortened: soreness ${checkin.soreness}/10 after ${last.week}`,
+    };
+  }
+  return prev < set
+    ? { value: set, why: `back to the set time: no soreness to speak of after ${last.week}` }
+    : { value: set };
 }
 
 function formatSeconds(s: number): string {
@@ -572,22 +682,35 @@ function capitalise(s: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
 
-function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Joint): TissuePrescription {
+function buildItem(
+  input: TissueInput,
+  past: Past,
+  kind: TissueKind,
+  joint: Joint,
+): { item: TissuePrescription; suggestion?: string } {
   const r = input.rules;
-  const base = { week: input.week, joint, exercise: TISSUE_EXERCISES[joint][kind] };
+  const base = {
+    week: input.week,
+    joint,
+    exercise: TISSUE_EXERCISES[joint][kind],
+    sessionsPerWeek: r.sessionsPerWeek,
+  };
   if (kind === 'highRep') {
-    const { dose, why } = highRepDose(input, past, joint);
-    return {
+    const { dose, why, suggestion } = highRepDose(input, past, joint);
+    const item: TissuePrescription = {
       ...base,
       kind,
       dose,
       instructions: [
-        `${dose.reps} reps with the ${dose.band} band, in as few sets as feels easy.`,
+        dose.easySets
+          ? `${dose.reps} reps with the ${dose.band} band, split into ${dose.easySets} easy sets of about ${Math.ceil(dose.reps / dose.easySets)} with ${EASY_SET_REST_SECONDS} s rest between them.`
+          : `${dose.reps} reps with the ${dose.band} band, in as few sets as feels easy.`,
         'Use the least effort that moves the band: smooth reps, no chasing a burn or a pump.',
         'Soreness the next day means it was done too hard: say so in the check-in.',
         ...(why ? [why] : []),
       ],
     };
+    return suggestion ? { item, suggestion } : { item };
   }
   if (kind === 'isometric') {
     const last = lastItem(past, 'isometric', joint);
@@ -599,7 +722,7 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
       past,
     );
     const angles = isometricAngles(joint, r.isometricAngleCoverDegrees);
-    return {
+    const item: TissuePrescription = {
       ...base,
       kind,
       dose: { seconds: step.value, pulsesPerAngle: r.isometricPulsesPerAngle, angles },
@@ -611,16 +734,11 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
         ...(step.why ? [`Hold time ${step.why}.`] : []),
       ],
     };
+    return { item };
   }
   const last = lastItem(past, 'loadedStretch', joint);
-  const step = climb(
-    { start: r.stretchStartSeconds, step: r.stretchStepSeconds, max: r.stretchMaxSeconds },
-    last && { week: last.week, value: last.dose.holdSeconds },
-    last && checkinFor(past, last.week, 'loadedStretch'),
-    input,
-    past,
-  );
-  return {
+  const step = stretchHold(input, past, last);
+  const item: TissuePrescription = {
     ...base,
     kind,
     dose: { fatigueReps: r.stretchFatigueReps, holdSeconds: step.value },
@@ -628,9 +746,11 @@ function buildItem(input: TissueInput, past: Past, kind: TissueKind, joint: Join
       `First tire the muscle: ${r.stretchFatigueReps} light reps of the same movement.`,
       `Then hold the stretched position for ${formatSeconds(step.value)}, breathing slowly; the load moves from the tired muscle to the tendon.`,
       'Light enough to hold still and relaxed; ease out at once if the stretch turns sharp.',
+      'The hold stays at this time from week to week: do not lengthen it on your own.',
       ...(step.why ? [`Hold time ${step.why}.`] : []),
     ],
   };
+  return { item };
 }
 
 /** The athlete's connective-tissue work for `input.week`. Throws a RangeError on malformed input. */
@@ -639,14 +759,21 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
   const past = readPast(input);
   const { kind, notes } = chooseKind(input, past);
   const pain = recentPain(input, past);
+  const restricted = restrictedJoints(input.week, input.restrictions ?? []);
   const suggestions: TissueSuggestion[] = JOINTS.filter((j) => pain.has(j)).map((joint) => {
     const { weeks, after } = pain.get(joint)!;
     const label = jointName(joint);
+    const span = restricted.get(joint);
+    const advice =
+      span === undefined
+        ? `Consider adding a restriction on the ${label} for max-effort picks. Its connective-tissue work is paused meanwhile. `
+        : `A restriction on the ${label} is in place (${span}): keep it while the pain lasts. Its connective-tissue work stays out meanwhile. `;
     return {
       joint,
+      reason: 'pain' as const,
       message:
         `Pain at the ${label} reported after ${[...after].map((k) => KIND_LABEL[k]).join(' and ')} (${[...weeks].join(', ')}). ` +
-        `Consider adding a restriction on the ${label} for max-effort picks. Its connective-tissue work is paused meanwhile. ` +
+        advice +
         'If it persists, refer the athlete to a licensed clinician.',
     };
   });
@@ -656,11 +783,18 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
     if (joints.length === 0)
       notes.push('No focus joints set: add some in the team rules to get connective-tissue work.');
     for (const joint of joints) {
+      const span = restricted.get(joint);
+      if (span !== undefined) {
+        notes.push(restrictedNote(joint, span));
+        continue;
+      }
       if (pain.has(joint)) {
         notes.push(`No work on the ${jointName(joint)} this week: pain was reported there recently.`);
         continue;
       }
-      items.push(buildItem(input, past, kind, joint));
+      const { item, suggestion } = buildItem(input, past, kind, joint);
+      items.push(item);
+      if (suggestion) suggestions.push({ joint, reason: 'soreness', message: suggestion });
     }
   }
   return { kind, items, suggestions, notes: [...notes, ...TISSUE_CAUTION] };

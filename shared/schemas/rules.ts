@@ -1,6 +1,6 @@
 // Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
 import { z } from 'zod';
-import { DEFAULT_TISSUE_RULES } from '../engine/tissue';
+import { DEFAULT_TISSUE_RULES, HIGH_REP_FLOOR } from '../engine/tissue';
 import { DEFAULT_SESSIONS, defaultSessionsFor, sessionsSchema } from './week';
 
 export const liftSchema = z.enum(['squat', 'bench', 'deadlift']);
@@ -24,15 +24,44 @@ export const taperStepSchema = z.object({
 
 export const jointBudgetSchema = z.partialRecord(jointSchema, z.number().min(0).max(60));
 
+/** The most reps of high-rep work a team may set (our choice: beyond this a session is too long to be light). */
+const HIGH_REP_MAX = 300;
+
 /** The connective-tissue settings a coach edits; the rest of the tissue module's rules keep their defaults. */
 export const tissueSettingsSchema = z.object({
   maxConsecutiveWeeks: z.number().int().min(1, 'At least 1 week').max(12),
   pullIsometricWeeksOut: z.number().int().min(-1).max(16),
   pullStretchWeeksOut: z.number().int().min(-1).max(16),
   sorenessThreshold: z.number().int().min(1).max(10),
+  /** The reps of high-rep light work; soreness lowers the band, never the reps. */
+  highRepMinReps: z
+    .number({ message: 'Enter a number of reps' })
+    .int('Use whole reps')
+    .min(HIGH_REP_FLOOR, `High-rep work is ${HIGH_REP_FLOOR} reps or more: use at least ${HIGH_REP_FLOOR}`)
+    .max(HIGH_REP_MAX, `Use at most ${HIGH_REP_MAX} reps`),
+  /** Sessions of tissue work in a week. */
+  sessionsPerWeek: z
+    .number({ message: 'Enter a number of sessions' })
+    .int('Use whole sessions')
+    .min(1, 'At least 1 session a week')
+    .max(7, 'At most 7 sessions a week'),
   focusJoints: z.array(jointSchema).max(6),
 });
 export type TissueSettings = z.infer<typeof tissueSettingsSchema>;
+
+/**
+ * Stored tissue settings are read forgivingly: a setting added later reads as its default, and reps saved
+ * when fewer than 100 were allowed are clamped up to 100 on read (into range), so those teams' rules still
+ * load instead of falling back to the defaults; the next save stores the clamped value.
+ */
+const storedTissueSettingsSchema = tissueSettingsSchema.extend({
+  highRepMinReps: z
+    .number()
+    .int()
+    .default(DEFAULT_TISSUE_RULES.highRepMinReps)
+    .transform((n) => Math.min(HIGH_REP_MAX, Math.max(HIGH_REP_FLOOR, n))),
+  sessionsPerWeek: tissueSettingsSchema.shape.sessionsPerWeek.default(DEFAULT_TISSUE_RULES.sessionsPerWeek),
+});
 
 const teamRulesShape = {
   slots: z.array(slotSchema).min(1, 'Keep at least one max-effort slot').max(4),
@@ -85,7 +114,9 @@ export const teamRulesSchema = z
   .strictObject({ ...teamRulesShape, tissue: tissueSettingsSchema.strict() })
   .superRefine(distinctSlots);
 /** Stored rules are read forgivingly: a field left from an older version is ignored. */
-const storedTeamRulesSchema = z.object(teamRulesShape).superRefine(distinctSlots);
+const storedTeamRulesSchema = z
+  .object({ ...teamRulesShape, tissue: storedTissueSettingsSchema })
+  .superRefine(distinctSlots);
 export type TeamRules = z.infer<typeof teamRulesSchema>;
 
 export const equipmentListSchema = z
@@ -116,6 +147,8 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
     pullIsometricWeeksOut: DEFAULT_TISSUE_RULES.pullIsometricWeeksOut,
     pullStretchWeeksOut: DEFAULT_TISSUE_RULES.pullStretchWeeksOut,
     sorenessThreshold: DEFAULT_TISSUE_RULES.sorenessThreshold,
+    highRepMinReps: DEFAULT_TISSUE_RULES.highRepMinReps,
+    sessionsPerWeek: DEFAULT_TISSUE_RULES.sessionsPerWeek,
     focusJoints: ['elbow', 'knee', 'shoulder'],
   },
   sessions: DEFAULT_SESSIONS,

@@ -2,7 +2,7 @@
 import type { Division, Sex } from '../calc/classes';
 import { z } from 'zod';
 import type { TissueSuggestion } from '../engine/tissue';
-import type { Series, TissueCheckinRow, TopSet, VariantHistory } from './training';
+import type { Series, TissueCheckinRow, TissueWorkWeek, TopSet, VariantHistory } from './training';
 
 /** Containers a video may come in, checked from the file's content, never its name. */
 export const VIDEO_TYPES = { mp4: 'video/mp4', mov: 'video/quicktime', webm: 'video/webm' } as const;
@@ -36,8 +36,10 @@ export interface Video {
 export interface AthleteReview {
   athlete: { id: number; name: string; sex: Sex; division: Division };
   week: string;
-  /** Restrictions to consider, from pain flagged in recent check-ins. */
+  /** Restrictions to consider (pain flagged in recent check-ins) and work still sore on the lightest band. */
   suggestions: TissueSuggestion[];
+  /** This week's connective-tissue work, as the athlete sees it. */
+  tissue: TissueWorkWeek;
   checkins: TissueCheckinRow[];
   videos: Video[];
   variants: VariantHistory[];

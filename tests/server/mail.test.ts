@@ -53,6 +53,7 @@ describe('templates', () => {
       exercise: 'Elbow extension pulses against a fixed strap',
       instructions: ['Build up slowly.'],
       dose: { seconds: 3.5, pulsesPerAngle: 3, angles: [10, 70, 130] },
+      sessionsPerWeek: 3,
     },
   ];
   const weekly = weeklyPlanMail({
@@ -98,7 +99,7 @@ describe('templates', () => {
   });
 
   it('describes every kind of tissue dose in words', () => {
-    const base = { week: '2027-W10', joint: 'knee' as const, exercise: 'x', instructions: [] };
+    const base = { week: '2027-W10', joint: 'knee' as const, exercise: 'x', instructions: [], sessionsPerWeek: 3 };
     expect(tissueDose({ ...base, kind: 'highRep', dose: { reps: 100, band: 'light' } })).toBe(
       '100 easy reps with a light band',
     );

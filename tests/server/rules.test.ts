@@ -50,6 +50,62 @@ describe('GET /api/rules', () => {
   });
 });
 
+describe('stored tissue settings', () => {
+  it('load when saved with fewer than 100 high-rep reps (clamped to 100) or with settings since dropped', async () => {
+    const db = t.ctx.database.db;
+    const older = await createTeam(db);
+    const { highRepMinReps: _reps, sessionsPerWeek: _sessions, ...tissue } = DEFAULT_TEAM_RULES.tissue;
+    await db
+      .update(teamRules)
+      .set({
+        rules: {
+          ...DEFAULT_TEAM_RULES,
+          repeatWindowWeeks: 7,
+          // Left from older versions: a floor of 60 reps and the loaded stretch's weekly step and cap.
+          tissue: {
+            ...tissue,
+            maxConsecutiveWeeks: 2,
+            highRepMinReps: 60,
+            stretchStepSeconds: 15,
+            stretchMaxSeconds: 180,
+          },
+        },
+      })
+      .where(eq(teamRules.teamId, older.teamId));
+    const res = await (await t.signIn(older.coach.email)).get('/api/rules');
+    expect(res.status).toBe(200);
+    expect(res.body.rules).toEqual({
+      ...DEFAULT_TEAM_RULES,
+      repeatWindowWeeks: 7,
+      tissue: { ...DEFAULT_TEAM_RULES.tissue, maxConsecutiveWeeks: 2, highRepMinReps: 100 },
+    });
+    // Without the settings at all: their defaults.
+    await db
+      .update(teamRules)
+      .set({ rules: { ...DEFAULT_TEAM_RULES, tissue } })
+      .where(eq(teamRules.teamId, older.teamId));
+    expect((await (await t.signIn(older.coach.email)).get('/api/rules')).body.rules).toEqual(DEFAULT_TEAM_RULES);
+  });
+
+  it('refuses fewer than 100 high-rep reps with a field error, and saves nothing', async () => {
+    const current = (await head.get('/api/rules')).body;
+    const res = await head.put('/api/rules').send({
+      ...current,
+      rules: {
+        ...current.rules,
+        repeatWindowWeeks: 9,
+        tissue: { ...current.rules.tissue, highRepMinReps: 60, sessionsPerWeek: 8 },
+      },
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['rules.tissue.highRepMinReps']).toEqual([
+      'High-rep work is 100 reps or more: use at least 100',
+    ]);
+    expect(res.body.error.fields['rules.tissue.sessionsPerWeek']).toEqual(['At most 7 sessions a week']);
+    expect((await head.get('/api/rules')).body).toEqual(current);
+  });
+});
+
 describe('PUT /api/rules', () => {
   it('saves the head coach’s change, bumps the version and records who saved', async () => {
     const current = (await head.get('/api/rules')).body;

@@ -4,12 +4,13 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { and, eq } from 'drizzle-orm';
 import { DEFAULT_TISSUE_RULES, prescribeTissueWork } from '../../shared/engine/tissue';
-import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import { addWeeks, mondayOf, weekOfDate } from '../../shared/engine/weeks';
+import { isoDay } from '../../server/lib/days';
 import { DEFAULT_TEAM_RULES } from '../../shared/schemas/rules';
 import { teamRules, tissuePrescriptions } from '../../server/db/schema';
 import { tissueWorkFor } from '../../server/modules/tissue/tissue.service';
 import { useTestApp } from '../support/app';
-import { createPlanEntry, createTeam, createVariant, type TestTeam } from '../support/factories';
+import { createPlanEntry, createRestriction, createTeam, createVariant, type TestTeam } from '../support/factories';
 
 const t = useTestApp();
 const thisWeek = weekOfDate(new Date());
@@ -133,5 +134,81 @@ describe('POST /api/tissue/checkins', () => {
     const next = await tissueWorkFor(t.ctx, team.teamId, team.athleteId, addWeeks(thisWeek, 1));
     expect(next.items.map((i) => i.joint)).not.toContain('elbow');
     expect(next.notes.join(' ')).toMatch(/No work on the elbow this week/);
+  });
+});
+
+describe('restrictions', () => {
+  it('keep a joint restricted that week out of the tissue work, stored or not, on My week too', async () => {
+    const db = t.ctx.database.db;
+    const own = await createTeam(db);
+    const before = await tissueWorkFor(t.ctx, own.teamId, own.athleteId, thisWeek);
+    expect(before.items.map((i) => i.joint)).toEqual(['elbow', 'knee', 'shoulder']);
+    const me = await t.signIn(own.athleteUser.email);
+    expect((await me.get('/api/my-week')).body.tissue.items.map((i: { joint: string }) => i.joint)).toContain('elbow');
+
+    // The coach restricts the elbow from this week's Monday for two weeks, after the week was stored.
+    const monday = isoDay(mondayOf(thisWeek));
+    const until = isoDay(mondayOf(addWeeks(thisWeek, 1)));
+    const coach = await t.signIn(own.coach.email);
+    const added = await coach
+      .post(`/api/athletes/${own.athleteId}/restrictions`)
+      .send({ joint: 'elbow', maxStress: 1, fromDate: monday, toDate: until });
+    expect(added.status).toBe(201);
+
+    const note = `No work on the elbow this week: the athlete has a restriction on it (${thisWeek} to ${addWeeks(thisWeek, 1)}).`;
+    const during = await tissueWorkFor(t.ctx, own.teamId, own.athleteId, thisWeek);
+    expect(during.items.map((i) => i.joint)).toEqual(['knee', 'shoulder']);
+    expect(during.notes).toContain(note);
+    const page = (await me.get('/api/my-week')).body;
+    expect(page.tissue.items.map((i: { joint: string }) => i.joint)).toEqual(['knee', 'shoulder']);
+    expect(page.tissue.notes).toContain(note);
+    const next = await tissueWorkFor(t.ctx, own.teamId, own.athleteId, addWeeks(thisWeek, 1));
+    expect(next.items.map((i) => i.joint)).not.toContain('elbow');
+    // After it ends the elbow is worked again.
+    const after = await tissueWorkFor(t.ctx, own.teamId, own.athleteId, addWeeks(thisWeek, 2));
+    expect(after.items.map((i) => i.joint)).toContain('elbow');
+    // A row under another team, even naming this athlete, is not read: the reads are scoped to the team.
+    await createRestriction(db, team.teamId, own.athleteId, { joint: 'knee', fromDate: monday });
+    expect((await tissueWorkFor(t.ctx, own.teamId, own.athleteId, thisWeek)).items.map((i) => i.joint)).toEqual([
+      'knee',
+      'shoulder',
+    ]);
+  });
+});
+
+describe('sessions a week', () => {
+  it('carries the team’s weekly session count on every item, on My week and the coach’s review', async () => {
+    const db = t.ctx.database.db;
+    const own = await createTeam(db);
+    await db
+      .update(teamRules)
+      .set({
+        rules: {
+          ...DEFAULT_TEAM_RULES,
+          tissue: { ...DEFAULT_TEAM_RULES.tissue, sessionsPerWeek: 2 },
+        } as unknown as Record<string, unknown>,
+      })
+      .where(eq(teamRules.teamId, own.teamId));
+    const me = await t.signIn(own.athleteUser.email);
+    const page = (await me.get('/api/my-week')).body;
+    expect(page.tissue.items.length).toBeGreaterThan(0);
+    expect(page.tissue.items.map((i: { sessionsPerWeek: number }) => i.sessionsPerWeek)).toEqual(
+      page.tissue.items.map(() => 2),
+    );
+    const review = await (await t.signIn(own.coach.email)).get(`/api/athletes/${own.athleteId}/review`);
+    expect(review.status).toBe(200);
+    expect(review.body.tissue).toMatchObject({ week: thisWeek, items: page.tissue.items });
+  });
+
+  it('reads items stored before the count existed as three a week', async () => {
+    const db = t.ctx.database.db;
+    const own = await createTeam(db);
+    const { sessionsPerWeek: _n, ...old } = (await tissueWorkFor(db, own.teamId, own.athleteId, thisWeek)).items[0]!;
+    await db
+      .update(tissuePrescriptions)
+      .set({ items: [old] })
+      .where(and(eq(tissuePrescriptions.athleteId, own.athleteId), eq(tissuePrescriptions.week, thisWeek)));
+    const again = await tissueWorkFor(db, own.teamId, own.athleteId, thisWeek);
+    expect(again.items).toEqual([{ ...old, sessionsPerWeek: 3 }]);
   });
 });

@@ -1,7 +1,8 @@
 // The roster's rules: an athlete links to at most one athlete account of the same team, equipment
 // defaults to the gym's, athletes are archived (their history stays), and restrictions are versioned.
 import { weekOfDate } from '../../../shared/engine/weeks';
-import { dayWeek } from '../../../shared/planning';
+import { dayWeek, engineRestriction } from '../../../shared/planning';
+import type { Restriction as EngineRestriction } from '../../../shared/engine/types';
 import {
   readRuleOverrides,
   restrictionProblems,
@@ -329,4 +330,13 @@ export async function unmarkRestWeek(
 }
 
 // Offered to other modules (meets, tissue, review, athlete scoping): the same reads, through this service.
+/** One athlete's restrictions as the engines read them, each with the ISO weeks it covers (team-scoped). */
+export async function engineRestrictionsOf(
+  db: Queryable,
+  teamId: number,
+  athleteId: number,
+): Promise<EngineRestriction[]> {
+  return (await repo.restrictionsOf(db, teamId, [athleteId])).map((r) => engineRestriction(r));
+}
+
 export { findAthlete, findTeamAthlete, latestBodyweights } from './athletes.repository';

@@ -12,6 +12,7 @@ import {
   meetEntries,
   meets,
   planEntries,
+  restrictions,
   sessionLogs,
   teamRules,
   tissueCheckins,
@@ -81,6 +82,8 @@ const FINGERPRINT_PARTS: FingerprintPart[] = [
   own(topSets),
   own(tissuePrescriptions),
   own(tissueCheckins),
+  // The athlete's restrictions keep restricted joints out of the week's tissue work.
+  own(restrictions),
   own(meetEntries),
   {
     table: meets,

@@ -17,7 +17,7 @@ import {
   toCheckinRow,
 } from '../tissue/tissue.service';
 import { recordOf, topSetsAroundWeek } from '../top-sets/top-sets.service';
-import { findTeamAthlete } from '../athletes/athletes.service';
+import { engineRestrictionsOf, findTeamAthlete } from '../athletes/athletes.service';
 import { keptAnswer } from './answer-cache';
 import { isWeekPublished, weekFingerprint } from './my-week.repository';
 import { weekPicks } from '../plans/plans.service';
@@ -48,21 +48,33 @@ export async function myWeek(
 
   // A week the coach has not published is a draft the athlete does not see; weeks gone by are history.
   const thisWeek = weekOfDate(now);
-  const [athlete, rulesText, rows, sets, prescriptions, checkinRows, upcoming, readings, published, weekParts] =
-    await Promise.all([
-      findTeamAthlete(db, teamId, athleteId),
-      findTeamRulesText(db, teamId),
-      weekPicks(db, teamId, athleteId, week),
-      topSetsAroundWeek(db, teamId, athleteId, week),
-      listPrescriptionsThrough(db, teamId, athleteId, week),
-      listCheckins(db, teamId, athleteId),
-      // From the earlier of today and the week's Monday: the page shows the next meet from today, the
-      // tissue work counts down to the next one from the week's start.
-      meetsFrom(db, teamId, athleteId, today < monday ? today : monday),
-      allBodyweights(db, teamId, athleteId, recentSince(now)),
-      week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
-      weekInputs(db, teamId, athleteId, week),
-    ]);
+  const [
+    athlete,
+    rulesText,
+    rows,
+    sets,
+    prescriptions,
+    checkinRows,
+    upcoming,
+    readings,
+    published,
+    weekParts,
+    restrictions,
+  ] = await Promise.all([
+    findTeamAthlete(db, teamId, athleteId),
+    findTeamRulesText(db, teamId),
+    weekPicks(db, teamId, athleteId, week),
+    topSetsAroundWeek(db, teamId, athleteId, week),
+    listPrescriptionsThrough(db, teamId, athleteId, week),
+    listCheckins(db, teamId, athleteId),
+    // From the earlier of today and the week's Monday: the page shows the next meet from today, the
+    // tissue work counts down to the next one from the week's start.
+    meetsFrom(db, teamId, athleteId, today < monday ? today : monday),
+    allBodyweights(db, teamId, athleteId, recentSince(now)),
+    week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
+    weekInputs(db, teamId, athleteId, week),
+    engineRestrictionsOf(db, teamId, athleteId),
+  ]);
   if (!athlete) throw new NotFoundError('A roster entry linked to your account');
   const rules = rulesFromText(teamId, rulesText);
   const meet = upcoming.find((m) => m.date >= today) ?? null;
@@ -76,6 +88,7 @@ export async function myWeek(
       checkins: checkinRows,
       meet: upcoming.find((m) => m.date >= monday) ?? null,
       picks: rows,
+      restrictions,
       stored: prescriptions.find((p) => p.week === week) ?? null,
     },
     now,

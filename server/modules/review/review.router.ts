@@ -1,5 +1,5 @@
-// /api/athletes/:id/review: what a coach reviews on the athlete's page — tissue suggestions and
-// check-ins, videos with comments, records per variant and the e1RM and bodyweight series.
+// /api/athletes/:id/review: what a coach reviews on the athlete's page — this week's tissue work, tissue
+// suggestions and check-ins, videos with comments, records per variant and the e1RM and bodyweight series.
 import { Router } from 'express';
 import { weekOfDate } from '../../../shared/engine/weeks';
 import { idParams, type AthleteReview } from '../../../shared/schemas';
@@ -8,7 +8,7 @@ import { STAFF, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { NotFoundError } from '../../lib/errors';
 import { findTeamAthlete } from '../athletes/athletes.service';
-import { recentCheckins, tissueSuggestionsFor } from '../tissue/tissue.service';
+import { recentCheckins, tissueSuggestionsFor, tissueWorkFor } from '../tissue/tissue.service';
 import { historyOf } from '../top-sets/history.service';
 import { athleteVideos } from '../videos/videos.service';
 
@@ -24,8 +24,9 @@ export function reviewRouter(ctx: AppContext): Router {
       const athlete = await findTeamAthlete(db, teamId, params.id);
       if (!athlete) throw new NotFoundError('That athlete');
       const week = weekOfDate(new Date());
-      const [suggestions, checkins, videos, history] = await Promise.all([
+      const [suggestions, tissue, checkins, videos, history] = await Promise.all([
         tissueSuggestionsFor(db, teamId, athlete.id, week),
+        tissueWorkFor(db, teamId, athlete.id, week),
         recentCheckins(db, teamId, athlete.id, 12),
         athleteVideos(db, teamId, athlete.id),
         // The e1RM and bodyweight series are history: a moment's replication lag cannot mislead them.
@@ -35,6 +36,7 @@ export function reviewRouter(ctx: AppContext): Router {
         athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
         week,
         suggestions,
+        tissue,
         checkins,
         videos,
         ...history,

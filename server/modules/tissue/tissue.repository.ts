@@ -2,7 +2,7 @@
 // (team rules, the next meet). Every query is scoped to the team.
 import { and, asc, desc, eq, gt, gte, lt, lte, sql, type SQL } from 'drizzle-orm';
 import type { Joint } from '../../../shared/engine/types';
-import type { TissueKind, TissuePrescription } from '../../../shared/engine/tissue';
+import { DEFAULT_TISSUE_RULES, type TissueKind, type TissuePrescription } from '../../../shared/engine/tissue';
 import type { Queryable } from '../../db/client';
 import { meetEntries, meets, teamRules, tissueCheckins, tissuePrescriptions } from '../../db/schema';
 
@@ -20,6 +20,20 @@ export async function findTeamRulesText(db: Queryable, teamId: number): Promise<
   return row?.rules ?? null;
 }
 
+/**
+ * Stored items as the app reads them: items stored before the weekly session count existed read as the
+ * default count, the number those weeks were meant to be done.
+ */
+function storedItems(items: unknown): TissuePrescription[] {
+  return (items as (Omit<TissuePrescription, 'sessionsPerWeek'> & { sessionsPerWeek?: number })[]).map(
+    (item) =>
+      ({
+        ...item,
+        sessionsPerWeek: item.sessionsPerWeek ?? DEFAULT_TISSUE_RULES.sessionsPerWeek,
+      }) as TissuePrescription,
+  );
+}
+
 /** One athlete's prescriptions, inside the team. */
 const prescriptionsOf = (teamId: number, athleteId: number) =>
   and(eq(tissuePrescriptions.teamId, teamId), eq(tissuePrescriptions.athleteId, athleteId));
@@ -30,7 +44,7 @@ export async function findPrescription(db: Queryable, teamId: number, athleteId:
     .from(tissuePrescriptions)
     .where(and(prescriptionsOf(teamId, athleteId), eq(tissuePrescriptions.week, week)))
     .limit(1);
-  return row ? { ...row, items: row.items as TissuePrescription[] } : null;
+  return row ? { ...row, items: storedItems(row.items) } : null;
 }
 
 async function listPrescriptions(db: Queryable, teamId: number, athleteId: number, weeks: SQL) {
@@ -39,7 +53,7 @@ async function listPrescriptions(db: Queryable, teamId: number, athleteId: numbe
     .from(tissuePrescriptions)
     .where(and(prescriptionsOf(teamId, athleteId), weeks))
     .orderBy(asc(tissuePrescriptions.week));
-  return rows.map((r) => ({ week: r.week, items: r.items as TissuePrescription[] }));
+  return rows.map((r) => ({ week: r.week, items: storedItems(r.items) }));
 }
 
 /** Stored prescriptions of the weeks before `week`, oldest first. */

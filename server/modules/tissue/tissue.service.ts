@@ -6,6 +6,8 @@ import {
   DEFAULT_TISSUE_RULES,
   jointLoadOf,
   prescribeTissueWork,
+  restrictedJoints,
+  restrictedNote,
   type TissueCheckin,
   type TissueInput,
   type TissuePrescription,
@@ -17,7 +19,8 @@ import { readTeamRules, type TeamRules, type TissueCheckinRow, type TissueWorkWe
 import type { AppContext } from '../../context';
 import type { Queryable } from '../../db/client';
 import { NotFoundError, ValidationError } from '../../lib/errors';
-import { findTeamAthlete } from '../athletes/athletes.service';
+import { engineRestrictionsOf, findTeamAthlete } from '../athletes/athletes.service';
+import type { Restriction } from '../../../shared/engine/types';
 import {
   deletePrescriptionsAfter,
   findNextMeet,
@@ -46,7 +49,9 @@ export function tissueRulesOf(team: TeamRules): {
   focusJoints: TeamRules['tissue']['focusJoints'];
 } {
   const { focusJoints, ...settings } = team.tissue;
-  return { rules: { ...DEFAULT_TISSUE_RULES, ...settings }, focusJoints };
+  // The team sets the reps of high-rep work as its floor; the target is never below it.
+  const highRepReps = Math.max(DEFAULT_TISSUE_RULES.highRepReps, settings.highRepMinReps);
+  return { rules: { ...DEFAULT_TISSUE_RULES, ...settings, highRepReps }, focusJoints };
 }
 
 /**
@@ -84,6 +89,8 @@ export interface TissueFacts {
   meet: { date: string } | null;
   /** The week's max-effort picks (their joint stress). */
   picks: { variant: { stress: Parameters<typeof jointLoadOf>[0][number]['stress'] } }[];
+  /** The athlete's restrictions with their weeks: a joint restricted that week gets no tissue work. */
+  restrictions: Restriction[];
 }
 
 export function tissueInputFrom(week: string, facts: TissueFacts): TissueInput {
@@ -96,6 +103,7 @@ export function tissueInputFrom(week: string, facts: TissueFacts): TissueInput {
     checkins: toEngineCheckins(facts.checkins),
     focusJoints,
     jointLoad: jointLoadOf(facts.picks.map((p) => p.variant)),
+    restrictions: facts.restrictions,
   };
 }
 
@@ -106,14 +114,15 @@ export async function tissueInput(
   athleteId: number,
   week: string,
 ): Promise<TissueInput> {
-  const [team, history, checkins, meet, picks] = await Promise.all([
+  const [team, history, checkins, meet, picks, restrictions] = await Promise.all([
     readRulesOfTeam(db, teamId),
     listPrescriptionsBefore(db, teamId, athleteId, week),
     listCheckins(db, teamId, athleteId),
     findNextMeet(db, teamId, athleteId, isoDay(mondayOf(week))),
     weekPicks(db, teamId, athleteId, week),
+    engineRestrictionsOf(db, teamId, athleteId),
   ]);
-  return tissueInputFrom(week, { team, history, checkins, meet, picks });
+  return tissueInputFrom(week, { team, history, checkins, meet, picks, restrictions });
 }
 
 /**
@@ -155,8 +164,17 @@ export async function tissueWorkFrom(
     await insertPrescriptionIfAbsent(db, { teamId, athleteId, week, items: fresh.items });
     stored = await findPrescription(db, teamId, athleteId, week);
   }
-  const items = stored?.items ?? fresh.items;
-  return { week, kind: items[0]?.kind ?? null, items, notes: fresh.notes, suggestions: fresh.suggestions };
+  // A restriction added after the week was stored still keeps its joint out, with the note saying why.
+  const restricted = restrictedJoints(week, facts.restrictions);
+  const notes = [...fresh.notes];
+  const items = (stored?.items ?? fresh.items).filter((item) => {
+    const span = restricted.get(item.joint);
+    if (span === undefined) return true;
+    const note = restrictedNote(item.joint, span);
+    if (!notes.includes(note)) notes.unshift(note);
+    return false;
+  });
+  return { week, kind: items[0]?.kind ?? null, items, notes, suggestions: fresh.suggestions };
 }
 
 /**
@@ -174,15 +192,17 @@ export async function tissueWorkFor(
 ): Promise<TissueWorkWeek> {
   const db = dbOf(source);
   if (!(await findTeamAthlete(db, teamId, athleteId))) throw new NotFoundError('That athlete');
-  const [team, history, checkins, meet, picks, stored] = await Promise.all([
+  const [team, history, checkins, meet, picks, restrictions, stored] = await Promise.all([
     readRulesOfTeam(db, teamId),
     listPrescriptionsBefore(db, teamId, athleteId, week),
     listCheckins(db, teamId, athleteId),
     findNextMeet(db, teamId, athleteId, isoDay(mondayOf(week))),
     weekPicks(db, teamId, athleteId, week),
+    engineRestrictionsOf(db, teamId, athleteId),
     findPrescription(db, teamId, athleteId, week),
   ]);
-  return tissueWorkFrom(db, { teamId, athleteId }, week, { team, history, checkins, meet, picks, stored }, today);
+  const facts = { team, history, checkins, meet, picks, restrictions, stored };
+  return tissueWorkFrom(db, { teamId, athleteId }, week, facts, today);
 }
 
 /**

@@ -1,6 +1,7 @@
 // This week's connective-tissue work: the kind, each joint's exercise and dose with its instructions,
 // the week's notes, and the usual cautions.
-import { TISSUE_CAUTION, type TissuePrescription } from '../../../../shared/engine/tissue';
+import { TISSUE_CAUTION } from '../../../../shared/engine/tissue';
+import { tissueDoseLabel, tissueSessionsLabel } from '../../../../shared/labels';
 import { jointName } from '../../../../shared/engine/words';
 import type { TissueWorkWeek } from '../../../../shared/schemas';
 import { WarningIcon } from '../../../components/ui/icons';
@@ -10,17 +11,6 @@ export const TISSUE_KIND_LABEL = {
   isometric: 'Isometric pulses',
   loadedStretch: 'Loaded stretch',
 } as const;
-
-function doseText(item: TissuePrescription): string {
-  switch (item.kind) {
-    case 'highRep':
-      return `${item.dose.reps} reps, ${item.dose.band} band`;
-    case 'isometric':
-      return `${item.dose.pulsesPerAngle} × ${item.dose.seconds} s at ${item.dose.angles.length} angles`;
-    case 'loadedStretch':
-      return `${item.dose.fatigueReps} light reps, then hold ${item.dose.holdSeconds} s`;
-  }
-}
 
 export function TissueWork({ tissue }: { tissue: TissueWorkWeek }) {
   const cautions = new Set<string>(TISSUE_CAUTION);
@@ -47,7 +37,8 @@ export function TissueWork({ tissue }: { tissue: TissueWorkWeek }) {
             <li key={`${item.joint}-${item.kind}`} className="rounded-md border border-ink-200 bg-chalk-100 p-3">
               <p className="text-sm font-semibold uppercase tracking-wide text-ink-600">{jointName(item.joint)}</p>
               <p className="font-semibold text-ink-900">{item.exercise}</p>
-              <p className="text-ink-800">{doseText(item)}</p>
+              <p className="text-ink-800">{tissueDoseLabel(item)}</p>
+              <p className="text-sm font-semibold text-ink-700">{tissueSessionsLabel(item.sessionsPerWeek)}</p>
               <details className="mt-1" open={i === 0}>
                 <summary className="flex min-h-11 cursor-pointer items-center font-semibold text-ink-800">
                   How to do it

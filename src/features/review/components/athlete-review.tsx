@@ -4,7 +4,9 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
+import { TISSUE_CAUTION } from '../../../../shared/engine/tissue';
 import { jointName } from '../../../../shared/engine/words';
+import { tissueDoseLabel, tissueSessionsLabel } from '../../../../shared/labels';
 import type { ReactNode } from 'react';
 import {
   videoCommentBody,
@@ -26,6 +28,14 @@ const KIND_LABEL = {
   isometric: 'isometric pulses',
   loadedStretch: 'loaded stretch',
 } as const;
+
+const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/** The week's own notes (why a joint is out, what changed), without the cautions repeated on every page. */
+function weekNotes(notes: string[]): string[] {
+  const cautions = new Set<string>(TISSUE_CAUTION);
+  return notes.filter((n) => !cautions.has(n));
+}
 
 function CommentForm({ athleteId, videoId }: { athleteId: number; videoId: number }) {
   const add = useAddComment(athleteId);
@@ -114,23 +124,47 @@ export function AthleteReview({ athleteId, history }: { athleteId: number; histo
         </h3>
         {data.suggestions.length === 0 ? (
           <p className="flex items-center gap-2 text-ink-700">
-            <CleanIcon className="text-clean-700" /> No pain flagged in recent check-ins.
+            <CleanIcon className="text-clean-700" /> No pain flagged in recent check-ins, and no work still sore.
           </p>
         ) : (
           <ul className="flex flex-col gap-2">
             {data.suggestions.map((s) => (
               <li
-                key={s.joint}
+                key={`${s.joint}-${s.reason}`}
                 className="flex gap-2 rounded-md border border-caution-600/50 bg-caution-100 p-3 text-ink-900"
               >
                 <WarningIcon className="mt-0.5 shrink-0 text-caution-700" />
                 <p>
-                  <strong>Pain flagged: {jointName(s.joint)}.</strong> {s.message}
+                  <strong>
+                    {s.reason === 'pain' ? 'Pain flagged' : 'Still sore'}: {jointName(s.joint)}.
+                  </strong>{' '}
+                  {s.message}
                 </p>
               </li>
             ))}
           </ul>
         )}
+        <div className="flex flex-col gap-1">
+          <h4 className="font-semibold text-ink-800">
+            This week ({data.tissue.week}): {data.tissue.kind ? KIND_LABEL[data.tissue.kind] : 'no tissue work'}
+          </h4>
+          {data.tissue.items.length > 0 ? (
+            <ul className="flex flex-col gap-1" aria-label="This week’s connective-tissue work">
+              {data.tissue.items.map((item) => (
+                <li key={`${item.joint}-${item.kind}`} className="rounded-md bg-chalk-100 px-3 py-2 text-ink-900">
+                  <span className="font-semibold">{cap(jointName(item.joint))}:</span> {item.exercise} ·{' '}
+                  {tissueDoseLabel(item)} ·{' '}
+                  <span className="font-semibold">{tissueSessionsLabel(item.sessionsPerWeek)}</span>
+                </li>
+              ))}
+            </ul>
+          ) : null}
+          {weekNotes(data.tissue.notes).map((n) => (
+            <p key={n} className="text-sm text-ink-700">
+              {n}
+            </p>
+          ))}
+        </div>
         {data.checkins.length > 0 ? (
           <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">

@@ -475,6 +475,38 @@ function Tissue({ form }: { form: Form }) {
           {...form.register('rules.tissue.sorenessThreshold', { setValueAs: num })}
         />
       </RuleRow>
+      <RuleRow
+        effect={
+          Number.isFinite(t?.highRepMinReps)
+            ? `High-rep light work is ${t?.highRepMinReps} reps; soreness makes the band lighter, never the reps fewer.`
+            : 'Enter a number of reps, 100 or more.'
+        }
+      >
+        <TextField
+          label="High-rep work: reps (100 or more)"
+          type="number"
+          min={100}
+          max={300}
+          error={e?.highRepMinReps?.message}
+          {...form.register('rules.tissue.highRepMinReps', { setValueAs: num })}
+        />
+      </RuleRow>
+      <RuleRow
+        effect={
+          Number.isFinite(t?.sessionsPerWeek)
+            ? `Each week's tissue work is done in ${t?.sessionsPerWeek} session${t?.sessionsPerWeek === 1 ? '' : 's'}, on separate days; three is usual.`
+            : 'Enter a number of sessions from 1 to 7.'
+        }
+      >
+        <TextField
+          label="Sessions a week (1–7)"
+          type="number"
+          min={1}
+          max={7}
+          error={e?.sessionsPerWeek?.message}
+          {...form.register('rules.tissue.sessionsPerWeek', { setValueAs: num })}
+        />
+      </RuleRow>
       <FocusJoints control={form.control} error={e?.focusJoints?.message} />
     </RuleSection>
   );
