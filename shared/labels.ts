@@ -2,7 +2,7 @@
 import type { Division, Sex } from './calc/classes';
 import type { Lift } from './engine/types';
 import type { AccessoryCategory, SessionPart } from './schemas/week';
-import type { TissuePrescription } from './engine/tissue';
+import type { TissueKind, TissuePrescription } from './engine/tissue';
 
 /** The short lift names of the library, the board and the history lists. */
 export const LIFT_LABEL: Record<Lift, string> = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' };
@@ -51,6 +51,18 @@ export const ACCESSORY_CATEGORY_LABELS: Readonly<Record<AccessoryCategory, strin
   grip: 'Grip',
   glutes: 'Glutes',
   shoulders: 'Shoulders',
+};
+
+/** The kinds of connective-tissue work, inside a sentence and as a heading. */
+export const TISSUE_KIND_WORD: Readonly<Record<TissueKind, string>> = {
+  highRep: 'high-rep light work',
+  isometric: 'isometric pulses',
+  loadedStretch: 'loaded stretch',
+};
+export const TISSUE_KIND_LABEL: Readonly<Record<TissueKind, string>> = {
+  highRep: 'High-rep light work',
+  isometric: 'Isometric pulses',
+  loadedStretch: 'Loaded stretch',
 };
 
 /** A connective-tissue item's dose in a few words, as My week and the athlete's page list it. */

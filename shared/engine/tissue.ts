@@ -36,6 +36,7 @@
 
 import { JOINTS, type Joint, type Restriction, type Variant } from './types';
 import { parseWeek, weekNumber as parseWeekNumber } from './weeks';
+import { TISSUE_KIND_WORD } from '../labels';
 import { jointName } from './words';
 
 export type TissueKind = 'highRep' | 'isometric' | 'loadedStretch';
@@ -203,12 +204,6 @@ export const TISSUE_CAUTION: readonly string[] = [
   'Tissue that gets hot, swollen or sore is a sign of doing too much: ease off and tell your coach.',
   'This is coaching guidance, not medical advice: see a licensed clinician for injuries.',
 ];
-
-const KIND_LABEL: Readonly<Record<TissueKind, string>> = {
-  highRep: 'high-rep light work',
-  isometric: 'isometric pulses',
-  loadedStretch: 'loaded stretch',
-};
 
 /** Ordinary exercise names per joint and kind. */
 export const TISSUE_EXERCISES: Readonly<Record<Joint, Readonly<Record<TissueKind, string>>>> = {
@@ -515,7 +510,7 @@ function chooseKind(input: TissueInput, past: Past): { kind: TissueKind | null; 
   if (pulled.length > 0) {
     const when = weeksOut === 0 ? 'this is meet week' : `the meet is ${weeksOut} week${weeksOut === 1 ? '' : 's'} away`;
     notes.push(
-      `${capitalise(pulled.map((k) => KIND_LABEL[k]).join(' and '))} ${pulled.length > 1 ? 'are' : 'is'} pulled: ${when}.`,
+      `${capitalise(pulled.map((k) => TISSUE_KIND_WORD[k]).join(' and '))} ${pulled.length > 1 ? 'are' : 'is'} pulled: ${when}.`,
     );
   }
   const open = TISSUE_KINDS.filter((k) => !pulled.includes(k) && runLength(past, k) < rules.maxConsecutiveWeeks);
@@ -532,7 +527,7 @@ function chooseKind(input: TissueInput, past: Past): { kind: TissueKind | null; 
   const continuing = open.find((k) => lastWeek?.has(k));
   if (continuing) {
     notes.push(
-      `${capitalise(KIND_LABEL[continuing])} again: week ${runLength(past, continuing) + 1} of at most ${rules.maxConsecutiveWeeks} in a row.`,
+      `${capitalise(TISSUE_KIND_WORD[continuing])} again: week ${runLength(past, continuing) + 1} of at most ${rules.maxConsecutiveWeeks} in a row.`,
     );
     return { kind: continuing, notes };
   }
@@ -544,8 +539,8 @@ function chooseKind(input: TissueInput, past: Past): { kind: TissueKind | null; 
   const stopped = TISSUE_KINDS.find((k) => lastWeek?.has(k) && runLength(past, k) >= rules.maxConsecutiveWeeks);
   notes.push(
     stopped
-      ? `${capitalise(KIND_LABEL[kind])} this week: ${KIND_LABEL[stopped]} has run ${rules.maxConsecutiveWeeks} week${rules.maxConsecutiveWeeks === 1 ? '' : 's'} in a row, so it rotates out.`
-      : `${capitalise(KIND_LABEL[kind])} this week.`,
+      ? `${capitalise(TISSUE_KIND_WORD[kind])} this week: ${TISSUE_KIND_WORD[stopped]} has run ${rules.maxConsecutiveWeeks} week${rules.maxConsecutiveWeeks === 1 ? '' : 's'} in a row, so it rotates out.`
+      : `${capitalise(TISSUE_KIND_WORD[kind])} this week.`,
   );
   return { kind, notes };
 }
@@ -772,7 +767,7 @@ export function prescribeTissueWork(input: TissueInput): TissueWeek {
       joint,
       reason: 'pain' as const,
       message:
-        `Pain at the ${label} reported after ${[...after].map((k) => KIND_LABEL[k]).join(' and ')} (${[...weeks].join(', ')}). ` +
+        `Pain at the ${label} reported after ${[...after].map((k) => TISSUE_KIND_WORD[k]).join(' and ')} (${[...weeks].join(', ')}). ` +
         advice +
         'If it persists, refer the athlete to a licensed clinician.',
     };

@@ -13,7 +13,7 @@ import { CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { useSaveCheckin } from '../api/use-save-checkin';
-import { TISSUE_KIND_LABEL } from './tissue-work';
+import { TISSUE_KIND_WORD } from '../../../../shared/labels';
 
 type FormValues = TissueCheckinBody;
 
@@ -86,7 +86,7 @@ export function CheckinForm({ weeks, thisWeek }: { weeks: MyWeekCheckin[]; thisW
             >
               {open.map((w) => (
                 <option key={w.week} value={w.week}>
-                  {w.week === thisWeek ? 'This week' : 'Last week'}: {TISSUE_KIND_LABEL[w.kind!].toLowerCase()}
+                  {w.week === thisWeek ? 'This week' : 'Last week'}: {TISSUE_KIND_WORD[w.kind!]}
                 </option>
               ))}
             </SelectField>

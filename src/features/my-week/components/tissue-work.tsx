@@ -1,16 +1,10 @@
 // This week's connective-tissue work: the kind, each joint's exercise and dose with its instructions,
 // the week's notes, and the usual cautions.
 import { TISSUE_CAUTION } from '../../../../shared/engine/tissue';
-import { tissueDoseLabel, tissueSessionsLabel } from '../../../../shared/labels';
+import { TISSUE_KIND_LABEL, tissueDoseLabel, tissueSessionsLabel } from '../../../../shared/labels';
 import { jointName } from '../../../../shared/engine/words';
 import type { TissueWorkWeek } from '../../../../shared/schemas';
 import { WarningIcon } from '../../../components/ui/icons';
-
-export const TISSUE_KIND_LABEL = {
-  highRep: 'High-rep light work',
-  isometric: 'Isometric pulses',
-  loadedStretch: 'Loaded stretch',
-} as const;
 
 export function TissueWork({ tissue }: { tissue: TissueWorkWeek }) {
   const cautions = new Set<string>(TISSUE_CAUTION);

@@ -6,7 +6,7 @@ import type { z } from 'zod';
 import { formatWeight, type WeightUnit } from '../../../../shared/calc';
 import { TISSUE_CAUTION } from '../../../../shared/engine/tissue';
 import { jointName } from '../../../../shared/engine/words';
-import { tissueDoseLabel, tissueSessionsLabel } from '../../../../shared/labels';
+import { TISSUE_KIND_WORD, tissueDoseLabel, tissueSessionsLabel } from '../../../../shared/labels';
 import type { ReactNode } from 'react';
 import {
   videoCommentBody,
@@ -22,12 +22,6 @@ import { isApiError } from '../../../lib/api-client';
 import { useMe } from '../../../lib/me';
 import { useAthleteReview } from '../api/queries';
 import { useAddComment } from '../api/use-add-comment';
-
-const KIND_LABEL = {
-  highRep: 'high-rep light work',
-  isometric: 'isometric pulses',
-  loadedStretch: 'loaded stretch',
-} as const;
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
@@ -146,7 +140,7 @@ export function AthleteReview({ athleteId, history }: { athleteId: number; histo
         )}
         <div className="flex flex-col gap-1">
           <h4 className="font-semibold text-ink-800">
-            This week ({data.tissue.week}): {data.tissue.kind ? KIND_LABEL[data.tissue.kind] : 'no tissue work'}
+            This week ({data.tissue.week}): {data.tissue.kind ? TISSUE_KIND_WORD[data.tissue.kind] : 'no tissue work'}
           </h4>
           {data.tissue.items.length > 0 ? (
             <ul className="flex flex-col gap-1" aria-label="This week’s connective-tissue work">
@@ -182,7 +176,7 @@ export function AthleteReview({ athleteId, history }: { athleteId: number; histo
                 {data.checkins.map((c) => (
                   <tr key={c.id}>
                     <td className="py-1 pr-3">{c.week}</td>
-                    <td className="py-1 pr-3">{KIND_LABEL[c.kind]}</td>
+                    <td className="py-1 pr-3">{TISSUE_KIND_WORD[c.kind]}</td>
                     <td className="py-1 pr-3">{c.soreness}/10</td>
                     <td className="py-1 pr-3">
                       {c.painJoints.length ? (
