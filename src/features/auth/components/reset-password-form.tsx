@@ -5,7 +5,7 @@ import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { resetPasswordBody, type Me, type ResetPasswordBody } from '../../../../shared/schemas';
-import { TextField } from '../../../components/ui/field';
+import { NewPasswordFields } from '../../../components/ui/new-password-fields';
 import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { Loading, Notice } from '../../../components/ui/page';
 import { applyFieldErrors } from '../../../lib/form-errors';
@@ -53,20 +53,13 @@ function ResetForm({ token, onReset }: { token: string; onReset: OnReset }) {
       <Form onSubmit={onSubmit}>
         <FormFailure failure={reset.error} fieldErrors={errors} />
         {errors.token ? <Notice tone="error">{errors.token.message}</Notice> : null}
-        <TextField
-          label="New password"
-          type="password"
-          autoComplete="new-password"
-          hint="At least 10 characters."
-          error={errors.password?.message}
-          {...form.register('password')}
-        />
-        <TextField
-          label="New password again"
-          type="password"
-          autoComplete="new-password"
-          error={errors.confirmPassword?.message}
-          {...form.register('confirmPassword')}
+        <NewPasswordFields
+          password={{ label: 'New password', error: errors.password?.message, field: form.register('password') }}
+          again={{
+            label: 'New password again',
+            error: errors.confirmPassword?.message,
+            field: form.register('confirmPassword'),
+          }}
         />
         <p className="text-sm text-ink-600">Saving it signs you out on every other device.</p>
         <SubmitButton size="lg" busy={isSubmitting} busyText="Saving…">

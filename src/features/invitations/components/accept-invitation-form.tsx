@@ -11,6 +11,7 @@ import {
   type AcceptNewAccountBody,
   type InvitationPreview,
 } from '../../../../shared/schemas';
+import { NewPasswordFields } from '../../../components/ui/new-password-fields';
 import { TextField } from '../../../components/ui/field';
 import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { applyFieldErrors } from '../../../lib/form-errors';
@@ -47,20 +48,13 @@ function NewAccountForm({ token }: { token: string }) {
     <Form onSubmit={onSubmit}>
       <FormFailure failure={accept.error} fieldErrors={errors} />
       <TextField label="Your name" autoComplete="name" error={errors.name?.message} {...form.register('name')} />
-      <TextField
-        label="Choose a password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 10 characters."
-        error={errors.password?.message}
-        {...form.register('password')}
-      />
-      <TextField
-        label="The password again"
-        type="password"
-        autoComplete="new-password"
-        error={errors.confirmPassword?.message}
-        {...form.register('confirmPassword')}
+      <NewPasswordFields
+        password={{ label: 'Choose a password', error: errors.password?.message, field: form.register('password') }}
+        again={{
+          label: 'The password again',
+          error: errors.confirmPassword?.message,
+          field: form.register('confirmPassword'),
+        }}
       />
       <SubmitButton size="lg" busy={isSubmitting} busyText="Joining…">
         Join the team
