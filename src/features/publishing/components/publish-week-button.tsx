@@ -32,7 +32,16 @@ function CheckList({
       <h3 className={`flex items-center gap-1 font-semibold ${text}`}>
         <Icon width={15} height={15} /> {title}: {count}
       </h3>
-      {count ? <ul className="mt-1 max-h-40 list-disc space-y-0.5 overflow-y-auto pl-6 text-sm">{children}</ul> : null}
+      {count ? (
+        // A long list scrolls inside the dialog: focusable, so a keyboard can scroll it too.
+        <ul
+          tabIndex={0}
+          aria-label={title}
+          className="mt-1 max-h-40 list-disc space-y-0.5 overflow-y-auto pl-6 text-sm focus-visible:outline-2 focus-visible:outline-ink-800"
+        >
+          {children}
+        </ul>
+      ) : null}
     </section>
   );
 }
