@@ -18,6 +18,20 @@ interface AxeResult {
 
 /** The WCAG 2.x A and AA rules, and best practices; each violation as "rule: help (n nodes) first-target". */
 export async function axeViolations(page: Page, selector?: string): Promise<string[]> {
+  // Colour contrast is judged on settled colours: a button still fading between its busy and ready
+  // colours (transition-colors, 150 ms) would otherwise be read half-way. Endless animations
+  // (a spinner) are not waited for; nothing is waited for longer than 2 s.
+  await page.evaluate(() =>
+    Promise.race([
+      Promise.all(
+        document
+          .getAnimations()
+          .filter((a) => Number.isFinite(Number(a.effect?.getComputedTiming().endTime)))
+          .map((a) => a.finished.catch(() => undefined)),
+      ),
+      new Promise((resolve) => setTimeout(resolve, 2_000)),
+    ]),
+  );
   const loaded = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe !== 'undefined');
   // Evaluated through the debugging protocol, so the app's Content-Security-Policy does not stand in the way.
   if (!loaded) await page.evaluate(AXE_SOURCE);
