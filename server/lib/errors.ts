@@ -12,7 +12,7 @@ export class AppError extends Error {
 
 export class ValidationError extends AppError {
   constructor(message: string, fields: Record<string, string[]>) {
-    super(400, 'validation_failed', message, { fields });
+    super(422, 'validation_failed', message, { fields });
   }
 }
 

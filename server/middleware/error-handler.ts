@@ -47,7 +47,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (err instanceof ZodError) {
-      res.status(400).json({
+      res.status(422).json({
         error: { code: 'validation_failed', message: 'Some fields need attention.', fields: fieldErrors(err) },
       });
       return;

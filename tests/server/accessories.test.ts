@@ -60,7 +60,7 @@ describe('the accessory library', () => {
     const res = await coach
       .post('/api/accessories')
       .send(row({ name: ' ', category: 'calves', sets: 0, reps: 101, rpe: 11, stress: { knee: 4 } }));
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields).sort()).toEqual([
       'category',
       'name',
@@ -70,7 +70,7 @@ describe('the accessory library', () => {
       'stress.knee',
     ]);
     const both = await coach.post('/api/accessories').send(row({ name: 'Both targets', loadKg: 20, rpe: 8 }));
-    expect(both.status).toBe(400);
+    expect(both.status).toBe(422);
     expect(both.body.error.fields.rpe).toEqual(['Give a load or an RPE, not both']);
     expect((await coach.get('/api/accessories?q=Both')).body.total).toBe(0);
   });
@@ -79,7 +79,7 @@ describe('the accessory library', () => {
     const a = await add(coach, { name: 'Face pull B', category: 'shoulders' });
     await coach.patch(`/api/accessories/${a.id}`).send({ version: a.version, archived: true });
     const res = await coach.post('/api/accessories').send(row({ name: 'face pull b', category: 'shoulders' }));
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.name[0]).toMatch(/already has this name/);
     // Another team may use the name.
     expect((await otherHead.post('/api/accessories').send(row({ name: 'Face pull B' }))).status).toBe(201);
@@ -122,7 +122,7 @@ describe('the week’s accessories from the library', () => {
       },
     });
     const refused = await coach.put(path(team.athleteId)).send(work(foreign.id));
-    expect(refused.status).toBe(400);
+    expect(refused.status).toBe(422);
     expect(refused.body.error.fields['sessions.lower-me.accessories.0.accessoryId']).toEqual([
       'Not in the accessory library',
     ]);
@@ -134,7 +134,7 @@ describe('the week’s accessories from the library', () => {
     const b = await add(coach, { name: 'Archived E', category: 'hamstrings' });
     await coach.patch(`/api/accessories/${b.id}`).send({ version: b.version, archived: true });
     const again = await coach.put(path(team.athleteId)).send({ ...work(b.id), version: saved.body.version });
-    expect(again.status).toBe(400);
+    expect(again.status).toBe(422);
     expect(again.body.error.fields['sessions.lower-me.accessories.0.accessoryId']).toEqual([
       'Archived in the library: pick another',
     ]);

@@ -81,7 +81,7 @@ describe('POST /api/athletes', () => {
       maxRisk: 7,
       ruleOverrides: { repeatWindowWeeks: 0, taper: [] },
     });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toEqual(
       expect.arrayContaining(['name', 'sex', 'birthYear', 'division', 'maxRisk', 'ruleOverrides.repeatWindowWeeks']),
     );
@@ -96,13 +96,13 @@ describe('POST /api/athletes', () => {
     expect(ok.body.account).toEqual({ id: account.id, name: 'Unlinked Person', email: account.email });
 
     const twice = await coach.post('/api/athletes').send(newAthlete({ name: 'Copy', userId: account.id }));
-    expect(twice.status).toBe(400);
+    expect(twice.status).toBe(422);
     expect(twice.body.error.fields.userId[0]).toMatch(/already linked to Unlinked Person/);
 
     const coachAccount = await coach.post('/api/athletes').send(newAthlete({ userId: team.coach.id }));
-    expect(coachAccount.status).toBe(400);
+    expect(coachAccount.status).toBe(422);
     const foreign = await coach.post('/api/athletes').send(newAthlete({ userId: other.athleteUser.id }));
-    expect(foreign.status).toBe(400);
+    expect(foreign.status).toBe(422);
     expect(foreign.body.error.fields).toHaveProperty('userId');
   });
 });
@@ -149,7 +149,7 @@ describe('GET /api/athletes and /api/athletes/accounts', () => {
     expect(desc.body.items).toHaveLength(1);
     expect(desc.body.total).toBeGreaterThan(1);
     const bad = await coach.get('/api/athletes?sort=level');
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields)).toEqual(['query.sort']);
   });
 
@@ -257,12 +257,12 @@ describe('restrictions', () => {
     const res = await coach
       .post(`/api/athletes/${team.athleteId}/restrictions`)
       .send({ joint: 'neck', maxStress: 4, fromDate: '5 January' });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['joint', 'maxStress', 'fromDate']));
     const order = await coach
       .post(`/api/athletes/${team.athleteId}/restrictions`)
       .send({ joint: 'knee', maxStress: 1, fromDate: '2026-03-01', toDate: '2026-02-01' });
-    expect(order.status).toBe(400);
+    expect(order.status).toBe(422);
     expect(order.body.error.fields.toDate).toEqual(['The end cannot be before the start']);
   });
 
@@ -272,7 +272,7 @@ describe('restrictions', () => {
     const res = await coach
       .patch(`/api/athletes/${team.athleteId}/restrictions/${id}`)
       .send({ toDate: '2026-02-01', version: 1 });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields).toHaveProperty('toDate');
   });
 
@@ -339,7 +339,7 @@ describe('GET /api/athletes/:id/history', () => {
     // 2026-W10 runs Monday 2 March to Sunday 8 March.
     expect(range.body.bodyweights).toEqual([{ measuredOn: '2026-03-05', weightKg: 80.4 }]);
     const bad = await coach.get(`/api/athletes/${id}/history?from=March`);
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields).toHaveProperty('query.from');
   });
 });

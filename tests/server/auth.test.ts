@@ -54,7 +54,7 @@ describe('POST /api/auth/login', () => {
 
   it('reports field errors for a malformed body', async () => {
     const res = await request(t.app).post('/api/auth/login').send({ email: 'not-an-email', password: 42 });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
     expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['email', 'password']));
   });

@@ -144,12 +144,12 @@ describe('GET /api/board', () => {
   it('validates the range by field', async () => {
     const coach = await t.signIn(team.coach.email);
     const missing = await coach.get('/api/board');
-    expect(missing.status).toBe(400);
+    expect(missing.status).toBe(422);
     expect(Object.keys(missing.body.error.fields).sort()).toEqual(['query.from', 'query.to']);
     const backwards = await coach.get(`/api/board?from=${wk(2)}&to=${wk(1)}`);
     expect(backwards.body.error.fields['query.to']).toBeDefined();
     const long = await coach.get(`/api/board?from=${wk(0)}&to=${wk(40)}`);
-    expect(long.status).toBe(400);
+    expect(long.status).toBe(422);
   });
 
   it('shows another team only its own board', async () => {

@@ -34,12 +34,12 @@ describe('PUT /api/bodyweights/:measuredOn', () => {
 
   it('answers field errors for a bad date, unit and weight, and refuses future days', async () => {
     const bad = await athlete.put('/api/bodyweights/2026-02-30').send({ unit: 'st', weight: 'heavy' });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['params.measuredOn', 'unit', 'weight']);
     const tooLight = await athlete.put(`/api/bodyweights/${day(-1)}`).send({ unit: 'kg', weight: 4 });
     expect(tooLight.body.error.fields.weight[0]).toMatch(/too light/);
     const future = await athlete.put(`/api/bodyweights/${day(5)}`).send({ unit: 'kg', weight: 60 });
-    expect(future.status).toBe(400);
+    expect(future.status).toBe(422);
     expect(future.body.error.fields['params.measuredOn'][0]).toMatch(/not come/);
   });
 

@@ -52,12 +52,12 @@ describe('POST /api/fees/plans', () => {
 
   it('reports each wrong field', async () => {
     const res = await create({ name: '  ', price: 'twelve', description: 'x'.repeat(1001) });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['description', 'name', 'price']);
     for (const price of ['0', '0.00', '12.345', '-5', '1234567']) {
       const r = await create({ name: 'Odd price', price });
-      expect(r.status, price).toBe(400);
+      expect(r.status, price).toBe(422);
       expect(Object.keys(r.body.error.fields), price).toEqual(['price']);
     }
   });
@@ -66,7 +66,7 @@ describe('POST /api/fees/plans', () => {
     const name = `Twin ${Date.now()}`;
     expect((await create({ name, price: '10' })).status).toBe(201);
     const res = await create({ name, price: '12' });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.name).toEqual(['Another plan already has this name']);
   });
 
@@ -75,7 +75,7 @@ describe('POST /api/fees/plans', () => {
     await db().update(teams).set({ currency: 'JPY' }).where(eq(teams.id, yen.teamId));
     const agent = await t.signIn(yen.headCoach.email);
     const bad = await create({ name: 'Monthly', price: '5000.5' }, agent);
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields.price[0]).toMatch(/no decimals/);
     const ok = await create({ name: 'Monthly', price: '5000' }, agent);
     expect(ok.body).toMatchObject({ priceMinor: 5000, currency: 'JPY' });
@@ -123,7 +123,7 @@ describe('GET /api/fees/plans', () => {
 
   it('rejects an unknown sort or status with field errors', async () => {
     const res = await agent.get('/api/fees/plans?sort=colour&status=maybe&limit=0');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['query.limit', 'query.sort', 'query.status']);
   });
 });
@@ -154,12 +154,12 @@ describe('PATCH /api/fees/plans/:id', () => {
     expect(late.body.error.current).toMatchObject({ id, name: 'First', version: 2 });
   });
 
-  it('answers 404 for another team’s plan and 400 with fields for a bad body', async () => {
+  it('answers 404 for another team’s plan and 422 with fields for a bad body', async () => {
     const theirs = await createFeePlan(db(), other.teamId);
     const res = await head.patch(`/api/fees/plans/${theirs}`).send({ name: 'Mine now', price: '1', version: 1 });
     expect(res.status).toBe(404);
     const bad = await head.patch('/api/fees/plans/abc').send({ price: '', version: 0 });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['name', 'params.id', 'price', 'version']);
   });
 });

@@ -160,9 +160,9 @@ describe('Idempotency-Key on POST /api/top-sets', () => {
     const key = randomUUID();
     const bad = { planEntryId: entryId, unit: 'kg', weight: -1, reps: 3 };
     const first = await athlete.post('/api/top-sets').set('Idempotency-Key', key).send(bad);
-    expect(first.status).toBe(400);
+    expect(first.status).toBe(422);
     const again = await athlete.post('/api/top-sets').set('Idempotency-Key', key).send(bad);
-    expect(again.status).toBe(400);
+    expect(again.status).toBe(422);
     expect(again.headers['idempotent-replayed']).toBe('true');
     expect(again.body).toEqual(first.body);
   });

@@ -149,7 +149,7 @@ describe('inviting a coach', () => {
     expect(preview.body.existingAccount).toBe(true);
 
     const wrong = await accept(token, { password: 'not-their-password' });
-    expect(wrong.res.status).toBe(400);
+    expect(wrong.res.status).toBe(422);
     expect(Object.keys(wrong.res.body.error.fields)).toEqual(['password']);
 
     const right = await accept(token, { password: TEST_PASSWORD, name: '' });
@@ -162,7 +162,7 @@ describe('inviting a coach', () => {
 describe('validation and conflicts', () => {
   it('reports field errors', async () => {
     const res = await head.post('/api/invitations').send({ email: 'not-an-address', role: 'athlete' });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['athleteName', 'email', 'sex']);
     const role = await head.post('/api/invitations').send({ email: newEmail(), role: 'head_coach' });
     expect(Object.keys(role.body.error.fields)).toEqual(['role']);
@@ -173,10 +173,10 @@ describe('validation and conflicts', () => {
     await head.post('/api/invitations').send({ email, role: 'coach' });
     const token = await linkFor(email);
     const res = await accept(token, { name: '', password: 'short', confirmPassword: 'different' });
-    expect(res.res.status).toBe(400);
+    expect(res.res.status).toBe(422);
     expect(Object.keys(res.res.body.error.fields).sort()).toEqual(['confirmPassword', 'name', 'password']);
     const bad = await request(t.app).get('/api/invitation-links/preview?token=abc');
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields)).toEqual(['query.token']);
     const unknown = await request(t.app).get(`/api/invitation-links/preview?token=${'x'.repeat(43)}`);
     expect(unknown.status).toBe(404);
@@ -273,7 +273,7 @@ describe('GET /api/invitations', () => {
     expect(page.body).toMatchObject({ total: 3 });
     expect(page.body.items.map((i: { email: string }) => i.email)).toEqual([[...emails].sort()[1]]);
     const bad = await agent.get('/api/invitations?status=nope&limit=0');
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['query.limit', 'query.status']);
   });
 });

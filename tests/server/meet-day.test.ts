@@ -106,23 +106,23 @@ describe('meet day marks', () => {
         .send({ key: key(), entryId, lift: 'squat', attemptNo, weightKg, result, record });
     // Technical rules (memory): multiples of 2.5 kg; a record attempt may go in 0.5 kg steps if loadable.
     const offGrid = await post(1, 201);
-    expect(offGrid.status).toBe(400);
+    expect(offGrid.status).toBe(422);
     expect(offGrid.body.error.fields.weightKg[0]).toMatch(/multiple of 2\.5 kg/);
     const unloadable = await post(1, 200.5, 'good', true);
-    expect(unloadable.status).toBe(400);
+    expect(unloadable.status).toBe(422);
     expect(unloadable.body.error.message).toMatch(/cannot be loaded/);
     const skipped = await post(2, 210);
-    expect(skipped.status).toBe(400);
+    expect(skipped.status).toBe(422);
     expect(skipped.body.error.message).toMatch(/Mark the first squat attempt first/);
     expect((await post(1, 200, 'good')).status).toBe(201);
     // After a good lift at least 2.5 kg more.
     const same = await post(2, 200);
-    expect(same.status).toBe(400);
+    expect(same.status).toBe(422);
     expect(same.body.error.message).toMatch(/at least 2\.5 kg heavier: at least 202\.5 kg/);
     expect((await post(2, 210, 'missed')).status).toBe(201);
     // After a miss, never lower; the same weight again is fine.
     const lower = await post(3, 207.5);
-    expect(lower.status).toBe(400);
+    expect(lower.status).toBe(422);
     expect(lower.body.error.message).toMatch(/never lowered: at least 210 kg/);
     const day = await coach.get(`/api/meets/${meetId}/day`);
     expect(day.body.entries[0].attempts.squat.map((a: { weightKg: number }) => a.weightKg)).toEqual([200, 210]);
@@ -169,12 +169,12 @@ describe('weigh-in and jumps', () => {
     const over = await coach
       .put(`/api/meets/${meetId}/day/entries/${entryId}/weigh-in`)
       .send({ bodyweightKg: 83.4, version: 1 });
-    expect(over.status).toBe(400);
+    expect(over.status).toBe(422);
     expect(over.body.error.fields.bodyweightKg[0]).toMatch(/Over the 83 kg class limit: 83\.4 kg.*93 kg class/);
     const light = await coach
       .put(`/api/meets/${meetId}/day/entries/${entryId}/weigh-in`)
       .send({ bodyweightKg: 72, version: 1 });
-    expect(light.status).toBe(400);
+    expect(light.status).toBe(422);
     expect(light.body.error.message).toMatch(/falls in the 74 kg class, not 83/);
     let day = await coach.get(`/api/meets/${meetId}/day`);
     expect(day.body.entries[0]).toMatchObject({ weighInKg: null, version: 1 });
@@ -206,7 +206,7 @@ describe('weigh-in and jumps', () => {
     const bad = await coach
       .put(`/api/meets/${meetId}/day/entries/${entryId}/jumps`)
       .send({ jumps: { ...jumps, bench: [3, 2.5] }, version: 2 });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(JSON.stringify(bad.body.error.fields)).toMatch(/2\.5 kg steps/);
   });
 });
@@ -256,7 +256,7 @@ describe('results into history', () => {
   it('refuses a meet that has not happened yet', async () => {
     const { meetId } = await meetWithEntry({ date: '2031-01-01' });
     const res = await coach.post(`/api/meets/${meetId}/day/results`);
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.message).toMatch(/not taken place yet/);
   });
 });

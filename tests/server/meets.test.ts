@@ -58,10 +58,10 @@ describe('meets', () => {
 
   it('answers invalid fields by name', async () => {
     const res = await coach.post('/api/meets').send({ name: '', date: '13/09/2031' });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['name', 'date']));
     const q = await coach.get('/api/meets?when=soon');
-    expect(q.status).toBe(400);
+    expect(q.status).toBe(422);
     expect(q.body.error.fields).toHaveProperty('query.when');
   });
 
@@ -130,7 +130,7 @@ describe('meet entries', () => {
       version: 1,
     });
     const again = await coach.post(`/api/meets/${meet}/entries`).send({ athleteId });
-    expect(again.status).toBe(400);
+    expect(again.status).toBe(422);
     expect(again.body.error.fields.athleteId[0]).toMatch(/already entered/);
   });
 
@@ -158,9 +158,9 @@ describe('meet entries', () => {
     const meet = await createMeet(db, team.teamId);
     // 93 is a men's class; 43 is for junior and sub-junior women only.
     const men = await coach.post(`/api/meets/${meet}/entries`).send({ athleteId, weightClass: '93' });
-    expect(men.status).toBe(400);
+    expect(men.status).toBe(422);
     expect(men.body.error.fields.weightClass[0]).toMatch(/open women: use 47, 52, 57, 63, 69, 76, 84, 84\+/);
-    expect((await coach.post(`/api/meets/${meet}/entries`).send({ athleteId, weightClass: '43' })).status).toBe(400);
+    expect((await coach.post(`/api/meets/${meet}/entries`).send({ athleteId, weightClass: '43' })).status).toBe(422);
     const junior = await coach
       .post(`/api/meets/${meet}/entries`)
       .send({ athleteId, weightClass: '43', division: 'junior' });
@@ -170,7 +170,7 @@ describe('meet entries', () => {
       attempts: { squat: [100, 95], bench: [50.3], snatch: [60] },
       version: 1,
     });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     const keys = Object.keys(bad.body.error.fields);
     expect(keys).toEqual(expect.arrayContaining(['attempts.squat.1', 'attempts.bench.0', 'attempts']));
     // The federation's rules (memory): after a good lift at least 2.5 kg more; 2.5 kg steps except records.
@@ -180,7 +180,7 @@ describe('meet entries', () => {
     const division = await coach
       .patch(`/api/meets/${meet}/entries/${junior.body.id}`)
       .send({ division: 'open', version: 1 });
-    expect(division.status).toBe(400);
+    expect(division.status).toBe(422);
     expect(division.body.error.fields).toHaveProperty('weightClass');
   });
 
@@ -188,7 +188,7 @@ describe('meet entries', () => {
     const db = t.ctx.database.db;
     const meet = await createMeet(db, team.teamId);
     const foreign = await coach.post(`/api/meets/${meet}/entries`).send({ athleteId: other.athleteId });
-    expect(foreign.status).toBe(400);
+    expect(foreign.status).toBe(422);
     expect(foreign.body.error.fields).toHaveProperty('athleteId');
     const entry = (await coach.post(`/api/meets/${meet}/entries`).send({ athleteId: team.athleteId })).body;
     expect(

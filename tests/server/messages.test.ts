@@ -137,7 +137,7 @@ describe('bad input gets a clear message and stores nothing', () => {
   ])('%s', async (_name, body) => {
     const before = await storedCount(team.athleteId);
     const res = await athlete.post(threadOf(team.athleteId)).send({ body });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
     expect(res.body.error.fields.body[0]).toMatch(body.trim() === '' ? /Write a message/ : /At most 2000 characters/);
     expect(await storedCount(team.athleteId)).toBe(before);
@@ -151,11 +151,11 @@ describe('bad input gets a clear message and stores nothing', () => {
   it('a body that is not text, a bad week or id in the path, a malformed link', async () => {
     expect((await athlete.post(threadOf(team.athleteId)).send({ body: 42 })).body.error.fields.body).toBeDefined();
     const badWeek = await athlete.post(`/api/messages/threads/${team.athleteId}/2026-20`).send({ body: 'Hi' });
-    expect(badWeek.status).toBe(400);
+    expect(badWeek.status).toBe(422);
     expect(badWeek.body.error.fields['params.week']).toBeDefined();
-    expect((await athlete.get('/api/messages/threads/abc/2026-W20')).status).toBe(400);
+    expect((await athlete.get('/api/messages/threads/abc/2026-W20')).status).toBe(422);
     const badLink = await coach.post(threadOf(team.athleteId)).send({ body: 'See here', link: { week: 'soon' } });
-    expect(badLink.status).toBe(400);
+    expect(badLink.status).toBe(422);
     expect(Object.keys(badLink.body.error.fields)).toEqual(expect.arrayContaining(['link.week', 'link.slotId']));
   });
 
@@ -164,7 +164,7 @@ describe('bad input gets a clear message and stores nothing', () => {
     const res = await athlete
       .post(threadOf(team.athleteId))
       .send({ body: 'Look', link: { week: WEEK, slotId: 'upper' } });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.link).toEqual(['Only coaches can link a board cell']);
     expect(await storedCount(team.athleteId)).toBe(before);
   });

@@ -88,7 +88,7 @@ describe('GET /api/my-week', () => {
     const next = await athlete.get(`/api/my-week?week=${addWeeks(thisWeek, 1)}`);
     expect(next.body.picks).toEqual([]);
     const bad = await athlete.get('/api/my-week?week=2027-13');
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields['query.week']).toBeDefined();
   });
 

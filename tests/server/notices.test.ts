@@ -202,7 +202,7 @@ describe('the daily e-mail summary', () => {
   it('is not sent when the coach turned it off, in the app or through the link in the e-mail', async () => {
     expect((await headCoach.get('/api/notices/settings')).body).toEqual({ dailyEmail: true });
     const bad = await headCoach.put('/api/notices/settings').send({ dailyEmail: 'no' });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields.dailyEmail).toBeDefined();
     expect((await headCoach.put('/api/notices/settings').send({ dailyEmail: false })).body).toEqual({
       dailyEmail: false,

@@ -76,7 +76,7 @@ describe('asking for a reset link', () => {
 
   it('reports a malformed address as a field error', async () => {
     const res = await request(t.app).post('/api/auth/password-reset').send({ email: 'nope' });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toEqual(['email']);
   });
 });
@@ -123,7 +123,7 @@ describe('using the link', () => {
     const user = await createUser(t.ctx.database.db, team.teamId, 'athlete');
     const token = await requestLink(user.email);
     const weak = await complete(token, 'short');
-    expect(weak.status).toBe(400);
+    expect(weak.status).toBe(422);
     expect(Object.keys(weak.body.error.fields)).toEqual(['password']);
     const differ = await complete(token, NEW_PASSWORD, 'something-else-entirely');
     expect(Object.keys(differ.body.error.fields)).toEqual(['confirmPassword']);
@@ -164,13 +164,13 @@ describe('rate limits', () => {
     return statuses;
   }
 
-  it('counts a body without a valid address against no address: every such request is a 400, never a 429', async () => {
+  it('counts a body without a valid address against no address: every such request is a 422, never a 429', async () => {
     const statuses = await inTurn([limited, limited, limited, limited, limited], (app, i) =>
       request(app.app)
         .post('/api/auth/password-reset')
         .send(i < 3 ? {} : { email: 'not an address' }),
     );
-    expect(statuses).toEqual([400, 400, 400, 400, 400]);
+    expect(statuses).toEqual([422, 422, 422, 422, 422]);
   });
 
   it('limits requests per address, whatever the address', async () => {

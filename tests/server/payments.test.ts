@@ -243,7 +243,7 @@ describe('the head coach on an athlete’s behalf', () => {
     expect((await head.post(`/api/fees/athletes/${other.athleteId}/checkout`).send({ planId: mine })).status).toBe(404);
     expect((await head.post(`/api/fees/athletes/${other.athleteId}/cancel`)).status).toBe(404);
     const foreignPlan = await head.post(`/api/fees/athletes/${team.athleteId}/checkout`).send({ planId: theirPlan });
-    expect(foreignPlan.status).toBe(400);
+    expect(foreignPlan.status).toBe(422);
     expect(foreignPlan.body.error.fields).toEqual({ planId: ['Choose one of the plans on offer'] });
     const bad = await head.post('/api/fees/athletes/x/checkout').send({ planId: 'one' });
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['params.athleteId', 'planId']);
@@ -257,7 +257,7 @@ describe('the athlete’s own fee', () => {
     const { team, agent } = await payingAthlete();
     const archived = await createFeePlan(db(), team.teamId, { archivedAt: new Date() });
     const res = await agent.post('/api/my-fee/checkout').send({ planId: archived });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.planId).toEqual(['This plan is no longer offered']);
     expect((await agent.post('/api/my-fee/checkout').send({})).body.error.fields).toHaveProperty('planId');
     expect((await agent.post('/api/my-fee/cancel')).status).toBe(409);

@@ -68,25 +68,25 @@ describe('restrictions by joint, emphasis or family', () => {
     const none = await coach
       .post(`/api/athletes/${athleteId}/restrictions`)
       .send({ fromDate: day(wk(1)), note: 'nothing' });
-    expect(none.status).toBe(400);
+    expect(none.status).toBe(422);
     expect(none.body.error.fields.joint).toEqual(['Restrict a joint, an emphasis or a family']);
 
     const capOnly = await coach
       .post(`/api/athletes/${athleteId}/restrictions`)
       .send({ maxStress: 1, fromDate: day(wk(1)) });
-    expect(capOnly.status).toBe(400);
+    expect(capOnly.status).toBe(422);
     expect(capOnly.body.error.fields.joint).toEqual(['Pick the joint this cap is for']);
 
     const backwards = await coach
       .post(`/api/athletes/${athleteId}/restrictions`)
       .send({ emphasis: ['bottom'], fromDate: day(wk(4)), toDate: day(wk(2)) });
-    expect(backwards.status).toBe(400);
+    expect(backwards.status).toBe(422);
     expect(backwards.body.error.fields.toDate).toEqual(['The end cannot be before the start']);
 
     const badEmphasis = await coach
       .post(`/api/athletes/${athleteId}/restrictions`)
       .send({ emphasis: ['sideways'], fromDate: day(wk(1)) });
-    expect(badEmphasis.status).toBe(400);
+    expect(badEmphasis.status).toBe(422);
     expect(Object.keys(badEmphasis.body.error.fields)).toEqual(['emphasis.0']);
     expect(await restrictionCount()).toBe(before);
   });
@@ -97,13 +97,13 @@ describe('restrictions by joint, emphasis or family', () => {
     const empty = await coach
       .patch(`/api/athletes/${athleteId}/restrictions/${id}`)
       .send({ joint: null, maxStress: null, version: 1 });
-    expect(empty.status).toBe(400);
+    expect(empty.status).toBe(422);
     expect(empty.body.error.fields.joint).toEqual(['Restrict a joint, an emphasis or a family']);
     // A new end before the stored start.
     const early = await coach
       .patch(`/api/athletes/${athleteId}/restrictions/${id}`)
       .send({ toDate: '2025-01-01', version: 1 });
-    expect(early.status).toBe(400);
+    expect(early.status).toBe(422);
     expect(early.body.error.fields.toDate).toBeDefined();
 
     const swapped = await coach
@@ -150,10 +150,10 @@ describe('rest weeks', () => {
 
   it('refuses a malformed or past week by field, and keeps athletes and other teams out', async () => {
     const bad = await coach.put(path('2027-W60'));
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields)).toEqual(['params.week']);
     const past = await coach.put(path(wk(-1)));
-    expect(past.status).toBe(400);
+    expect(past.status).toBe(422);
     expect(past.body.error.fields.week[0]).toMatch(/Past weeks are history/);
 
     expect((await athleteAgent.put(path(wk(3)))).status).toBe(403);
@@ -191,7 +191,7 @@ describe('the heaviest risk allowed on the roster', () => {
     const cleared = await coach.patch(`/api/athletes/${athleteId}`).send({ maxRisk: null, version: set.body.version });
     expect(cleared.body.maxRisk).toBeNull();
     const bad = await coach.patch(`/api/athletes/${athleteId}`).send({ maxRisk: 4, version: cleared.body.version });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields)).toEqual(['maxRisk']);
     const stale = await coach.patch(`/api/athletes/${athleteId}`).send({ maxRisk: 2, version: set.body.version });
     expect(stale.status).toBe(409);
@@ -216,14 +216,14 @@ describe('team rules: comfort and lift balance', () => {
       equipment: saved.body.equipment,
       version: saved.body.version,
     });
-    expect(unknown.status).toBe(400);
+    expect(unknown.status).toBe(422);
     expect(unknown.body.error.fields).toHaveProperty('rules');
     const outOfRange = await head.put('/api/rules').send({
       rules: { ...saved.body.rules, comfortRatio: 1.4, liftBalanceWeeks: 1 },
       equipment: saved.body.equipment,
       version: saved.body.version,
     });
-    expect(outOfRange.status).toBe(400);
+    expect(outOfRange.status).toBe(422);
     expect(Object.keys(outOfRange.body.error.fields).sort()).toEqual(['rules.comfortRatio', 'rules.liftBalanceWeeks']);
     const [row] = await db()
       .select()
@@ -254,7 +254,7 @@ describe('meet-phase variants in the library', () => {
     const bad = await coach
       .patch(`/api/variants/${created.body.id}`)
       .send({ meetPhaseWeeks: 40, version: created.body.version });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields)).toEqual(['meetPhaseWeeks']);
 
     const csv = await coach.get('/api/variants/export');

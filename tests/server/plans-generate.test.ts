@@ -255,12 +255,12 @@ describe('POST /api/plans/generate', () => {
 
   it('refuses past weeks, too many weeks and unknown modes by field', async () => {
     const past = await generate(g.coach, { weeks: { from: wk(-2), to: wk(1) } });
-    expect(past.status).toBe(400);
+    expect(past.status).toBe(422);
     expect(past.body.error.fields).toHaveProperty(['weeks.from']);
     const long = await generate(g.coach, { weeks: { from: wk(1), to: wk(40) } });
-    expect(long.status).toBe(400);
+    expect(long.status).toBe(422);
     const mode = await generate(g.coach, { weeks: 'someday', reshuffle: 'yes' });
-    expect(mode.status).toBe(400);
+    expect(mode.status).toBe(422);
     expect(Object.keys(mode.body.error.fields)).toEqual(expect.arrayContaining(['weeks', 'reshuffle']));
   });
 

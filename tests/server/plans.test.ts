@@ -149,7 +149,7 @@ describe('PUT /api/plans/:athleteId/:week/:slotId', () => {
     const res = await coach
       .put('/api/plans/abc/2026-W77/Lower%20slot')
       .send({ variantId: 'x', version: -1, reason: 'x' });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
     expect(Object.keys(res.body.error.fields)).toEqual(
       expect.arrayContaining(['params.athleteId', 'params.week', 'params.slotId', 'variantId', 'version', 'reason']),
@@ -159,14 +159,14 @@ describe('PUT /api/plans/:athleteId/:week/:slotId', () => {
   it('refuses past weeks, a variant of the wrong lift, and an archived variant, by field', async () => {
     const athleteId = await createAthlete(db(), team.teamId);
     const past = await coach.put(cellPath(athleteId, wk(-1))).send({ variantId: lib.squat[0] });
-    expect(past.status).toBe(400);
+    expect(past.status).toBe(422);
     expect(past.body.error.fields.week[0]).toMatch(/Past weeks/);
     const lift = await coach.put(cellPath(athleteId, wk(2), 'upper')).send({ variantId: lib.squat[0] });
-    expect(lift.status).toBe(400);
+    expect(lift.status).toBe(422);
     expect(lift.body.error.fields.variantId[0]).toMatch(/squat variant; Upper max effort takes bench/);
     const archived = await createVariant(db(), team.teamId, { lift: 'squat', archivedAt: new Date() });
     const arch = await coach.put(cellPath(athleteId, wk(2))).send({ variantId: archived });
-    expect(arch.status).toBe(400);
+    expect(arch.status).toBe(422);
     expect(arch.body.error.fields.variantId[0]).toMatch(/archived/);
   });
 
@@ -239,7 +239,7 @@ describe('DELETE /api/plans/:athleteId/:week/:slotId', () => {
   it('needs a version, and answers 404 for a cell with no entry or another team', async () => {
     const athleteId = await createAthlete(db(), team.teamId);
     const missing = await coach.delete(cellPath(athleteId, wk(2)));
-    expect(missing.status).toBe(400);
+    expect(missing.status).toBe(422);
     expect(missing.body.error.fields).toHaveProperty(['query.version']);
     expect((await coach.delete(`${cellPath(athleteId, wk(2))}?version=1`)).status).toBe(404);
     await coach.put(cellPath(athleteId, wk(2))).send({ variantId: lib.squat[0] });
@@ -317,7 +317,7 @@ describe('POST /api/plans/batch', () => {
 
   it('refuses an empty batch and the same cell twice, by field', async () => {
     const empty = await coach.post('/api/plans/batch').send({ changes: [] });
-    expect(empty.status).toBe(400);
+    expect(empty.status).toBe(422);
     expect(empty.body.error.fields).toHaveProperty('changes');
     const a = team.athleteId;
     const twice = await coach.post('/api/plans/batch').send({
@@ -326,7 +326,7 @@ describe('POST /api/plans/batch', () => {
         { athleteId: a, week: wk(2), slotId: 'lower', variantId: lib.squat[1] },
       ],
     });
-    expect(twice.status).toBe(400);
+    expect(twice.status).toBe(422);
     expect(twice.body.error.fields).toHaveProperty(['changes.1']);
   });
 
@@ -381,7 +381,7 @@ describe('GET /api/plans/:athleteId/:week/:slotId/history', () => {
   });
 
   it("validates the paging and answers 404 for another team's athlete", async () => {
-    expect((await coach.get(`${cellPath(team.athleteId, wk(2))}/history?limit=0`)).status).toBe(400);
+    expect((await coach.get(`${cellPath(team.athleteId, wk(2))}/history?limit=0`)).status).toBe(422);
     expect((await otherHead.get(`${cellPath(team.athleteId, wk(2))}/history`)).status).toBe(404);
   });
 });
@@ -411,7 +411,7 @@ describe('GET /api/plans', () => {
 
   it('reports bad filters by field', async () => {
     const res = await coach.get('/api/plans?sort=name&limit=9999&source=robot&from=W12');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields).sort()).toEqual([
       'query.from',
       'query.limit',
@@ -419,7 +419,7 @@ describe('GET /api/plans', () => {
       'query.source',
     ]);
     const range = await coach.get('/api/plans?from=2025-W12&to=2025-W10');
-    expect(range.status).toBe(400);
+    expect(range.status).toBe(422);
     expect(range.body.error.fields['query.to']).toEqual(['Must not be before "from"']);
   });
 });

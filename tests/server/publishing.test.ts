@@ -134,7 +134,7 @@ describe('POST /api/weeks/:week/publish', () => {
     const font = await request(t.app).get('/api/email/font/400.woff2');
     expect(font.status).toBe(200);
     expect(font.headers['content-type']).toBe('font/woff2');
-    expect((await request(t.app).get('/api/email/font/900.woff2')).status).toBe(400);
+    expect((await request(t.app).get('/api/email/font/900.woff2')).status).toBe(422);
     const weekly = async (email: string) =>
       (await t.ctx.database.db.select().from(users).where(eq(users.email, email)))[0]!.weeklyEmail;
     expect(await weekly(recipients[1]!.email)).toBe(false);
@@ -166,7 +166,7 @@ describe('POST /api/weeks/:week/publish', () => {
 
   it('checks the week and the role, and keeps teams apart', async () => {
     const bad = await coach.post('/api/weeks/2027-W60/publish');
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields)).toEqual(['params.week']);
     const athlete = await t.signIn(team.athleteUser.email);
     expect((await athlete.post(`/api/weeks/${week}/publish`)).status).toBe(403);
@@ -209,12 +209,12 @@ describe('POST /api/weeks/:week/publish', () => {
   it('only this week or next week can be published, with a clear message', async () => {
     for (const far of [addWeeks(week, 3), addWeeks(week, -3)]) {
       const res = await coach.post(`/api/weeks/${far}/publish`).send({ dryRun: true });
-      expect(res.status).toBe(400);
+      expect(res.status).toBe(422);
       expect(res.body.error.message).toMatch(/Only this week \(\d{4}-W\d\d\) or next week/);
       expect(res.body.error.fields['params.week']).toBeDefined();
     }
     const odd = await coach.post(`/api/weeks/${week}/publish`).send({ dryRun: 'yes' });
-    expect(odd.status).toBe(400);
+    expect(odd.status).toBe(422);
     expect(odd.body.error.fields.dryRun).toBeDefined();
   });
 });

@@ -46,7 +46,7 @@ describe('GET /api/athletes/:id/review', () => {
     expect((await coach.get(`/api/athletes/${other.athleteId}/review`)).status).toBe(404);
     expect((await coach.get('/api/athletes/999999999/review')).status).toBe(404);
     const bad = await coach.get('/api/athletes/abc/review');
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields['params.id']).toBeDefined();
   });
 });

@@ -97,7 +97,7 @@ describe('stored tissue settings', () => {
         tissue: { ...current.rules.tissue, highRepMinReps: 60, sessionsPerWeek: 8 },
       },
     });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields['rules.tissue.highRepMinReps']).toEqual([
       'High-rep work is 100 reps or more: use at least 100',
     ]);
@@ -150,7 +150,7 @@ describe('PUT /api/rules', () => {
         tissue: { ...current.rules.tissue, sorenessThreshold: 11 },
       },
     });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields)).toEqual(
       expect.arrayContaining([
         'equipment.0',

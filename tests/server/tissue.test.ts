@@ -88,7 +88,7 @@ describe('POST /api/tissue/checkins', () => {
     const bad = await athlete
       .post('/api/tissue/checkins')
       .send({ week: '2027-W60', soreness: 11, painJoints: ['toe'] });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['painJoints.0', 'soreness', 'week']);
     const future = await athlete
       .post('/api/tissue/checkins')

@@ -50,7 +50,7 @@ describe('POST /api/top-sets', () => {
     const res = await athlete
       .post('/api/top-sets')
       .send({ planEntryId: 'x', unit: 'stone', weight: -5, reps: 0, rpe: 7.3, note: 'n'.repeat(501) });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['note', 'planEntryId', 'reps', 'rpe', 'unit', 'weight']);
   });
@@ -59,7 +59,7 @@ describe('POST /api/top-sets', () => {
     const low = await athlete
       .post('/api/top-sets')
       .send({ planEntryId: entryId, unit: 'kg', weight: 100, reps: 3, rpe: 5.5 });
-    expect(low.status).toBe(400);
+    expect(low.status).toBe(422);
     expect(low.body.error.fields.rpe[0]).toMatch(/6 to 10 in half steps/);
     const many = await athlete.post('/api/top-sets').send({ planEntryId: entryId, unit: 'kg', weight: 100, reps: 13 });
     expect(many.body.error.fields.reps[0]).toMatch(/At most 12 reps/);
@@ -135,7 +135,7 @@ describe('POST /api/top-sets', () => {
       week: addWeeks(thisWeek, 2),
     });
     const res = await athlete.post('/api/top-sets').send({ planEntryId: later, unit: 'kg', weight: 100, reps: 1 });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.planEntryId[0]).toMatch(/not started/);
   });
 });
@@ -155,7 +155,7 @@ describe('GET /api/top-sets', () => {
     const coach = await t.signIn(team.coach.email);
     expect((await coach.get(`/api/top-sets?athleteId=${team.athleteId}`)).body.total).toBeGreaterThan(0);
     const missing = await coach.get('/api/top-sets');
-    expect(missing.status).toBe(400);
+    expect(missing.status).toBe(422);
     expect(missing.body.error.fields['query.athleteId']).toBeDefined();
     expect((await coach.get(`/api/top-sets?athleteId=${other.athleteId}`)).status).toBe(404);
     expect((await athlete.get(`/api/top-sets?athleteId=${other.athleteId}`)).status).toBe(404);

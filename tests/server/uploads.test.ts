@@ -64,12 +64,12 @@ describe.each(routes)('$name', ({ agent, path, field }) => {
     expect(res.body.error.message).toMatch(/limit/);
   });
 
-  it('answers too many files with 400 naming the field', async () => {
+  it('answers too many files with 422 naming the field', async () => {
     const res = await agent()
       .post(path())
       .attach(field, Buffer.from('a'), 'a.bin')
       .attach(field, Buffer.from('b'), 'b.bin');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields[field]).toBeDefined();
   });
 });

@@ -201,22 +201,22 @@ describe('POST /api/variants/import', () => {
 
   it('refuses a request without a file, and a file that is not text, with a field error', async () => {
     const none = await coach.post('/api/variants/import');
-    expect(none.status).toBe(400);
+    expect(none.status).toBe(422);
     expect(none.body.error.fields).toHaveProperty('file');
     // The first bytes of a zip archive, which is what a spreadsheet's own format is.
     const zip = Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x06, 0x00, 0x08, 0x00, ...Array(40).fill(0)]);
     const res = await upload(coach, zip, 'library.xlsx');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.file[0]).toMatch(/not CSV text/);
   });
 
-  it('refuses a file over 5 MB with 413 and a file under another field name with 400', async () => {
+  it('refuses a file over 5 MB with 413 and a file under another field name with 422', async () => {
     const big = Buffer.alloc(5 * 1024 * 1024 + 1, 'a');
     const res = await upload(coach, big);
     expect(res.status).toBe(413);
     expect(res.body.error.code).toBe('file_too_large');
     const wrong = await coach.post('/api/variants/import').attach('csv', Buffer.from(HEADER), 'x.csv');
-    expect(wrong.status).toBe(400);
+    expect(wrong.status).toBe(422);
   });
 
   it('lists each problem once, even for a file of random text', async () => {

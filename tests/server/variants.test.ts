@@ -106,7 +106,7 @@ describe('GET /api/variants', () => {
 
   it('reports bad filters as field errors', async () => {
     const res = await coach.get('/api/variants?lift=clean&risk=7&sort=colour&limit=0');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     const keys = Object.keys(res.body.error.fields);
     expect(keys).toEqual(expect.arrayContaining(['query.lift', 'query.sort', 'query.limit']));
     expect(keys.some((k) => k.startsWith('query.risk'))).toBe(true);
@@ -156,7 +156,7 @@ describe('POST /api/variants', () => {
       specificity: 0.555,
       scheme: 'double',
     });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
     expect(Object.keys(res.body.error.fields)).toEqual(
       expect.arrayContaining([
@@ -176,7 +176,7 @@ describe('POST /api/variants', () => {
 
   it('refuses a name already in the library, whatever its case', async () => {
     const res = await coach.post('/api/variants').send(valid(`floor PRESS ${tag}`));
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.name[0]).toMatch(/already has this name/);
   });
 
@@ -197,7 +197,7 @@ describe('GET/PATCH/DELETE /api/variants/:id', () => {
 
   it('answers a malformed id with a field error', async () => {
     const res = await coach.get('/api/variants/abc');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields).toHaveProperty('params.id');
   });
 
@@ -219,14 +219,14 @@ describe('GET/PATCH/DELETE /api/variants/:id', () => {
     const res = await coach
       .patch(`/api/variants/${created.id}`)
       .send({ name: `Rack pull ${tag}`, version: created.version });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields).toHaveProperty('name');
   });
 
   it('needs a version to edit', async () => {
     const created = (await coach.post('/api/variants').send(valid(`Spoto ${tag}`))).body;
     const res = await coach.patch(`/api/variants/${created.id}`).send({ risk: 1 });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields).toHaveProperty('version');
   });
 

@@ -125,7 +125,7 @@ describe('POST /api/top-sets/:id/video', () => {
 
   it('asks for the file when none is sent', async () => {
     const res = await athlete.post(`/api/top-sets/${topSetId}/video`).field('note', 'x');
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields.video).toEqual(['Choose a video file']);
   });
 
@@ -142,7 +142,7 @@ describe('POST /api/top-sets/:id/video', () => {
     const coach = await t.signIn(team.coach.email);
     expect((await coach.get(`/api/videos/${videoId}/content`)).status).toBe(200);
     const bad = await coach.post(`/api/videos/${videoId}/comments`).send({ body: '   ' });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields.body).toEqual(['Write a comment']);
     const ok = await coach.post(`/api/videos/${videoId}/comments`).send({ body: 'Hips rose first; brace harder.' });
     expect(ok.status).toBe(201);

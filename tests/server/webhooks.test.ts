@@ -256,7 +256,7 @@ describe('order and relevance', () => {
       data: { object: { id: 'in_x', customer: 42 } },
     });
     const res = await postSigned(payload);
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.code).toBe('validation_failed');
   });
 });

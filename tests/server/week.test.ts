@@ -77,7 +77,7 @@ describe('sessions in the team rules', () => {
       { id: 'b', name: '', weekday: 9, parts: [], slotId: null, speedLift: null },
     ];
     const res = await head.put('/api/rules').send({ ...current, rules: { ...current.rules, sessions: bad } });
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     const f = res.body.error.fields;
     expect(f['rules.sessions.0.speedLift'][0]).toMatch(/lift of the speed work/);
     expect(f['rules.sessions.1.slotId'][0]).toMatch(/max-effort slots/);
@@ -111,7 +111,7 @@ describe('GET /api/athletes/:athleteId/weeks/:week', () => {
     expect((await coach.get(path(other.athleteId))).status).toBe(404);
     expect((await athlete.get(path(team.athleteId))).status).toBe(403);
     const bad = await coach.get(`/api/athletes/${team.athleteId}/weeks/someday`);
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields['params.week']).toBeDefined();
   });
 });
@@ -163,7 +163,7 @@ describe('PUT /api/athletes/:athleteId/weeks/:week', () => {
         },
       }),
     );
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     const f = res.body.error.fields;
     expect(f.trainingMaxPct[0]).toMatch(/At most 100 %/);
     expect(f['sessions.upper-speed.speed.pct'][0]).toMatch(/30 to 100 %/);
@@ -183,7 +183,7 @@ describe('PUT /api/athletes/:athleteId/weeks/:week', () => {
         },
       }),
     );
-    expect(res.status).toBe(400);
+    expect(res.status).toBe(422);
     expect(res.body.error.fields['sessions.nowhere'][0]).toMatch(/No such session/);
     expect(res.body.error.fields['sessions.lower-me.speed'][0]).toMatch(/no speed part/);
   });
@@ -257,10 +257,10 @@ describe('PUT /api/my-week/sessions/:sessionId', () => {
   it('refuses an unknown session, a week not started, bad counts, and coaches', async () => {
     expect((await athlete.put('/api/my-week/sessions/nowhere').send(log(0))).status).toBe(404);
     const later = await athlete.put('/api/my-week/sessions/lower-me').send({ ...log(0), week: addWeeks(thisWeek, 1) });
-    expect(later.status).toBe(400);
+    expect(later.status).toBe(422);
     expect(later.body.error.fields.week[0]).toMatch(/not started/);
     const bad = await athlete.put('/api/my-week/sessions/lower-me').send({ ...log(0), speedSetsDone: -1 });
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields.speedSetsDone).toBeDefined();
     expect((await coach.put('/api/my-week/sessions/lower-me').send(log(0))).status).toBe(403);
   });

@@ -208,7 +208,7 @@ describe('What fits here', () => {
     );
   });
 
-  it('another team’s athlete is not found; an athlete may not ask; a bad cell is a 400', async () => {
+  it('another team’s athlete is not found; an athlete may not ask; a bad cell is a 422', async () => {
     const other = await createTeam(db());
     const otherCoach = await t.signIn(other.coach.email);
     const res = await otherCoach.get(`/api/plans/${team.athleteId}/${next}/lower/alternatives`);
@@ -217,7 +217,7 @@ describe('What fits here', () => {
     const athlete = await t.signIn(team.athleteUser.email);
     expect((await athlete.get(`/api/plans/${team.athleteId}/${next}/lower/alternatives`)).status).toBe(403);
     const bad = await coach.get(`/api/plans/${team.athleteId}/2027-W77/lower/alternatives`);
-    expect(bad.status).toBe(400);
+    expect(bad.status).toBe(422);
     expect(bad.body.error.fields['params.week']).toBeDefined();
     expect((await coach.get(`/api/plans/${team.athleteId}/${next}/middle/alternatives`)).status).toBe(404);
   });

@@ -51,7 +51,7 @@ describe('the offline queue', () => {
 
   it('keeps a refused write with the reason, never sends it again, and drops it when discarded', async () => {
     const queued = await queueOne('Bodyweight 8.24 kg');
-    const refusal = answer(400, {
+    const refusal = answer(422, {
       error: {
         code: 'validation_failed',
         message: 'Some fields need attention.',

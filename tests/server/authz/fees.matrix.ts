@@ -15,24 +15,24 @@ export const matrix: MatrixModule = {
       path: () => '/api/fees/plans',
       expect: { signedOut: 401, athlete: 200, coach: 200, headCoach: 200, otherTeam: 200 },
     },
-    'POST /api/fees/plans': { path: () => '/api/fees/plans', invalidBody: {}, expect: headOnly(400, 400) },
+    'POST /api/fees/plans': { path: () => '/api/fees/plans', invalidBody: {}, expect: headOnly(422, 422) },
     'PATCH /api/fees/plans/:id': {
       path: (f) => `/api/fees/plans/${f.ids.feePlan}`,
       invalidBody: {},
       validBody: () => ({ name: 'Taken over', price: '1', version: 1 }),
-      expect: headOnly(400),
+      expect: headOnly(422),
     },
     'POST /api/fees/plans/:id/archive': {
       path: (f) => `/api/fees/plans/${f.ids.feePlan}/archive`,
       invalidBody: {},
       validBody: () => ({ version: 1 }),
-      expect: headOnly(400),
+      expect: headOnly(422),
     },
     'POST /api/fees/plans/:id/restore': {
       path: (f) => `/api/fees/plans/${f.ids.feePlan}/restore`,
       invalidBody: {},
       validBody: () => ({ version: 1 }),
-      expect: headOnly(400),
+      expect: headOnly(422),
     },
     'DELETE /api/fees/plans/:id': {
       path: (f) => `/api/fees/plans/${f.ids.usedFeePlan}?version=1`,
@@ -43,14 +43,14 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/fees/athletes/${f.team.athleteId}/checkout`,
       invalidBody: {},
       validBody: (f) => ({ planId: f.ids.feePlan }),
-      expect: headOnly(400),
+      expect: headOnly(422),
     },
     'POST /api/fees/athletes/:athleteId/cancel': {
       path: (f) => `/api/fees/athletes/${f.team.athleteId}/cancel`,
       expect: headOnly(409),
     },
     'GET /api/my-fee': { path: () => '/api/my-fee', expect: athleteOnly(200) },
-    'POST /api/my-fee/checkout': { path: () => '/api/my-fee/checkout', invalidBody: {}, expect: athleteOnly(400) },
+    'POST /api/my-fee/checkout': { path: () => '/api/my-fee/checkout', invalidBody: {}, expect: athleteOnly(422) },
     // The athlete's fee is over (cancelled), so there is nothing to cancel: 409, and nothing changes.
     'POST /api/my-fee/cancel': { path: () => '/api/my-fee/cancel', expect: athleteOnly(409) },
     // No signature header: refused before anything is read.

@@ -14,14 +14,14 @@ export const matrix: MatrixModule = {
     'GET /api/variants/facets': { path: () => '/api/variants/facets', expect: staff(200, 200) },
     'GET /api/variants/export': { path: () => '/api/variants/export', expect: staff(200, 200) },
     // No file attached: refused before anything is read.
-    'POST /api/variants/import': { path: () => '/api/variants/import', expect: staff(400, 400) },
-    'POST /api/variants': { path: () => '/api/variants', invalidBody: {}, expect: staff(400, 400) },
+    'POST /api/variants/import': { path: () => '/api/variants/import', expect: staff(422, 422) },
+    'POST /api/variants': { path: () => '/api/variants', invalidBody: {}, expect: staff(422, 422) },
     'GET /api/variants/:id': { path: (f) => `/api/variants/${f.ids.libraryVariant}`, expect: staff(200) },
     'PATCH /api/variants/:id': {
       path: (f) => `/api/variants/${f.ids.libraryVariant}`,
       invalidBody: { risk: 9 },
       validBody: () => ({ notes: 'not yours', version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'DELETE /api/variants/:id': { path: (f) => `/api/variants/${f.ids.libraryVariant}`, expect: staff(200) },
   },

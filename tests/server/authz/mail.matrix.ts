@@ -3,8 +3,8 @@ import { randomBytes } from 'node:crypto';
 import { invitations } from '../../../server/db/schema';
 import { all, headOnly, staff, type MatrixModule } from './types';
 
-const headCoachOnlyBody = { signedOut: 401, athlete: 403, coach: 403, headCoach: 400, otherTeam: 400 };
-const staffBody = { signedOut: 401, athlete: 403, coach: 400, headCoach: 400, otherTeam: 400 };
+const headCoachOnlyBody = { signedOut: 401, athlete: 403, coach: 403, headCoach: 422, otherTeam: 422 };
+const staffBody = { signedOut: 401, athlete: 403, coach: 422, headCoach: 422, otherTeam: 422 };
 
 export const matrix: MatrixModule = {
   async setup(db, team) {
@@ -42,18 +42,18 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/invitations/${f.ids.invitationToRevoke}/revoke`,
       expect: headOnly(200),
     },
-    'GET /api/invitation-links/preview': { path: () => '/api/invitation-links/preview', expect: all(400) },
+    'GET /api/invitation-links/preview': { path: () => '/api/invitation-links/preview', expect: all(422) },
     'POST /api/invitation-links/accept': {
       path: () => '/api/invitation-links/accept',
       invalidBody: {},
-      expect: all(400),
+      expect: all(422),
     },
-    'POST /api/auth/password-reset': { path: () => '/api/auth/password-reset', invalidBody: {}, expect: all(400) },
-    'GET /api/auth/password-reset/check': { path: () => '/api/auth/password-reset/check', expect: all(400) },
+    'POST /api/auth/password-reset': { path: () => '/api/auth/password-reset', invalidBody: {}, expect: all(422) },
+    'GET /api/auth/password-reset/check': { path: () => '/api/auth/password-reset/check', expect: all(422) },
     'POST /api/auth/password-reset/complete': {
       path: () => '/api/auth/password-reset/complete',
       invalidBody: {},
-      expect: all(400),
+      expect: all(422),
     },
     'GET /api/weeks/:week/publication': { path: () => '/api/weeks/2031-W10/publication', expect: staff(200, 200) },
     'POST /api/weeks/:week/publish': { path: () => '/api/weeks/2031-W99/publish', expect: staffBody },

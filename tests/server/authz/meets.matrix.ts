@@ -15,13 +15,13 @@ export const matrix: MatrixModule = {
   },
   cases: {
     'GET /api/meets': { path: () => '/api/meets', expect: staff(200, 200) },
-    'POST /api/meets': { path: () => '/api/meets', invalidBody: {}, expect: staff(400, 400) },
+    'POST /api/meets': { path: () => '/api/meets', invalidBody: {}, expect: staff(422, 422) },
     'GET /api/meets/:id': { path: (f) => `/api/meets/${f.ids.meet}`, expect: staff(200) },
     'PATCH /api/meets/:id': {
       path: (f) => `/api/meets/${f.ids.meet}`,
       invalidBody: { date: 'soon' },
       validBody: () => ({ notes: 'not yours', version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     // The coach's delete removes it; the head coach then finds nothing to delete.
     'DELETE /api/meets/:id': {
@@ -32,13 +32,13 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/meets/${f.ids.meet}/entries`,
       invalidBody: { athleteId: 'someone' },
       validBody: (f) => ({ athleteId: f.other.athleteId }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'PATCH /api/meets/:id/entries/:entryId': {
       path: (f) => `/api/meets/${f.ids.meet}/entries/${f.ids.meetEntry}`,
       invalidBody: { attempts: { squat: [-5] } },
       validBody: () => ({ weightClass: '63', version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'DELETE /api/meets/:id/entries/:entryId': {
       path: (f) => `/api/meets/${f.ids.meet}/entries/${f.ids.meetEntry}`,
@@ -56,7 +56,7 @@ export const matrix: MatrixModule = {
         weightKg: 100,
         result: 'good',
       }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'DELETE /api/meets/:id/day/marks/:attemptId': {
       path: (f) => `/api/meets/${f.ids.dayMeet}/day/marks/${f.ids.dayAttempt}?version=99`,
@@ -67,18 +67,18 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/meets/${f.ids.dayMeet}/day/entries/${f.ids.dayEntry}/weigh-in`,
       invalidBody: { bodyweightKg: -1, version: 1 },
       validBody: () => ({ bodyweightKg: 62.5, version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'PUT /api/meets/:id/day/entries/:entryId/jumps': {
       path: (f) => `/api/meets/${f.ids.dayMeet}/day/entries/${f.ids.dayEntry}/jumps`,
       invalidBody: { jumps: { squat: [3, 5] } },
       validBody: () => ({ jumps: { squat: [10, 5], bench: [5, 2.5], deadlift: [10, 5] } }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'POST /api/meets/:id/day/results': {
       path: (f) => `/api/meets/${f.ids.dayMeet}/day/results`,
-      // The meet is in the future: coaches are told so (400) and nothing is written.
-      expect: staff(400),
+      // The meet is in the future: coaches are told so (422) and nothing is written.
+      expect: staff(422),
     },
   },
 };

@@ -12,7 +12,7 @@ export const matrix: MatrixModule = {
       path: thread,
       invalidBody: { body: '' },
       validBody: () => ({ body: 'Can I swap the pin press this week?' }),
-      expect: signedIn(400, 404),
+      expect: signedIn(422, 404),
     },
     'PUT /api/messages/threads/:athleteId/:week/read': { path: (f) => `${thread(f)}/read`, expect: signedIn(200, 404) },
   },

@@ -18,7 +18,7 @@ export const matrix: MatrixModule = {
       path: () => '/api/plans/generate',
       invalidBody: { weeks: 'someday' },
       validBody: (f) => ({ weeks: 'next', athleteIds: [f.team.athleteId] }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'POST /api/plans/batch': {
       path: () => '/api/plans/batch',
@@ -26,13 +26,13 @@ export const matrix: MatrixModule = {
       validBody: (f) => ({
         changes: [{ athleteId: f.team.athleteId, week, slotId: 'lower', variantId: f.ids.planVariant, version: 1 }],
       }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'PUT /api/plans/:athleteId/:week/:slotId': {
       path: (f) => `/api/plans/${f.team.athleteId}/${week}/lower`,
       invalidBody: { variantId: 'box squat' },
       validBody: (f) => ({ variantId: f.ids.planVariant, version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     // A version nobody has: staff get 409 and nothing changes; the other team does not find the cell.
     'DELETE /api/plans/:athleteId/:week/:slotId': {

@@ -19,13 +19,13 @@ export const matrix: MatrixModule = {
   cases: {
     'GET /api/athletes': { path: () => '/api/athletes', expect: staff(200, 200) },
     'GET /api/athletes/accounts': { path: () => '/api/athletes/accounts', expect: staff(200, 200) },
-    'POST /api/athletes': { path: () => '/api/athletes', invalidBody: {}, expect: staff(400, 400) },
+    'POST /api/athletes': { path: () => '/api/athletes', invalidBody: {}, expect: staff(422, 422) },
     'GET /api/athletes/:id': { path: (f) => `/api/athletes/${f.ids.rosterAthlete}`, expect: staff(200) },
     'PATCH /api/athletes/:id': {
       path: (f) => `/api/athletes/${f.ids.rosterAthlete}`,
       invalidBody: { sex: 'X' },
       validBody: () => ({ notes: 'not yours', version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     // Archiving twice is the same as once.
     'DELETE /api/athletes/:id': { path: (f) => `/api/athletes/${f.ids.rosterAthlete}`, expect: staff(200) },
@@ -37,13 +37,13 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/athletes/${f.ids.rosterAthlete}/restrictions`,
       invalidBody: { joint: 'spine' },
       validBody: () => ({ joint: 'knee', maxStress: 1, fromDate: '2026-01-05' }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'PATCH /api/athletes/:id/restrictions/:restrictionId': {
       path: (f) => `/api/athletes/${f.ids.rosterAthlete}/restrictions/${f.ids.rosterRestriction}`,
       invalidBody: { maxStress: 7 },
       validBody: () => ({ note: 'not yours', version: 1 }),
-      expect: staff(400),
+      expect: staff(422),
     },
     // The coach's delete removes it; the head coach then finds nothing to delete.
     'DELETE /api/athletes/:id/restrictions/:restrictionId': {

@@ -15,7 +15,7 @@ export const matrix: MatrixModule = {
   cases: {
     'GET /api/my-week': { path: () => '/api/my-week', expect: athleteOnly(200) },
     'GET /api/my-history': { path: () => '/api/my-history', expect: athleteOnly(200) },
-    'POST /api/top-sets': { path: () => '/api/top-sets', invalidBody: {}, expect: athleteOnly(400) },
+    'POST /api/top-sets': { path: () => '/api/top-sets', invalidBody: {}, expect: athleteOnly(422) },
     'GET /api/top-sets': {
       path: (f) => `/api/top-sets?athleteId=${f.team.athleteId}`,
       expect: signedIn(200, 404),
@@ -23,13 +23,13 @@ export const matrix: MatrixModule = {
     'PUT /api/bodyweights/:measuredOn': {
       path: () => '/api/bodyweights/2026-03-01',
       invalidBody: { unit: 'stone', weight: -1 },
-      expect: athleteOnly(400),
+      expect: athleteOnly(422),
     },
     'GET /api/bodyweights': {
       path: (f) => `/api/bodyweights?athleteId=${f.team.athleteId}`,
       expect: signedIn(200, 404),
     },
-    'POST /api/tissue/checkins': { path: () => '/api/tissue/checkins', invalidBody: {}, expect: athleteOnly(400) },
+    'POST /api/tissue/checkins': { path: () => '/api/tissue/checkins', invalidBody: {}, expect: athleteOnly(422) },
     'GET /api/athletes/:id/review': {
       path: (f) => `/api/athletes/${f.team.athleteId}/review`,
       expect: staff(200),

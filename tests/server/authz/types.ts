@@ -14,7 +14,7 @@ export interface Fixture {
 
 export interface Case {
   path: (f: Fixture) => string;
-  /** Sent by callers who are allowed in: invalid on purpose, so the answer is 400 and nothing changes. */
+  /** Sent by callers who are allowed in: invalid on purpose, so the answer is 422 and nothing changes. */
   invalidBody?: unknown;
   /** Sent by the other team's head coach: valid, so a 404 proves the row is out of their reach. */
   validBody?: (f: Fixture) => unknown;

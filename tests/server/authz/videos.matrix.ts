@@ -45,7 +45,7 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/videos/${f.ids.matrixVideo}/comments`,
       invalidBody: {},
       validBody: () => ({ body: 'Looks solid.' }),
-      expect: staff(400),
+      expect: staff(422),
     },
   },
 };

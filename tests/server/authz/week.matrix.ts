@@ -18,12 +18,12 @@ export const matrix: MatrixModule = {
       path: (f) => `/api/athletes/${f.team.athleteId}/weeks/${week}`,
       invalidBody: { version: 0 },
       validBody: () => ({ version: 0, deload: false, trainingMaxPct: 90, sessions: {} }),
-      expect: staff(400),
+      expect: staff(422),
     },
     'PUT /api/my-week/sessions/:sessionId': {
       path: () => '/api/my-week/sessions/lower-speed',
       invalidBody: { week: 'soon' },
-      expect: athleteOnly(400),
+      expect: athleteOnly(422),
     },
   },
 };
