@@ -115,3 +115,15 @@ export function LabelledOptions<K extends string | number>({
     </>
   );
 }
+
+/**
+ * An e-mail address field: the phone's e-mail keyboard, and the address offered as the account name by
+ * password managers unless `autoComplete` says otherwise (an invitation's address is someone else's).
+ */
+export function EmailField({
+  label = 'E-mail',
+  autoComplete = 'username',
+  ...props
+}: Omit<FieldShell, 'label'> & { label?: string } & Omit<InputHTMLAttributes<HTMLInputElement>, 'type'>) {
+  return <TextField label={label} type="email" inputMode="email" autoComplete={autoComplete} {...props} />;
+}

@@ -3,7 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { forgotPasswordBody, type ForgotPasswordBody } from '../../../../shared/schemas';
-import { TextField } from '../../../components/ui/field';
+import { EmailField } from '../../../components/ui/field';
 import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { Notice } from '../../../components/ui/page';
 import { applyFieldErrors } from '../../../lib/form-errors';
@@ -46,14 +46,7 @@ export function ForgotPasswordForm() {
           Enter the address you sign in with. We will send it a link to choose a new password.
         </p>
         <FormFailure failure={request.error} fieldErrors={errors} />
-        <TextField
-          label="E-mail"
-          type="email"
-          autoComplete="username"
-          inputMode="email"
-          error={errors.email?.message}
-          {...form.register('email')}
-        />
+        <EmailField error={errors.email?.message} {...form.register('email')} />
         <SubmitButton size="lg" busy={isSubmitting} busyText="Sending…">
           Send the link
         </SubmitButton>

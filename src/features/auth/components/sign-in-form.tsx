@@ -4,7 +4,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { loginBody, type LoginBody, type Me } from '../../../../shared/schemas';
-import { TextField } from '../../../components/ui/field';
+import { EmailField, TextField } from '../../../components/ui/field';
 import { Form, FormFailure, SubmitButton } from '../../../components/ui/form';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { meQueryOptions } from '../../../lib/me';
@@ -29,14 +29,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
   return (
     <Form onSubmit={onSubmit}>
       <FormFailure failure={signIn.error} fieldErrors={errors} />
-      <TextField
-        label="E-mail"
-        type="email"
-        autoComplete="username"
-        inputMode="email"
-        error={errors.email?.message}
-        {...form.register('email')}
-      />
+      <EmailField error={errors.email?.message} {...form.register('email')} />
       <TextField
         label="Password"
         type="password"

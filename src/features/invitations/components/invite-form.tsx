@@ -9,7 +9,7 @@ import {
   type CreateInvitationInput,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextField } from '../../../components/ui/field';
+import { EmailField, SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/page';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { linkableAthletesQueryOptions } from '../api/queries';
@@ -44,14 +44,7 @@ export function InviteForm() {
       ) : null}
       {create.error && !Object.keys(errors).length ? <Notice tone="error">{create.error.message}</Notice> : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="E-mail"
-          type="email"
-          inputMode="email"
-          autoComplete="off"
-          error={errors.email?.message}
-          {...form.register('email')}
-        />
+        <EmailField autoComplete="off" error={errors.email?.message} {...form.register('email')} />
         <fieldset className="flex flex-col gap-1">
           <legend className="text-sm font-semibold text-ink-800">Joins as</legend>
           <div className="flex gap-4 pt-2">
