@@ -69,16 +69,9 @@ const FINGERPRINT_PARTS: FingerprintPart[] = [
   },
   { table: teamRules, rows: 'FROM team_rules t WHERE t.team_id = ?', params: ['team'] },
   own(planEntries, true),
-  {
-    // The week's picks and every variant the athlete logged a top set on (last time, records).
-    table: variants,
-    rows: `FROM variants t JOIN (
-             SELECT variant_id FROM plan_entries WHERE team_id = ? AND athlete_id = ? AND week = ?
-             UNION SELECT variant_id FROM top_sets WHERE team_id = ? AND athlete_id = ?
-           ) used ON used.variant_id = t.id
-           WHERE t.team_id = ?`,
-    params: ['team', 'athlete', 'week', 'team', 'athlete', 'team'],
-  },
+  // The team's library: a superset of the week's picks and the variants with the athlete's top sets, read
+  // without a join (an edit anywhere in the library is rare and only rebuilds the answer once).
+  { table: variants, rows: 'FROM variants t WHERE t.team_id = ?', params: ['team'] },
   own(topSets),
   own(tissuePrescriptions),
   own(tissueCheckins),
@@ -129,13 +122,14 @@ const FINGERPRINT_SQL = `SELECT CONCAT_WS('|', ${FINGERPRINT_PARTS.map(partSql).
  * instance: equal fingerprints mean the same rows. `since` is the first day of the bodyweights shown.
  */
 export async function weekFingerprint(
-  pool: Pick<Pool, 'query'>,
+  pool: Pick<Pool, 'execute'>,
   who: { teamId: number; athleteId: number },
   week: string,
   since: string,
 ): Promise<string> {
   const values = { team: who.teamId, athlete: who.athleteId, week, since };
   const params = FINGERPRINT_PARTS.flatMap((p) => p.params.map((name) => values[name]));
-  const [rows] = await pool.query<(RowDataPacket & { fp: string | null })[]>(FINGERPRINT_SQL, params);
+  // A prepared statement (kept per connection by mysql2): the server parses and plans the long query once.
+  const [rows] = await pool.execute<(RowDataPacket & { fp: string | null })[]>(FINGERPRINT_SQL, params);
   return rows[0]!.fp ?? '';
 }
