@@ -78,6 +78,7 @@ describe('templates', () => {
       'Work up to a heavy set of five',
       'Elbow extension pulses against a fixed strap',
       '3 pulses of 3.5 s at 10°, 70°, 130°',
+      '3 sessions this week',
       'Open My week',
       'Stop the set on sharp or unusual pain.',
       'Stop these weekly e-mails',
@@ -102,6 +103,10 @@ describe('templates', () => {
     const base = { week: '2027-W10', joint: 'knee' as const, exercise: 'x', instructions: [], sessionsPerWeek: 3 };
     expect(tissueDose({ ...base, kind: 'highRep', dose: { reps: 100, band: 'light' } })).toBe(
       '100 easy reps with a light band',
+    );
+    // Still sore on the lightest band: the reps stay, split into easy sets.
+    expect(tissueDose({ ...base, kind: 'highRep', dose: { reps: 100, band: 'lightest', easySets: 4 } })).toBe(
+      '100 easy reps with the lightest band, split into 4 easy sets with short rests',
     );
     expect(tissueDose({ ...base, kind: 'loadedStretch', dose: { fatigueReps: 25, holdSeconds: 135 } })).toBe(
       '25 light reps, then hold the stretch for 2 min 15 s',

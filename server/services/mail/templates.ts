@@ -1,6 +1,7 @@
 // The words of every e-mail Rackturn sends, in both HTML and plain text (see layout.ts for the look).
 import { mondayOf } from '../../../shared/engine/weeks';
 import { TISSUE_CAUTION, type TissuePrescription } from '../../../shared/engine/tissue';
+import { tissueSessionsLabel } from '../../../shared/labels';
 import { renderMail, type Block } from './layout';
 
 export interface RenderedMail {
@@ -135,7 +136,10 @@ function seconds(s: number): string {
 export function tissueDose(item: TissuePrescription): string {
   switch (item.kind) {
     case 'highRep':
-      return `${item.dose.reps} easy reps with ${BAND_WORDS[item.dose.band]}`;
+      return (
+        `${item.dose.reps} easy reps with ${BAND_WORDS[item.dose.band]}` +
+        (item.dose.easySets ? `, split into ${item.dose.easySets} easy sets with short rests` : '')
+      );
     case 'isometric':
       return `${item.dose.pulsesPerAngle} pulses of ${seconds(item.dose.seconds)} at ${item.dose.angles.map((a) => `${a}°`).join(', ')}`;
     case 'loadedStretch':
@@ -183,7 +187,10 @@ export function weeklyPlanMail(m: {
     {
       type: 'list',
       // The dose only: the step-by-step instructions are in My week, where the athlete does the work.
-      items: m.tissue.map((t) => ({ title: t.exercise, lines: [tissueDose(t)] })),
+      items: m.tissue.map((t) => ({
+        title: t.exercise,
+        lines: [tissueDose(t), tissueSessionsLabel(t.sessionsPerWeek)],
+      })),
       empty: 'None this week.',
     },
     ...(m.tissue.length > 0
