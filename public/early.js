@@ -1,5 +1,6 @@
 // Runs before the app's code: on the athlete's My week (the page a phone opens most), asks for the
 // signed-in user and the week at once, so the answers are on their way while the code still downloads.
+// A page with the first glance (drawn by the server) carries both already, and does nothing here.
 // Plain JavaScript served as is, loaded async from the page's head; src/lib/early-requests.ts hands the
 // answers over to the API client, which takes each one once.
 /* global window, document, location, fetch, URLSearchParams */
@@ -11,7 +12,9 @@
     res.catch(() => undefined);
     early[url] = res;
   };
-  if (location.pathname === '/my-week') {
+  // With a first glance the server drew the week into the page and named the page's code itself.
+  const glance = document.querySelector('meta[name="rackturn-first-glance"]') !== null;
+  if (location.pathname === '/my-week' && !glance) {
     const week = new URLSearchParams(location.search).get('week');
     start('/api/auth/me');
     start(week && /^\d{4}-W\d{2}$/.test(week) ? `/api/my-week?week=${encodeURIComponent(week)}` : '/api/my-week');

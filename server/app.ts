@@ -1,5 +1,5 @@
 // createApp(): middleware, routers and error handling, without listen() so tests can drive it.
-import express, { type Express } from 'express';
+import express, { type Express, type RequestHandler } from 'express';
 import cookieParser from 'cookie-parser';
 import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
@@ -12,6 +12,7 @@ import type { AppContext } from './context';
 import { loadSession } from './middleware/auth';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { originCheck } from './middleware/origin-check';
+import { firstGlance } from './modules/first-glance/first-glance.page';
 import { healthRouter } from './modules/health/health.router';
 import { apiModules } from './modules';
 
@@ -90,10 +91,12 @@ export function createApp(ctx: AppContext): Express {
       cacheControl: false,
       setHeaders: (res: ServerResponse) => res.setHeader('Cache-Control', 'no-cache'),
     });
-    app.get('/{*splat}', (req, res, next) => {
+    const plainPage: RequestHandler = (req, res, next) => {
       req.url = '/index.html';
       page(req, res, next);
-    });
+    };
+    // A signed-in athlete's visit home gets the page with the first glance of the week drawn in.
+    app.get('/{*splat}', firstGlance(ctx, join(dist, 'index.html'), plainPage));
   }
 
   app.use(errorHandler(ctx.logger));

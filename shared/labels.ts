@@ -3,6 +3,8 @@ import type { Division, Sex } from './calc/classes';
 import type { Lift } from './engine/types';
 import type { AccessoryCategory, SessionPart } from './schemas/week';
 import type { TissueKind, TissuePrescription } from './engine/tissue';
+import type { Scheme } from './schemas/training';
+import { mondayOf } from './engine/weeks';
 
 /** The short lift names of the library, the board and the history lists. */
 export const LIFT_LABEL: Record<Lift, string> = { squat: 'Squat', bench: 'Bench', deadlift: 'Deadlift' };
@@ -80,4 +82,30 @@ export function tissueDoseLabel(item: TissuePrescription): string {
 /** How often a connective-tissue item is done in its week. */
 export function tissueSessionsLabel(sessionsPerWeek: number): string {
   return sessionsPerWeek === 1 ? 'Once this week' : `${sessionsPerWeek} sessions this week`;
+}
+
+/** What a max-effort pick asks of the athlete, as My week (and its first glance) words it. */
+export const SCHEME_GOAL_LABEL: Readonly<Record<Scheme, string>> = {
+  single: 'Work up to a top single',
+  triple: 'Work up to a top triple',
+  five: 'Work up to a top five',
+};
+
+/** My week before its max-effort work can be shown. */
+export const MY_WEEK_DRAFT_NOTICE =
+  'Your coach is still planning this week. Your max-effort work shows here once it is published.';
+export const MY_WEEK_EMPTY_NOTICE =
+  'No max-effort work is planned for this week yet. Your coach fills it on the board.';
+
+/** The caution on every page where training load is set or shown. */
+export const TRAINING_CAUTION_TEXT =
+  'Stop the set on sharp or unusual pain. For an injury, see a licensed clinician; Rackturn plans training and is ' +
+  'not medical advice. Follow the rules of your federation and your gym.';
+
+const spanDate = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
+
+/** An ISO week's days, Monday to Sunday ("30 Nov – 6 Dec"), the same in the browser and on the server. */
+export function weekSpanLabel(week: string): string {
+  const monday = mondayOf(week);
+  return `${spanDate.format(monday)} – ${spanDate.format(new Date(monday.getTime() + 6 * 86_400_000))}`;
 }

@@ -1,13 +1,17 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
-import { App } from './app/provider';
+import { App, createAppClients, firstPageLoaded } from './app/provider';
+import { takeFirstGlance } from './lib/first-glance';
 import { registerServiceWorker } from './lib/service-worker';
 import './index.css';
 
-createRoot(document.getElementById('root')!).render(
-  <StrictMode>
-    <App />
-  </StrictMode>,
+const clients = createAppClients(takeFirstGlance());
+void firstPageLoaded(clients).then(() =>
+  createRoot(document.getElementById('root')!).render(
+    <StrictMode>
+      <App clients={clients} />
+    </StrictMode>,
+  ),
 );
 
 registerServiceWorker();

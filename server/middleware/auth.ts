@@ -21,21 +21,23 @@ export const HEAD_COACH: readonly Role[] = ['head_coach'];
 export const ATHLETE: readonly Role[] = ['athlete'];
 export const ANY_ROLE: readonly Role[] = ['head_coach', 'coach', 'athlete'];
 
+/** Sets `req.auth` when the session cookie names a live session (for the API and the app's page alike). */
+export async function attachSession(ctx: AppContext, req: Request, res: Response): Promise<void> {
+  const token: unknown = req.cookies?.[SESSION_COOKIE];
+  if (typeof token !== 'string' || token === '') return;
+  const found = await resolveSession(ctx, token);
+  if (!found) {
+    clearSessionCookie(req, res);
+    return;
+  }
+  req.auth = found.record.auth;
+  // The session's end moved ahead: so does the cookie's.
+  if (found.renewCookie) setSessionCookie(req, res, token);
+}
+
 /** Attaches `req.auth` when the session cookie names a live session; never rejects by itself. */
 export function loadSession(ctx: AppContext): RequestHandler {
-  return async (req: Request, res: Response, next: NextFunction) => {
-    const token: unknown = req.cookies?.[SESSION_COOKIE];
-    if (typeof token !== 'string' || token === '') return next();
-    const found = await resolveSession(ctx, token);
-    if (!found) {
-      clearSessionCookie(req, res);
-      return next();
-    }
-    req.auth = found.record.auth;
-    // The session's end moved ahead: so does the cookie's.
-    if (found.renewCookie) setSessionCookie(req, res, token);
-    next();
-  };
+  return (req: Request, res: Response, next: NextFunction) => attachSession(ctx, req, res).then(() => next(), next);
 }
 
 export function requireRole(roles: readonly Role[]): RequestHandler {

@@ -31,10 +31,10 @@ const FIRST_SCREEN_WAIT_MS = 8000;
 
 export function registerServiceWorker(): void {
   if (!('serviceWorker' in navigator)) return;
-  const waitsForScreen = location.pathname === '/my-week';
   void pageLoaded()
+    // Read after the load: the home page (/) has sent an athlete on to My week by then.
     .then(() =>
-      waitsForScreen
+      location.pathname === '/my-week'
         ? Promise.race([firstScreen, new Promise<void>((r) => setTimeout(r, FIRST_SCREEN_WAIT_MS))])
         : undefined,
     )

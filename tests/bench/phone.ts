@@ -1,6 +1,7 @@
 // Phone benchmark: the demo athlete opens My week in Debian's Chromium as on a phone (signed in, cold cache,
 // 150 ms latency, 1.6 Mbit/s down, CPU slowed 4× through the DevTools protocol); the time from navigation
-// to this week's first pick on screen, with the bytes and requests it took. Median of five fresh profiles.
+// to this week's first pick in the page and on screen (painted), with the bytes and requests it took.
+// Median of five fresh profiles.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
@@ -11,7 +12,10 @@ const RUNS = 5;
 const PROFILE = { latencyMs: 150, downKbit: 1600, upKbit: 750, cpuSlowdown: 4, width: 375, height: 740 };
 
 interface Run {
+  /** When the pick's heading was in the page. */
   pickMs: number;
+  /** When it was painted (null when the browser did not report it). */
+  pickPaintMs: number | null;
   bytes: number;
   requests: number;
   /** When the week's data request started, ms after navigation. */
@@ -39,11 +43,20 @@ async function openOnce(stack: SpeedStack, cookie: string, pickName: string): Pr
     const page = context.pages()[0] ?? (await context.newPage());
     // Watches for the pick's heading from the first byte of the document, in page time.
     // A plain string: functions handed to the page must not carry the bundler's name helpers.
+    // The heading in the page is not yet the heading on screen (the style sheet holds the first paint back):
+    // the element timing of the heading says when it was painted (Chromium's Element Timing API).
     await page.addInitScript(`(() => {
       const name = ${JSON.stringify(pickName)};
+      new PerformanceObserver((list) => {
+        for (const e of list.getEntries())
+          if (e.identifier === 'pick' && window.__pickPaintAt === undefined) window.__pickPaintAt = e.renderTime || e.loadTime;
+      }).observe({ type: 'element', buffered: true });
       new MutationObserver(() => {
-        if (window.__pickAt === undefined && [...document.querySelectorAll('h2')].some((h) => h.textContent === name))
-          window.__pickAt = performance.now();
+        if (window.__pickAt !== undefined) return;
+        const h = [...document.querySelectorAll('h2')].find((h) => h.textContent === name);
+        if (!h) return;
+        window.__pickAt = performance.now();
+        h.setAttribute('elementtiming', 'pick');
       }).observe(document, { childList: true, subtree: true, characterData: true });
     })()`);
     const cdp = await context.newCDPSession(page);
@@ -88,10 +101,21 @@ async function openOnce(stack: SpeedStack, cookie: string, pickName: string): Pr
         throw new Error(`no pick "${pickName}" on ${page.url()} (headings: ${headings.join(' | ')})`, { cause: err });
       });
     const pickMs = Number(await handle.jsonValue());
+    const painted = await page
+      .waitForFunction(() => (window as unknown as { __pickPaintAt?: number }).__pickPaintAt, null, {
+        timeout: 15_000,
+        polling: 100,
+      })
+      .then(async (h) => Number(await h.jsonValue()))
+      .catch(() => null);
     await page.waitForLoadState('networkidle');
-    if (process.env.BENCH_PHONE_TIMELINE) console.error([...timeline, `${Math.round(pickMs)} pick`].join('\n'));
+    if (process.env.BENCH_PHONE_TIMELINE)
+      console.error(
+        [...timeline, `${Math.round(pickMs)} pick`, `${Math.round(painted ?? NaN)} pick painted`].join('\n'),
+      );
     return {
       pickMs: Math.round(pickMs),
+      pickPaintMs: painted === null ? null : Math.round(painted),
       bytes,
       requests,
       myWeekRequestMs: myWeekWall !== null && startWall !== null ? Math.round((myWeekWall - startWall) * 1000) : null,
@@ -121,9 +145,13 @@ export async function runPhoneBench(stack: SpeedStack) {
     profile: PROFILE,
     runs: RUNS,
     pickMs: { median: median(runs.map((r) => r.pickMs)), all: runs.map((r) => r.pickMs) },
+    pickPaintMs: {
+      median: median(runs.map((r) => r.pickPaintMs ?? Number.NaN)),
+      all: runs.map((r) => r.pickPaintMs),
+    },
     myWeekRequestMs: median(runs.map((r) => r.myWeekRequestMs ?? Number.NaN)),
     bytes: median(runs.map((r) => r.bytes)),
     requests: median(runs.map((r) => r.requests)),
-    budgets: { pickMs: 2000 },
+    budgets: { pickMs: 2000, pickPaintMs: 2000 },
   };
 }

@@ -3,7 +3,7 @@
 // cancelled, and the coach watching and commenting on it from the athlete's page.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
-import { request } from 'playwright-core';
+import { request, type Page } from 'playwright-core';
 import { formatWeight } from '../../shared/calc';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
 import { axeViolations } from './support/axe';
@@ -116,22 +116,40 @@ describe('My week on a phone', () => {
     await b.page.evaluate(async () => {
       for (const r of await navigator.serviceWorker.getRegistrations()) await r.unregister();
     });
-    const page = await b.page.context().newPage();
-    const requested: string[] = [];
-    page.on('request', (r) => requested.push(new URL(r.url()).pathname));
-    await page.route(/\/assets\/index-[\w-]+\.js$/, (route) => route.abort());
-    try {
+    const firstVisit = async (page: Page, requested: string[]) => {
+      page.on('request', (r) => requested.push(new URL(r.url()).pathname));
+      await page.route(/\/assets\/index-[\w-]+\.js$/, (route) => route.abort());
       await page.goto(new URL('/my-week', b.page.url()).href);
       const named = (await page.locator('meta[name="rackturn-my-week-code"]').getAttribute('content'))!.split(' ');
       expect(named.some((f) => /^\/assets\/my-week-[\w-]+\.js$/.test(f))).toBe(true);
       await expect.poll(() => named.filter((f) => !requested.includes(f)), { timeout: 15_000 }).toEqual([]);
-      expect(requested).toContain('/api/my-week');
       const preloads = await page
         .locator('link[rel="modulepreload"]')
         .evaluateAll((ls) => ls.map((l) => new URL((l as HTMLLinkElement).href).pathname));
       expect(preloads).toEqual(named);
+    };
+    // From the server: the week is in the page already (its first glance), so nothing asks for it.
+    const page = await b.page.context().newPage();
+    const requested: string[] = [];
+    try {
+      await firstVisit(page, requested);
+      expect(await page.locator('script#rackturn-first-glance[type="application/json"]').count()).toBe(1);
+      expect(requested).not.toContain('/api/my-week');
     } finally {
       await page.close();
+    }
+    // The plain page (the one the service worker keeps for every visit): early.js asks for the week.
+    const plain = await b.page.context().newPage();
+    const plainRequested: string[] = [];
+    await plain.route(
+      (url) => url.pathname === '/my-week',
+      async (route) => route.fulfill({ response: await plain.request.get(new URL('/index.html', b.page.url()).href) }),
+    );
+    try {
+      await firstVisit(plain, plainRequested);
+      expect(plainRequested).toContain('/api/my-week');
+    } finally {
+      await plain.close();
     }
   });
 

@@ -11,7 +11,7 @@ import type { AppContext } from '../../context';
 import { ANY_ROLE, authOf, requireRole } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
 import { SESSION_COOKIE, clearSessionCookie, setSessionCookie } from '../../lib/session';
-import { signIn } from './auth.service';
+import { meOf, signIn } from './auth.service';
 import { endOwnSession, endSession, endUserSessions, listOwnSessions } from './sessions.service';
 import { TooManyAttemptsError } from './sign-in-limits';
 
@@ -78,19 +78,7 @@ export function authRouter(ctx: AppContext): Router {
   router.get(
     '/auth/me',
     requireRole(ANY_ROLE),
-    validate({}, (_input, req): Me => {
-      const a = authOf(req);
-      return {
-        id: a.userId,
-        email: a.email,
-        name: a.name,
-        role: a.role,
-        teamId: a.teamId,
-        teamName: a.teamName,
-        unit: a.unit,
-        athleteId: a.athleteId,
-      };
-    }),
+    validate({}, (_input, req): Me => meOf(authOf(req))),
   );
 
   return router;

@@ -1,5 +1,7 @@
 // Signing in: one answer for an unknown e-mail and a wrong password, held back after repeated failures.
+import type { Me } from '../../../shared/schemas';
 import type { AppContext } from '../../context';
+import type { SessionAuth } from '../../lib/session';
 import { UnauthorizedError } from '../../lib/errors';
 import { verifyPassword } from '../../lib/passwords';
 import { findDefaultMembership, findUserByEmail } from './auth.repository';
@@ -30,6 +32,20 @@ export async function signIn(ctx: AppContext, email: string, password: string, c
     caller.userAgent,
   );
   return { token, userId: user.id, teamId: membership.teamId };
+}
+
+/** Who is signed in, as /api/auth/me answers it (and the first glance of My week carries it). */
+export function meOf(a: SessionAuth): Me {
+  return {
+    id: a.userId,
+    email: a.email,
+    name: a.name,
+    role: a.role,
+    teamId: a.teamId,
+    teamName: a.teamName,
+    unit: a.unit,
+    athleteId: a.athleteId,
+  };
 }
 
 // Offered to invitations and password resets: finding an account, through this module's service.

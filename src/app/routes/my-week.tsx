@@ -4,6 +4,7 @@ import { Suspense, lazy, useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useSearchParams } from 'react-router-dom';
 import { addWeeks, mondayOf } from '../../../shared/engine/weeks';
+import { MY_WEEK_DRAFT_NOTICE, MY_WEEK_EMPTY_NOTICE, weekSpanLabel } from '../../../shared/labels';
 import { Loading, Notice, PageHeader, TrainingCaution } from '../../components/ui/page';
 import { myWeekQueryOptions, useMyWeek } from '../../features/my-week/api/queries';
 import { OfflineLine } from '../../features/my-week/components/offline-line';
@@ -26,13 +27,6 @@ const CheckinForm = lazy(() =>
 const BodyweightCard = lazy(() =>
   import('../../features/my-week/components/bodyweight-card').then((m) => ({ default: m.BodyweightCard })),
 );
-
-const dateFmt = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
-
-function weekSpan(week: string): string {
-  const monday = mondayOf(week);
-  return `${dateFmt.format(monday)} – ${dateFmt.format(new Date(monday.getTime() + 6 * 86_400_000))}`;
-}
 
 const navClass =
   'inline-flex min-h-11 items-center rounded-md border border-ink-300 bg-chalk-50 px-3 font-semibold text-ink-800 hover:bg-chalk-200';
@@ -71,7 +65,7 @@ export function Component() {
     <div className="mx-auto flex max-w-3xl flex-col gap-4">
       <PageHeader
         title="My week"
-        subtitle={`${data.week} · ${weekSpan(data.week)}${data.meet && data.meet.daysOut >= 0 ? ` · ${data.meet.name} in ${data.meet.daysOut} days` : ''}`}
+        subtitle={`${data.week} · ${weekSpanLabel(data.week)}${data.meet && data.meet.daysOut >= 0 ? ` · ${data.meet.name} in ${data.meet.daysOut} days` : ''}`}
       />
       <OfflineLine receivedAt={data.receivedAt} fromCache={data.fromCache} />
       <WaitingToSend athleteId={data.athlete.id} />
@@ -89,9 +83,9 @@ export function Component() {
         </Link>
       </nav>
       {!data.published ? (
-        <Notice>Your coach is still planning this week. Your max-effort work shows here once it is published.</Notice>
+        <Notice>{MY_WEEK_DRAFT_NOTICE}</Notice>
       ) : data.picks.length === 0 ? (
-        <Notice>No max-effort work is planned for this week yet. Your coach fills it on the board.</Notice>
+        <Notice>{MY_WEEK_EMPTY_NOTICE}</Notice>
       ) : (
         data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)
       )}

@@ -1,5 +1,6 @@
 // Page frame pieces: a heading row with actions, the training caution, notices and loading states.
 import type { ReactNode } from 'react';
+import { TRAINING_CAUTION_TEXT } from '../../../shared/labels';
 import { WarningIcon } from './icons';
 
 /** A skip link: hidden until it has the focus, then shown over the top left corner. */
@@ -26,10 +27,7 @@ export function TrainingCaution({ className = '' }: { className?: string }) {
       className={`flex gap-2 rounded-md border border-caution-600/40 bg-caution-100 p-3 text-sm text-ink-800 ${className}`}
     >
       <WarningIcon className="mt-0.5 shrink-0 text-caution-700" />
-      <p>
-        Stop the set on sharp or unusual pain. For an injury, see a licensed clinician; Rackturn plans training and is
-        not medical advice. Follow the rules of your federation and your gym.
-      </p>
+      <p>{TRAINING_CAUTION_TEXT}</p>
     </aside>
   );
 }

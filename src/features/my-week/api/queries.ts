@@ -15,6 +15,12 @@ const FROM_CACHE_AFTER_MS = 2 * 60_000;
 /** The week, with when the server gave it and whether it was read from the offline copy. */
 export type MyWeekAnswer = MyWeek & { receivedAt: string | null; fromCache: boolean };
 
+/** The week as the page keeps it, given when the server gave it (its Date; null when unknown). */
+export function toMyWeekAnswer(data: MyWeek, date: Date | null): MyWeekAnswer {
+  const fromCache = date !== null && Date.now() - date.getTime() > FROM_CACHE_AFTER_MS;
+  return { ...data, receivedAt: date?.toISOString() ?? null, fromCache };
+}
+
 export const myWeekQueryOptions = (week: string | null = null) =>
   queryOptions({
     queryKey: myWeekKeys.week(week),
@@ -22,8 +28,7 @@ export const myWeekQueryOptions = (week: string | null = null) =>
       const { data, date } = await apiWithDate<MyWeek>(`/my-week${week ? `?week=${encodeURIComponent(week)}` : ''}`, {
         signal,
       });
-      const fromCache = date !== null && Date.now() - date.getTime() > FROM_CACHE_AFTER_MS;
-      return { ...data, receivedAt: date?.toISOString() ?? null, fromCache };
+      return toMyWeekAnswer(data, date);
     },
   });
 

@@ -1,9 +1,9 @@
 // One max-effort pick of the week: the variant and scheme, last time and record, the warm-up with
 // plates, and the log form.
-import { LIFT_NAME } from '../../../../shared/labels';
+import { LIFT_NAME, SCHEME_GOAL_LABEL } from '../../../../shared/labels';
 import { Suspense, lazy, useState } from 'react';
 import { formatWeight, fromKg, roundToLoadable, suggestedTopSet, type WeightUnit } from '../../../../shared/calc';
-import type { MyWeekPick, Scheme, TopSet } from '../../../../shared/schemas';
+import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
 import { OnDemand } from './on-demand';
@@ -12,11 +12,6 @@ import { WarmupRamp } from './warmup-ramp';
 // The forms (and the validation library they bring) load after the pick is on screen.
 const TopSetForm = lazy(() => import('./top-set-form').then((m) => ({ default: m.TopSetForm })));
 const VideoUpload = lazy(() => import('./video-upload').then((m) => ({ default: m.VideoUpload })));
-const SCHEME_LABEL: Readonly<Record<Scheme, string>> = {
-  single: 'Work up to a top single',
-  triple: 'Work up to a top triple',
-  five: 'Work up to a top five',
-};
 
 const formLoading = <p className="text-sm text-ink-600">Loading the form…</p>;
 
@@ -45,7 +40,7 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
         <h2 id={headingId} className="text-2xl font-bold leading-tight text-ink-900">
           {pick.variant.name}
         </h2>
-        <p className="text-lg font-semibold text-ink-800">{SCHEME_LABEL[pick.scheme]}</p>
+        <p className="text-lg font-semibold text-ink-800">{SCHEME_GOAL_LABEL[pick.scheme]}</p>
         {pick.variant.notes ? <p className="text-ink-600">{pick.variant.notes}</p> : null}
       </header>
 
