@@ -50,9 +50,19 @@ describe('the first glance of My week', () => {
     // First with the app's code held back: what the phone shows from the page alone.
     const glancePage = await b.context.newPage();
     await glancePage.route(/\/assets\/.*\.js$|\/early\.js$/, (route) => route.abort());
+    const stylesheets: string[] = [];
+    glancePage.on('request', (r) => {
+      if (r.resourceType() === 'stylesheet') stylesheets.push(r.url());
+    });
     await glancePage.goto(`${b.baseUrl}/my-week`);
     await glancePage.locator('[data-first-glance] main section h2').first().waitFor();
     const glance = await drawn(glancePage);
+    // The styles came inside the page (allowed by their hash in the page's policy): no stylesheet to wait for,
+    // and they apply (the app's typeface on the pick's name).
+    expect(stylesheets).toEqual([]);
+    expect(
+      await glancePage.evaluate(() => getComputedStyle(document.querySelector('main section h2')!).fontFamily),
+    ).toMatch(/Barlow/);
     await glancePage.close();
     expect(glance.texts.length).toBeGreaterThan(3);
     expect(glance.firstPick).not.toBeNull();

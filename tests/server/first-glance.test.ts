@@ -1,6 +1,7 @@
 // The first glance: a signed-in athlete's visit to / or /my-week is answered with the app's page carrying the
 // week (safe, non-executable JSON the client seeds its cache with) and a plain drawing of the week's picks,
 // kept by no cache. Anyone else, any other fetch and any failure get the built page exactly as it is.
+import { createHash } from 'node:crypto';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
@@ -8,6 +9,7 @@ import { brotliCompressSync, gzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
+import { inlineStylesheet } from '../../server/modules/first-glance/first-glance.page';
 import { scriptSafeJson } from '../../server/modules/first-glance/first-glance.service';
 import { useTestApp } from '../support/app';
 import {
@@ -215,5 +217,40 @@ describe('the first glance when the server is in trouble', () => {
     const res = await text(request(broken).get('/my-week').set('Cookie', 'rackturn_session=some-session'));
     expect(res.status).toBe(200);
     expect(res.body).toBe(page);
+  });
+});
+
+describe('the stylesheet inside the glance page', () => {
+  const policy = "default-src 'self';script-src 'self';style-src 'self';img-src 'self' data:";
+  const css = 'main{color:#123}h2::before{content:"</sty"}';
+  const withLink = page.replace(
+    '<title>',
+    '<link rel="stylesheet" crossorigin href="/assets/index-Gh78.css">\n    <title>',
+  );
+  const asked: string[] = [];
+  const readAsset = async (name: string) => {
+    asked.push(name);
+    return css;
+  };
+
+  it('puts the build’s stylesheet in the page and allows exactly that text by its SHA-256', async () => {
+    const out = await inlineStylesheet(withLink, policy, readAsset);
+    expect(asked).toEqual(['index-Gh78.css']);
+    expect(out.html).not.toContain('rel="stylesheet"');
+    expect(out.html).toContain(`<style>${css}</style>`);
+    // A CSP hash-source is the base64 of the SHA-256 digest of the element's text (W3C Content Security
+    // Policy Level 3, "hash-source"); worked out here with Node's crypto, independently of the page's code.
+    const digest = createHash('sha256').update(css).digest('base64');
+    expect(out.policy).toBe(policy.replace("style-src 'self'", `style-src 'self' 'sha256-${digest}'`));
+  });
+
+  it('leaves the page as it is when the text could close its element, there are two stylesheets or no style-src', async () => {
+    const closing = async () => 'a{}</style><script>alert(1)</script>';
+    expect(await inlineStylesheet(withLink, policy, closing)).toEqual({ html: withLink, policy });
+    const two = withLink.replace('<title>', '<link rel="stylesheet" href="/assets/more-Ij90.css">\n    <title>');
+    expect(await inlineStylesheet(two, policy, readAsset)).toEqual({ html: two, policy });
+    const noStyleSrc = "default-src 'self'";
+    expect(await inlineStylesheet(withLink, noStyleSrc, readAsset)).toEqual({ html: withLink, policy: noStyleSrc });
+    expect(await inlineStylesheet(withLink, undefined, readAsset)).toEqual({ html: withLink, policy: undefined });
   });
 });
