@@ -88,7 +88,7 @@ export function tissueSessionsLabel(sessionsPerWeek: number): string {
 export const SCHEME_GOAL_LABEL: Readonly<Record<Scheme, string>> = {
   single: 'Work up to a top single',
   triple: 'Work up to a top triple',
-  five: 'Work up to a top five',
+  five: 'Work up to a top set of five',
 };
 
 /** My week before its max-effort work can be shown. */

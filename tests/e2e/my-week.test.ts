@@ -102,7 +102,7 @@ describe('My week on a phone', () => {
     for (const p of picks) expect(headings).toContain(p.name);
     await expect(
       b.page
-        .getByText(/Work up to a top (single|triple|five)/)
+        .getByText(/Work up to a top (single|triple|set of five)/)
         .first()
         .isVisible(),
     ).resolves.toBe(true);

@@ -123,7 +123,7 @@ describe('the first glance of My week', () => {
     const headings = [...root.matchAll(/<h2 id="pick-\d+" class="[^"]+">([^<]*)<\/h2>/g)].map((m) => m[1]);
     expect(headings).toEqual([expect.stringContaining('&lt;/script&gt;'), plainName]);
     expect(root).toContain('Lower max effort · Squat');
-    expect(root).toContain('Work up to a top five');
+    expect(root).toContain('Work up to a top set of five');
     expect(root).toContain('Work up to a top triple');
     expect(root).toContain('aria-label="Training caution"');
   });

@@ -75,7 +75,7 @@ describe('templates', () => {
   it('says the same in text and HTML', () => {
     for (const phrase of [
       'Lower max effort: Pin squat',
-      'Work up to a heavy set of five',
+      'Work up to a top set of five',
       'Elbow extension pulses against a fixed strap',
       '3 pulses of 3.5 s at 10°, 70°, 130°',
       '3 sessions this week',

@@ -101,7 +101,7 @@ describe('POST /api/weeks/:week/publish', () => {
     const [mail] = await inbox.waitFor(team.athleteUser.email);
     expect(mail!.subject).toMatch(new RegExp(`^Your week of \\d+ \\w+: ${team.name}$`));
     expect(mail!.text).toContain(`Lower max effort: ${squatName}`);
-    expect(mail!.text).toContain('Work up to a heavy triple');
+    expect(mail!.text).toContain('Work up to a top triple');
     expect(mail!.text).toContain('Sit back; pause 1 s');
     expect(mail!.text).toContain(`Upper max effort: Floor press ${team.teamId}`);
     expect(mail!.text).toContain('Connective-tissue work');

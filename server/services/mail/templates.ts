@@ -1,7 +1,7 @@
 // The words of every e-mail Rackturn sends, in both HTML and plain text (see layout.ts for the look).
 import { mondayOf } from '../../../shared/engine/weeks';
 import { TISSUE_CAUTION, type TissuePrescription } from '../../../shared/engine/tissue';
-import { tissueSessionsLabel } from '../../../shared/labels';
+import { SCHEME_GOAL_LABEL, tissueSessionsLabel } from '../../../shared/labels';
 import { renderMail, type Block } from './layout';
 
 export interface RenderedMail {
@@ -117,12 +117,6 @@ export interface WeeklyPick {
   notes: string | null;
 }
 
-const SCHEME_WORDS: Record<WeeklyPick['scheme'], string> = {
-  single: 'Work up to a heavy single',
-  triple: 'Work up to a heavy triple',
-  five: 'Work up to a heavy set of five',
-};
-
 const BAND_WORDS = { lightest: 'the lightest band', light: 'a light band', medium: 'a medium band' } as const;
 
 function seconds(s: number): string {
@@ -179,7 +173,7 @@ export function weeklyPlanMail(m: {
       type: 'list',
       items: m.picks.map((pick) => ({
         title: `${pick.slotLabel}: ${pick.variantName}`,
-        lines: [SCHEME_WORDS[pick.scheme], ...(pick.notes ? [pick.notes] : [])],
+        lines: [SCHEME_GOAL_LABEL[pick.scheme], ...(pick.notes ? [pick.notes] : [])],
       })),
       empty: 'No max-effort work this week.',
     },
