@@ -203,19 +203,19 @@ export interface AthleteWeek {
   updatedAt: string | null;
 }
 
-/** `PUT /api/my-week/sessions/:sessionId`: what the athlete did of one session. */
+/**
+ * `PUT /api/my-week/sessions/:sessionId`: what the athlete did of one session. A count left out stays as
+ * stored (none stored: nothing done), so the session card and the back-off ticks each send only their own.
+ */
 export const sessionLogParams = z.object({ sessionId });
 export const sessionLogBody = z.object({
   week: isoWeek,
   version: z.number().int().min(0),
-  speedSetsDone: z.number().int().min(0).max(20),
-  accessorySetsDone: z.array(z.number().int().min(0).max(10)).max(12),
-  /**
-   * Each back-off set after the max-effort top set, ticked or not, in order. Left out, the stored ticks stay
-   * (a write about the other sets never clears them).
-   */
+  speedSetsDone: z.number().int().min(0).max(20).optional(),
+  accessorySetsDone: z.array(z.number().int().min(0).max(10)).max(12).optional(),
+  /** Each back-off set after the max-effort top set, ticked or not, in order. */
   backOffDone: z.array(z.boolean()).max(BACK_OFF_SETS_MAX, `At most ${BACK_OFF_SETS_MAX} back-off sets`).optional(),
-  done: z.boolean(),
+  done: z.boolean().optional(),
 });
 export type SessionLogBody = z.input<typeof sessionLogBody>;
 

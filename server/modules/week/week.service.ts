@@ -251,15 +251,15 @@ export async function logSession(
     });
   }
   const key = { teamId: who.teamId, athleteId: who.athleteId, week: body.week, sessionId };
-  // Back-off ticks left out of the body stay as stored: a write about the other sets never clears them.
-  const stored = body.backOffDone
-    ? null
-    : (await repo.sessionLogsOf(db, who.teamId, who.athleteId, body.week)).find((r) => r.sessionId === sessionId);
+  // What the body leaves out stays as stored: the session card and the back-off ticks each send their own.
+  const stored = (await repo.sessionLogsOf(db, who.teamId, who.athleteId, body.week)).find(
+    (r) => r.sessionId === sessionId,
+  );
   const values = {
-    speedSetsDone: body.speedSetsDone,
-    accessorySetsDone: body.accessorySetsDone,
+    speedSetsDone: body.speedSetsDone ?? stored?.speedSetsDone ?? 0,
+    accessorySetsDone: body.accessorySetsDone ?? stored?.accessorySetsDone ?? [],
     backOffDone: body.backOffDone ?? stored?.backOffDone ?? [],
-    done: body.done,
+    done: body.done ?? stored?.done ?? false,
   };
   let ok: boolean;
   if (body.version === 0) {
