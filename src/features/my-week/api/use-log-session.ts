@@ -8,6 +8,8 @@ import { currentAthleteId, myWeekKeys, type MyWeekAnswer } from './queries';
 export function useLogSession() {
   const queryClient = useQueryClient();
   return useMutation({
+    // Sent or kept by the offline queue: never held back while the browser says it is offline.
+    networkMode: 'always',
     mutationFn: ({ sessionId, body, label }: { sessionId: string; body: SessionLogBody; label: string }) =>
       sendOrQueue<SessionLog>({
         owner: currentAthleteId(queryClient) ?? 0,

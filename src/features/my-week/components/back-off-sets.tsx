@@ -40,9 +40,12 @@ export function BackOffSets({
   const stored = session?.log?.backOffDone ?? [];
   // Ticks not yet on the server (being sent, or kept without signal) show over the stored ones.
   const [local, setLocal] = useState<boolean[] | null>(null);
-  const done = local ?? Array.from({ length: rule.sets }, (_, i) => stored[i] ?? false);
-  const [message, setMessage] = useState<string | null>(null);
   const save = useLogSession();
+  const fromServer = Array.from({ length: rule.sets }, (_, i) => stored[i] ?? false);
+  const done = local ?? fromServer;
+  // Once the server has them (sent later from the waiting list), the stored ticks lead again.
+  if (local !== null && !save.isPending && local.every((v, i) => v === fromServer[i])) setLocal(null);
+  const [message, setMessage] = useState<string | null>(null);
   const headingId = `backoff-${pick.planEntryId}`;
   // Weights here are already in the athlete's unit, in loadable steps.
   const w = (n: number) => `${Math.round(n * 10) / 10}\u00a0${unit}`;
