@@ -2,17 +2,12 @@
 // plates, and the log form.
 import { LIFT_NAME } from '../../../../shared/labels';
 import { Suspense, lazy, useState } from 'react';
-import {
-  formatWeight,
-  fromKg,
-  roundToLoadable,
-  suggestedTopSet,
-  type BackOffRule,
-  type WeightUnit,
-} from '../../../../shared/calc';
-import type { MyWeekPick, MyWeekSession, Scheme, TopSet } from '../../../../shared/schemas';
+import { formatWeight, fromKg, roundToLoadable, suggestedTopSet, type WeightUnit } from '../../../../shared/calc';
+import type { MyWeekPick, Scheme, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
+import type { BackOffRule } from '../../../../shared/calc';
+import type { MyWeekSession } from '../../../../shared/schemas';
 import { BackOffSets } from './back-off-sets';
 import { OnDemand } from './on-demand';
 import { WarmupRamp } from './warmup-ramp';
