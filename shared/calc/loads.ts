@@ -180,3 +180,55 @@ export function openingRange(
   const high = Math.max(low, downToLoadable(at * 0.85, unit));
   return { low, high, estimate: true, basedOn: relatedE1rms.length };
 }
+
+/** The back-off work a team sets after the max-effort top set: how many sets, and how much lighter. */
+export interface BackOffRule {
+  /** 0 = no back-off sets. */
+  sets: number;
+  /** Percent lighter than the top set. */
+  dropPct: number;
+}
+/**
+ * What a team may set. At most 5 sets: after a true max-effort top set one to three are usual, and more turns
+ * the day into volume work. A drop of 5–25 %: under 5 % the gym step rounds a back-off set to the top set
+ * itself, past 25 % it is light work rather than back-off work (our choice, from common practice).
+ */
+export const BACK_OFF_SETS_MAX = 5;
+export const BACK_OFF_DROP_MIN = 5;
+export const BACK_OFF_DROP_MAX = 25;
+/** Two sets about 10 % lighter than the top set (common practice, no single published source). */
+export const DEFAULT_BACK_OFF: Readonly<BackOffRule> = { sets: 2, dropPct: 10 };
+
+export interface BackOffPlan {
+  /** What the sets come from: the top set logged this week, or the suggested one before any is logged. */
+  basis: 'logged' | 'suggested';
+  /** That top set's weight, in the unit asked for. */
+  topSet: number;
+  sets: { weight: number; reps: number }[];
+}
+
+/**
+ * A max-effort pick's back-off sets, in `unit`: from the heaviest top set logged this week when there is
+ * one (its reps), else from the suggested top set at the scheme's reps; null with 0 sets or neither.
+ */
+export function backOffPlan(
+  rule: BackOffRule,
+  top: { logged: readonly { weight: number; reps: number }[]; suggested: number | null; schemeReps: number },
+  unit: WeightUnit = 'kg',
+): BackOffPlan | null {
+  requireInteger('back-off sets', rule.sets, 0, BACK_OFF_SETS_MAX);
+  if (rule.sets === 0) return null;
+  const heaviest = [...top.logged].sort((a, b) => b.weight - a.weight || b.reps - a.reps)[0];
+  const basis = heaviest
+    ? { basis: 'logged' as const, ...heaviest }
+    : top.suggested !== null && top.suggested > 0
+      ? { basis: 'suggested' as const, weight: top.suggested, reps: top.schemeReps }
+      : null;
+  if (!basis) return null;
+  const sets = backOffSets(basis.weight, Math.min(basis.reps, E1RM_MAX_REPS.epley), {
+    sets: rule.sets,
+    dropPct: rule.dropPct,
+    unit,
+  });
+  return { basis: basis.basis, topSet: basis.weight, sets };
+}

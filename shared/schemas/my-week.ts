@@ -1,7 +1,7 @@
 // The athlete's week page: this week's max-effort picks with their history, connective-tissue work,
 // check-ins, bodyweight and the next meet. Weights are kilograms; the page shows them in `unit`.
 import { z } from 'zod';
-import type { Division, OpeningRange, Sex } from '../calc';
+import type { BackOffRule, Division, OpeningRange, Sex } from '../calc';
 import { isoWeek, type Unit } from './common';
 import type { Scheme, TissueCheckinRow, TissueWorkWeek, TopSet, VariantRecord, Bodyweight } from './training';
 import type { TissueKind } from '../engine/tissue';
@@ -72,6 +72,8 @@ export interface MyWeek {
   unit: Unit;
   athlete: { id: number; name: string; sex: Sex; division: Division };
   picks: MyWeekPick[];
+  /** The team's back-off sets after each max-effort top set; null with none set or on a rest or deload week. */
+  backOff: BackOffRule | null;
   /** A deload week: no max-effort work, lighter speed and accessory work. */
   deload: boolean;
   /** The week's sessions in the order of the week (none while the week is a draft). */

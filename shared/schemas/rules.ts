@@ -1,5 +1,7 @@
 // Team rules: max-effort slots, rotation windows, joint budgets, taper steps and the gym's equipment.
 import { z } from 'zod';
+import { BACK_OFF_DROP_MAX, BACK_OFF_DROP_MIN, BACK_OFF_SETS_MAX, DEFAULT_BACK_OFF } from '../calc/loads';
+import { DEFAULT_ACCESSORY_ROTATION } from '../engine/accessories';
 import { DEFAULT_TISSUE_RULES, HIGH_REP_FLOOR } from '../engine/tissue';
 import { DEFAULT_SESSIONS, defaultSessionsFor, sessionsSchema } from './week';
 
@@ -63,6 +65,52 @@ const storedTissueSettingsSchema = tissueSettingsSchema.extend({
   sessionsPerWeek: tissueSettingsSchema.shape.sessionsPerWeek.default(DEFAULT_TISSUE_RULES.sessionsPerWeek),
 });
 
+/** Back-off sets after each max-effort top set: 0–5 sets, 5–25 % lighter (see the limits in the maths). */
+export const backOffRuleSchema = z.object({
+  sets: z
+    .number({ message: 'Enter a number of sets (0 for none)' })
+    .int('Use whole sets')
+    .min(0, 'Use 0 for no back-off sets')
+    .max(BACK_OFF_SETS_MAX, `At most ${BACK_OFF_SETS_MAX} back-off sets`),
+  dropPct: z
+    .number({ message: `Enter a percentage from ${BACK_OFF_DROP_MIN} to ${BACK_OFF_DROP_MAX}` })
+    .int('Use a whole percentage')
+    .min(BACK_OFF_DROP_MIN, `Use ${BACK_OFF_DROP_MIN} to ${BACK_OFF_DROP_MAX} %`)
+    .max(BACK_OFF_DROP_MAX, `Use ${BACK_OFF_DROP_MIN} to ${BACK_OFF_DROP_MAX} %`),
+});
+
+/** The most weeks an accessory block may last (our choice: accessories change every few weeks). */
+export const ACCESSORY_BLOCK_MAX = 8;
+export const ACCESSORY_REPEAT_MAX = 26;
+
+/**
+ * How the accessories rotate: the same ones for a block of weeks, and none of them back within the repeat
+ * window. A window shorter than a block is refused: it would reach back less than one block, so it keeps out
+ * only the last block's accessories, the same as a window of one block.
+ */
+const accessoryRotationShape = {
+  blockWeeks: z
+    .number({ message: 'Enter a number of weeks' })
+    .int('Use whole weeks')
+    .min(1, 'At least 1 week')
+    .max(ACCESSORY_BLOCK_MAX, `At most ${ACCESSORY_BLOCK_MAX} weeks`),
+  repeatWindowWeeks: z
+    .number({ message: 'Enter a number of weeks' })
+    .int('Use whole weeks')
+    .min(1, 'At least 1 week')
+    .max(ACCESSORY_REPEAT_MAX, `At most ${ACCESSORY_REPEAT_MAX} weeks`),
+};
+function windowCoversBlock(r: { blockWeeks: number; repeatWindowWeeks: number }, ctx: z.RefinementCtx) {
+  if (r.repeatWindowWeeks < r.blockWeeks)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['repeatWindowWeeks'],
+      message: `At least one block (${r.blockWeeks} weeks): a shorter window keeps out only the last block's accessories`,
+    });
+}
+export const accessoryRotationSchema = z.object(accessoryRotationShape).superRefine(windowCoversBlock);
+export type AccessoryRotationSettings = z.infer<typeof accessoryRotationSchema>;
+
 const teamRulesShape = {
   slots: z.array(slotSchema).min(1, 'Keep at least one max-effort slot').max(4),
   repeatWindowWeeks: z.number().int().min(1, 'At least 1 week').max(26),
@@ -87,6 +135,8 @@ const teamRulesShape = {
   tissue: tissueSettingsSchema,
   /** The week's sessions in order of the week: what each holds and on which day. */
   sessions: sessionsSchema,
+  backOff: backOffRuleSchema,
+  accessoryRotation: accessoryRotationSchema,
 };
 
 function distinctSlots(
@@ -111,11 +161,25 @@ function distinctSlots(
 
 /** The rules a coach sends: a field the product does not know is refused, not silently dropped. */
 export const teamRulesSchema = z
-  .strictObject({ ...teamRulesShape, tissue: tissueSettingsSchema.strict() })
+  .strictObject({
+    ...teamRulesShape,
+    tissue: tissueSettingsSchema.strict(),
+    backOff: backOffRuleSchema.strict(),
+    accessoryRotation: z.strictObject(accessoryRotationShape).superRefine(windowCoversBlock),
+  })
   .superRefine(distinctSlots);
-/** Stored rules are read forgivingly: a field left from an older version is ignored. */
+/**
+ * Stored rules are read forgivingly: a field left from an older version is ignored, a setting added later
+ * (absent) reads its default, and a back-off or accessory setting that no longer validates reads its default
+ * rather than losing the team's other rules.
+ */
 const storedTeamRulesSchema = z
-  .object({ ...teamRulesShape, tissue: storedTissueSettingsSchema })
+  .object({
+    ...teamRulesShape,
+    tissue: storedTissueSettingsSchema,
+    backOff: backOffRuleSchema.catch({ ...DEFAULT_BACK_OFF }),
+    accessoryRotation: accessoryRotationSchema.catch({ ...DEFAULT_ACCESSORY_ROTATION }),
+  })
   .superRefine(distinctSlots);
 export type TeamRules = z.infer<typeof teamRulesSchema>;
 
@@ -152,6 +216,8 @@ export const DEFAULT_TEAM_RULES: TeamRules = {
     focusJoints: ['elbow', 'knee', 'shoulder'],
   },
   sessions: DEFAULT_SESSIONS,
+  backOff: { ...DEFAULT_BACK_OFF },
+  accessoryRotation: { ...DEFAULT_ACCESSORY_ROTATION },
 };
 
 /**

@@ -1,7 +1,7 @@
 // The whole training week: the team's sessions (set in the rules) and, per athlete and week, the speed
 // work, accessories, training-max share and deload mark the coach edits, plus what the athlete logged.
 import { z } from 'zod';
-import { ACCOMMODATIONS, LOAD_PCT_MAX, LOAD_PCT_MIN, isValidRpe } from '../calc';
+import { ACCOMMODATIONS, BACK_OFF_SETS_MAX, LOAD_PCT_MAX, LOAD_PCT_MIN, isValidRpe } from '../calc';
 import { isoWeek } from './common';
 
 // The words for these live with the other labels (no validation code with them, for the phone's first load).
@@ -196,19 +196,26 @@ export interface AthleteWeek {
   /** As the coach set it (before the deload is applied), per session id. */
   work: Record<string, SessionWork>;
   sessions: WeekSession[];
+  /** What the athlete logged of the week's sessions (the coach reads it beside the plan). */
+  logs: SessionLog[];
   /** 0 while nothing was saved for the week (the defaults apply). */
   version: number;
   updatedAt: string | null;
 }
 
-/** `PUT /api/my-week/sessions/:sessionId`: what the athlete did of one session. */
+/**
+ * `PUT /api/my-week/sessions/:sessionId`: what the athlete did of one session. A count left out stays as
+ * stored (none stored: nothing done), so the session card and the back-off ticks each send only their own.
+ */
 export const sessionLogParams = z.object({ sessionId });
 export const sessionLogBody = z.object({
   week: isoWeek,
   version: z.number().int().min(0),
-  speedSetsDone: z.number().int().min(0).max(20),
-  accessorySetsDone: z.array(z.number().int().min(0).max(10)).max(12),
-  done: z.boolean(),
+  speedSetsDone: z.number().int().min(0).max(20).optional(),
+  accessorySetsDone: z.array(z.number().int().min(0).max(10)).max(12).optional(),
+  /** Each back-off set after the max-effort top set, ticked or not, in order. */
+  backOffDone: z.array(z.boolean()).max(BACK_OFF_SETS_MAX, `At most ${BACK_OFF_SETS_MAX} back-off sets`).optional(),
+  done: z.boolean().optional(),
 });
 export type SessionLogBody = z.input<typeof sessionLogBody>;
 
@@ -216,6 +223,7 @@ export interface SessionLog {
   sessionId: string;
   speedSetsDone: number;
   accessorySetsDone: number[];
+  backOffDone: boolean[];
   done: boolean;
   version: number;
 }

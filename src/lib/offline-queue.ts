@@ -86,8 +86,28 @@ export async function sendOrQueue<T>(write: Omit<QueuedWrite, 'id' | 'queuedAt' 
     }
   }
   await load();
-  await save(queued);
-  return { sent: false, queued };
+  const kept = await supersede(queued);
+  await save(kept);
+  return { sent: false, queued: kept };
+}
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * A PUT sets one resource, so a later PUT to the same path takes the place of one still waiting: its fields
+ * win, fields it leaves out are taken from the earlier one (so two partial writes made without signal, read
+ * from the same version, both land). It keeps the earlier one's place in the list but gets its own key,
+ * since the server answers a key reused with another body as an error.
+ */
+async function supersede(write: QueuedWrite): Promise<QueuedWrite> {
+  if (write.method !== 'PUT') return write;
+  const earlier = items.find(
+    (w) => w.owner === write.owner && w.method === 'PUT' && w.path === write.path && w.state === 'waiting',
+  );
+  if (!earlier) return write;
+  await remove(earlier.id);
+  const body = isRecord(earlier.body) && isRecord(write.body) ? { ...earlier.body, ...write.body } : write.body;
+  return { ...write, body, queuedAt: earlier.queuedAt };
 }
 
 let flushing: Promise<number> | null = null;

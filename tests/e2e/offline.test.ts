@@ -1,7 +1,8 @@
 // My week without signal, on a phone (375 × 812): the service worker keeps the app and the athlete's
 // current and next week; offline, My week opens from that copy with an "Offline — last updated" line, a
 // top set logged then waits on the phone (kept across a reload) and is sent once when the phone is back
-// online, and the coach sees it exactly once. Signing out empties the offline copy of the week.
+// online, and the coach sees it exactly once; back-off sets ticked offline wait as one write and are sent
+// too. Signing out empties the offline copy of the week.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import mysql from 'mysql2/promise';
 import { request } from 'playwright-core';
@@ -130,6 +131,37 @@ describe('My week without signal', () => {
     await b.page.getByRole('heading', { name: pickName, exact: true }).waitFor();
     expect(await coachSeesLogged()).toHaveLength(1);
     expect(b.problems.filter((p) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(p))).toEqual([]);
+  });
+
+  it('keeps back-off ticks made offline as one waiting write and sends them when back online', async () => {
+    const card = b.page.locator('section', { has: b.page.getByRole('heading', { name: pickName, exact: true }) });
+    const ticks = card.getByRole('group', { name: 'Back-off sets' }).getByRole('checkbox');
+    expect(await ticks.count()).toBe(2);
+    const before = [await ticks.nth(0).isChecked(), await ticks.nth(1).isChecked()];
+    const after = before.map((v) => !v);
+    await b.context.setOffline(true);
+    await ticks.nth(0).setChecked(after[0]!);
+    await card.getByText(/^No signal: kept on this phone/).waitFor();
+    await ticks.nth(1).setChecked(after[1]!);
+    // Two ticks made without signal wait as one write, the later over the earlier.
+    const waiting = b.page.getByRole('region', { name: 'Waiting to send' });
+    const label = `Back-off sets: ${pickName}, ${after.filter(Boolean).length} of 2 done`;
+    await waiting.getByText(label).waitFor();
+    await expect(waiting.getByText(/^Back-off sets: /).count()).resolves.toBe(1);
+    expect(await axeViolations(b.page)).toEqual([]);
+
+    await b.context.setOffline(false);
+    await waiting.waitFor({ state: 'detached', timeout: 20_000 });
+    const coach = await request.newContext({ baseURL: b.baseUrl });
+    try {
+      await coach.post('/api/auth/login', { data: { email: 'coach@rackturn.test', password: DEMO_PASSWORD } });
+      const week = (await (await coach.get(`/api/athletes/${noorId}/weeks/${thisWeek}`)).json()) as {
+        logs: { sessionId: string; backOffDone: boolean[] }[];
+      };
+      expect(week.logs.find((l) => l.sessionId === 'lower-me')?.backOffDone).toEqual(after);
+    } finally {
+      await coach.dispose();
+    }
   });
 
   it('empties the offline copy of the week when the athlete signs out', async () => {

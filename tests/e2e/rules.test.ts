@@ -47,6 +47,27 @@ describe('Rules', () => {
     ).resolves.toBe(1);
   });
 
+  it('saves the accessory block length and finds it after reload; a window shorter than a block is refused', async () => {
+    const page = b.page;
+    await page.goto(`${b.baseUrl}/rules`);
+    const block = page.getByLabel('Accessories change every (weeks)');
+    const before = Number(await block.inputValue());
+    const next = before === 4 ? 2 : 4;
+    await block.fill(String(next));
+    await page.getByText(`The same accessories for ${next} weeks, then the next ones.`).waitFor();
+    const repeat = page.getByLabel('Same accessory again after (weeks)');
+    await repeat.fill('1');
+    await page.getByRole('button', { name: 'Save rules' }).click();
+    await page.getByText(`At least one block (${next} weeks)`).first().waitFor();
+    await repeat.fill('6');
+    await page.getByLabel('Back-off sets after the top set').fill('3');
+    await page.getByRole('button', { name: 'Save rules' }).click();
+    await page.getByText('The rules are saved.').waitFor();
+    await page.reload();
+    await expect(page.getByLabel('Accessories change every (weeks)').inputValue()).resolves.toBe(String(next));
+    await expect(page.getByLabel('Back-off sets after the top set').inputValue()).resolves.toBe('3');
+  });
+
   it('marks an invalid value on its field and saves nothing', async () => {
     const page = b.page;
     await page.goto(`${b.baseUrl}/rules`);

@@ -99,4 +99,34 @@ describe('the training week', () => {
     expect(await b.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(375);
     expect(await axeViolations(b.page)).toEqual([]);
   });
+
+  it('the athlete sees the back-off sets under a top set on a phone and ticks one; it stays ticked', async () => {
+    // Still the athlete on the 375 px screen. The club's rules: two back-off sets 10 % lighter.
+    const backOff = b.page.getByRole('group', { name: 'Back-off sets' }).first();
+    await backOff.waitFor();
+    await backOff.getByText(/10 % lighter than the (top set you logged|suggested top set)/).waitFor();
+    const sets = backOff.getByRole('checkbox');
+    expect(await sets.count()).toBe(2);
+    const first = sets.first();
+    const label = (await backOff.locator('label').first().innerText()).trim();
+    expect(label).toMatch(/^Back-off set 1 done:\s*\d+(\.\d+)?\skg × \d+$/);
+    const wasTicked = await first.isChecked();
+    const saved = b.page.waitForResponse(
+      (r) => r.url().includes('/api/my-week/sessions/') && r.request().method() === 'PUT',
+    );
+    await first.setChecked(!wasTicked);
+    expect((await saved).status()).toBe(200);
+    expect(await b.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(375);
+    expect(await axeViolations(b.page)).toEqual([]);
+    await b.page.reload();
+    const again = b.page.getByRole('group', { name: 'Back-off sets' }).first().getByRole('checkbox').first();
+    await again.waitFor();
+    expect(await again.isChecked()).toBe(!wasTicked);
+    const [[log]] = (await db.query(
+      "SELECT l.back_off_done AS done FROM session_logs l JOIN athletes a ON a.id = l.athlete_id JOIN users u ON u.id = a.user_id WHERE u.email = 'athlete@rackturn.test' AND l.week = ? AND JSON_LENGTH(l.back_off_done) > 0",
+      [thisWeek],
+    )) as unknown as [{ done: string | boolean[] }[]];
+    const done = typeof log!.done === 'string' ? (JSON.parse(log!.done) as boolean[]) : log!.done;
+    expect(done[0]).toBe(!wasTicked);
+  });
 });

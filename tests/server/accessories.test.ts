@@ -3,7 +3,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { addWeeks, weekOfDate } from '../../shared/engine/weeks';
-import { accessoryBlockOf } from '../../shared/engine/accessories';
+import { accessoryBlockOf, accessoryBlockWeek } from '../../shared/engine/accessories';
 import type { AccessorySuggestion, AthleteWeek, LibraryAccessory } from '../../shared/schemas';
 import { useTestApp } from '../support/app';
 import { createPlanEntry, createTeam, createVariant, type TestTeam } from '../support/factories';
@@ -170,5 +170,49 @@ describe('the week’s accessories from the library', () => {
     expect(s.sessions['lower-me']!.accessories[0]).toMatchObject({ name: 'Reverse hyper', sets: 4, reps: 10, rpe: 8 });
     expect((await otherHead.get(`${path(fresh.athleteId)}/accessories`)).status).toBe(404);
     expect(accessoryBlockOf(week, 3)).toBeGreaterThan(0);
+  });
+
+  it('follows the team’s accessory block and repeat window from the rules', async () => {
+    const db = t.ctx.database.db;
+    const fresh = await createTeam(db);
+    const c = await t.signIn(fresh.coach.email);
+    const h = await t.signIn(fresh.headCoach.email);
+    const seal = await add(c, { name: 'Seal row', category: 'upperBack' });
+    const pull = await add(c, { name: 'Band pull-apart', category: 'upperBack', stress: { shoulder: 1 } });
+    // Last week's upper session had the seal row (lighter, so the rotation's first choice).
+    const lastWeek = addWeeks(week, -1);
+    const saved = await c.put(`/api/athletes/${fresh.athleteId}/weeks/${lastWeek}`).send({
+      version: 0,
+      deload: false,
+      trainingMaxPct: 90,
+      sessions: {
+        'upper-me': {
+          speed: null,
+          accessories: [
+            { accessoryId: seal.id, name: 'x', category: 'upperBack', sets: 3, reps: 12, loadKg: null, rpe: 8 },
+          ],
+        },
+      },
+    });
+    expect(saved.status).toBe(200);
+    const setRotation = async (blockWeeks: number, repeatWindowWeeks: number) => {
+      const current = (await h.get('/api/rules')).body;
+      const res = await h
+        .put('/api/rules')
+        .send({ ...current, rules: { ...current.rules, accessoryRotation: { blockWeeks, repeatWindowWeeks } } });
+      expect(res.status).toBe(200);
+    };
+    const suggest = async () => (await c.get(`${path(fresh.athleteId)}/accessories`)).body as AccessorySuggestion;
+    // A block length that puts last week and this week in one block: the block's pick carries on.
+    const together = [2, 3, 4].find((b) => accessoryBlockOf(lastWeek, b) === accessoryBlockOf(week, b))!;
+    await setRotation(together, together);
+    const kept = await suggest();
+    expect(kept.blockWeek).toBe(accessoryBlockWeek(week, together));
+    expect(kept.sessions['upper-me']!.accessories.map((a) => a.accessoryId)).toEqual([seal.id]);
+    // One-week blocks: this week is a new block, and the seal row, done within the window, gives way.
+    await setRotation(1, 1);
+    const fresh1 = await suggest();
+    expect(fresh1.blockWeek).toBe(1);
+    expect(fresh1.sessions['upper-me']!.accessories.map((a) => a.accessoryId)).toEqual([pull.id]);
   });
 });

@@ -30,6 +30,7 @@ import {
   variants,
 } from '../../server/db/schema';
 import { seedDemoIfEmpty } from '../../server/db/seed/demo';
+import { myWeek } from '../../server/modules/my-week/my-week.service';
 import { loadPlanning, today as todayOf } from '../../server/modules/plans/plans.context';
 import { verifyPassword } from '../../server/lib/passwords';
 import { recreateDatabase } from '../support/integration-setup';
@@ -67,6 +68,20 @@ describe('demo seed', () => {
     const [club] = await database.db.select().from(teamRules);
     const sessions = readTeamRules(club!.rules).sessions;
     expect(sessions.filter((s) => s.parts.includes('speed'))).toHaveLength(2);
+  });
+
+  it('shows the demo athlete back-off sets under this week’s top sets', async () => {
+    const [row] = await database.db
+      .select({ teamId: athletes.teamId, athleteId: athletes.id })
+      .from(athletes)
+      .innerJoin(users, eq(users.id, athletes.userId))
+      .where(eq(users.email, 'athlete@rackturn.test'));
+    const week = await myWeek({ database }, { ...row!, unit: 'kg' }, undefined, today);
+    expect(week.picks.length).toBeGreaterThan(0);
+    expect(week.backOff).toEqual({ sets: 2, dropPct: 10 });
+    // Each pick's slot is held by a session of the week, where the ticks are kept.
+    for (const p of week.picks)
+      expect(week.sessions.some((s) => s.parts.includes('maxEffort') && s.slotId === p.slotId)).toBe(true);
   });
 
   it('has the demo accounts with the documented password', async () => {

@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { and, eq } from 'drizzle-orm';
 import { addWeeks, mondayOf, weekOfDate } from '../../shared/engine/weeks';
-import { restWeeks } from '../../server/db/schema';
+import { restWeeks, sessionLogs } from '../../server/db/schema';
 import type { AthleteWeek, Session } from '../../shared/schemas';
 import { useTestApp } from '../support/app';
 import {
@@ -231,6 +231,7 @@ describe('PUT /api/my-week/sessions/:sessionId', () => {
       sessionId: 'upper-speed',
       speedSetsDone: 6,
       accessorySetsDone: [4, 3],
+      backOffDone: [],
       done: false,
       version: 1,
     });
@@ -297,5 +298,135 @@ describe('GET /api/my-week with sessions', () => {
   it('a draft week has no sessions', async () => {
     const res = await athlete.get(`/api/my-week?week=${addWeeks(thisWeek, 3)}`);
     expect(res.body).toMatchObject({ published: false, sessions: [] });
+  });
+});
+
+// Field errors answer 422 once the project-wide move from 400 lands; until then this branch answers 400.
+// Either way they name the field and save nothing, which is what these tests hold to.
+const FIELD_ERROR_STATUSES = [422, 400];
+
+describe('back-off sets after the max-effort top set', () => {
+  let bo: TestTeam;
+  let boAthlete: request.Agent;
+  let boCoach: request.Agent;
+  let boHead: request.Agent;
+  let otherAthlete: request.Agent;
+  const tick = (version: number, backOffDone?: boolean[], over: Record<string, unknown> = {}) => ({
+    week: thisWeek,
+    version,
+    speedSetsDone: 0,
+    accessorySetsDone: [2],
+    ...(backOffDone ? { backOffDone } : {}),
+    done: false,
+    ...over,
+  });
+  const storedLog = async (teamId: number, sessionId: string) =>
+    (
+      await t.ctx.database.db
+        .select()
+        .from(sessionLogs)
+        .where(
+          and(eq(sessionLogs.teamId, teamId), eq(sessionLogs.week, thisWeek), eq(sessionLogs.sessionId, sessionId)),
+        )
+    )[0];
+
+  beforeAll(async () => {
+    const db = t.ctx.database.db;
+    bo = await createTeam(db);
+    boAthlete = await t.signIn(bo.athleteUser.email);
+    boCoach = await t.signIn(bo.coach.email);
+    boHead = await t.signIn(bo.headCoach.email);
+    otherAthlete = await t.signIn(other.athleteUser.email);
+    const squat = await createVariant(db, bo.teamId, { lift: 'squat', family: 'box squat', name: 'Low box squat' });
+    await createPlanEntry(db, bo.teamId, bo.athleteId, squat, { week: thisWeek, slotId: 'lower' });
+    await publishAthleteWeek(db, bo.teamId, bo.athleteId, thisWeek);
+  });
+
+  it('the athlete ticks each back-off set; a log without ticks keeps them; a stale version is 409', async () => {
+    const first = await boAthlete.put('/api/my-week/sessions/lower-me').send(tick(0, [true, false]));
+    expect(first.status).toBe(200);
+    expect(first.body).toMatchObject({ backOffDone: [true, false], version: 1 });
+    // The session card saves its other sets without the ticks: they stay.
+    const other = await boAthlete
+      .put('/api/my-week/sessions/lower-me')
+      .send(tick(1, undefined, { accessorySetsDone: [3] }));
+    expect(other.body).toMatchObject({ backOffDone: [true, false], accessorySetsDone: [3], version: 2 });
+    const stale = await boAthlete.put('/api/my-week/sessions/lower-me').send(tick(1, [true, true]));
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.current).toMatchObject({ backOffDone: [true, false], version: 2 });
+    // The ticks alone: the counts stay.
+    const both = await boAthlete
+      .put('/api/my-week/sessions/lower-me')
+      .send({ week: thisWeek, version: 2, backOffDone: [true, true] });
+    expect(both.body).toMatchObject({ backOffDone: [true, true], accessorySetsDone: [3], version: 3 });
+  });
+
+  it('refuses ticks on a session without max effort and more ticks than sets may be, saving nothing', async () => {
+    const none = await boAthlete.put('/api/my-week/sessions/upper-speed').send(tick(0, [true]));
+    expect(FIELD_ERROR_STATUSES).toContain(none.status);
+    expect(none.body.error.fields.backOffDone[0]).toMatch(/no max-effort part/);
+    const many = await boAthlete.put('/api/my-week/sessions/lower-me').send(tick(3, Array(6).fill(true)));
+    expect(FIELD_ERROR_STATUSES).toContain(many.status);
+    expect(many.body.error.fields.backOffDone).toEqual(['At most 5 back-off sets']);
+    const wrong = await boAthlete.put('/api/my-week/sessions/lower-me').send(tick(3, ['yes'] as unknown as boolean[]));
+    expect(wrong.body.error.fields['backOffDone.0']).toBeDefined();
+    expect(await storedLog(bo.teamId, 'upper-speed')).toBeUndefined();
+    expect((await storedLog(bo.teamId, 'lower-me'))!).toMatchObject({ backOffDone: [true, true], version: 3 });
+    expect((await boCoach.put('/api/my-week/sessions/lower-me').send(tick(3, [true]))).status).toBe(403);
+  });
+
+  it('another team’s athlete logging the same session touches only their own log', async () => {
+    const res = await otherAthlete.put('/api/my-week/sessions/lower-me').send(tick(0, [false, true]));
+    expect(res.status).toBe(200);
+    expect((await storedLog(bo.teamId, 'lower-me'))!).toMatchObject({ backOffDone: [true, true], version: 3 });
+    expect((await storedLog(other.teamId, 'lower-me'))!).toMatchObject({ backOffDone: [false, true] });
+  });
+
+  it('the coach sees the ticks with the week’s other session logs; another team’s athlete is not found', async () => {
+    const res = await boCoach.get(`/api/athletes/${bo.athleteId}/weeks/${thisWeek}`);
+    expect(res.status).toBe(200);
+    expect((res.body as AthleteWeek).logs).toEqual([
+      {
+        sessionId: 'lower-me',
+        speedSetsDone: 0,
+        accessorySetsDone: [3],
+        backOffDone: [true, true],
+        done: false,
+        version: 3,
+      },
+    ]);
+    expect((await boCoach.get(`/api/athletes/${other.athleteId}/weeks/${thisWeek}`)).status).toBe(404);
+  });
+
+  it('My week carries the team’s back-off rule with the pick, and none with 0 sets', async () => {
+    const week = (await boAthlete.get('/api/my-week')).body;
+    expect(week.picks).toHaveLength(1);
+    expect(week.backOff).toEqual({ sets: 2, dropPct: 10 });
+    expect(week.sessions.find((s: { id: string }) => s.id === 'lower-me').log.backOffDone).toEqual([true, true]);
+    const rules = (await boHead.get('/api/rules')).body;
+    const saved = await boHead
+      .put('/api/rules')
+      .send({ ...rules, rules: { ...rules.rules, backOff: { sets: 0, dropPct: 10 } } });
+    expect(saved.status).toBe(200);
+    expect((await boAthlete.get('/api/my-week')).body.backOff).toBeNull();
+    const back = await boHead.put('/api/rules').send({ ...rules, version: saved.body.version });
+    expect(back.body.rules.backOff).toEqual({ sets: 2, dropPct: 10 });
+    expect((await boAthlete.get('/api/my-week')).body.backOff).toEqual({ sets: 2, dropPct: 10 });
+  });
+
+  it('a rest week or a deload week has no back-off sets', async () => {
+    const db = t.ctx.database.db;
+    await db.insert(restWeeks).values({ teamId: bo.teamId, athleteId: bo.athleteId, week: thisWeek });
+    expect((await boAthlete.get('/api/my-week')).body.backOff).toBeNull();
+    await db.delete(restWeeks).where(and(eq(restWeeks.athleteId, bo.athleteId), eq(restWeeks.week, thisWeek)));
+    expect((await boAthlete.get('/api/my-week')).body.backOff).toEqual({ sets: 2, dropPct: 10 });
+    const week = addWeeks(thisWeek, 1);
+    await publishAthleteWeek(db, bo.teamId, bo.athleteId, week);
+    const deload = await boCoach
+      .put(`/api/athletes/${bo.athleteId}/weeks/${week}`)
+      .send({ version: 0, deload: true, trainingMaxPct: 90, sessions: {} });
+    expect(deload.status).toBe(200);
+    const next = (await boAthlete.get(`/api/my-week?week=${week}`)).body;
+    expect(next).toMatchObject({ published: true, deload: true, backOff: null });
   });
 });

@@ -15,7 +15,7 @@ import { findTeamAthlete } from '../../server/modules/athletes/athletes.service'
 import { isWeekPublished } from '../../server/modules/my-week/my-week.repository';
 import { weekPicks } from '../../server/modules/plans/plans.repository';
 import { getAthleteWeek } from '../../server/modules/week/week.service';
-import { sessionLogs } from '../../server/db/schema';
+import { restWeeks, sessionLogs } from '../../server/db/schema';
 import { and, eq } from 'drizzle-orm';
 
 const DAY_MS = 86_400_000;
@@ -123,12 +123,19 @@ export async function referenceMyWeek(
             sessionId: l.sessionId,
             speedSetsDone: l.speedSetsDone,
             accessorySetsDone: l.accessorySetsDone,
+            backOffDone: l.backOffDone,
             done: l.done,
             version: l.version,
           }
         : null,
     };
   });
+  // Back-off sets after the top sets, unless the week is a rest or deload week for max effort.
+  const rest = await ctx.database.db
+    .select()
+    .from(restWeeks)
+    .where(and(eq(restWeeks.teamId, teamId), eq(restWeeks.athleteId, athleteId), eq(restWeeks.week, week)));
+  const noMaxEffort = rest.length > 0 || (plan?.deload ?? false);
   return {
     week,
     published,
@@ -136,6 +143,7 @@ export async function referenceMyWeek(
     unit: who.unit,
     athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
     picks,
+    backOff: rules.backOff.sets > 0 && !noMaxEffort ? rules.backOff : null,
     deload: plan?.deload ?? false,
     sessions,
     tissue,

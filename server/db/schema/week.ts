@@ -36,6 +36,8 @@ export const sessionLogs = mysqlTable(
     sessionId: varchar('session_id', { length: 32 }).notNull(),
     speedSetsDone: tinyint('speed_sets_done', { unsigned: true }).notNull().default(0),
     accessorySetsDone: json('accessory_sets_done').$type<number[]>().notNull(),
+    /** Each back-off set after the max-effort top set, ticked done or not. */
+    backOffDone: json('back_off_done').$type<boolean[]>().notNull().default([]),
     done: boolean('done').notNull().default(false),
     version: version(),
     updatedAt: updatedAt(),

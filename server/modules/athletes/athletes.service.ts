@@ -317,6 +317,11 @@ export async function markRestWeek(
   return { created: !before, item: { athleteId, week, createdAt: row.createdAt.toISOString() } };
 }
 
+/** Whether the athlete's week is marked a rest week for max effort (team-scoped). */
+export async function isRestWeek(db: Queryable, teamId: number, athleteId: number, week: string): Promise<boolean> {
+  return (await repo.findRestWeek(db, teamId, athleteId, week)) !== null;
+}
+
 export async function unmarkRestWeek(
   ctx: AppContext,
   teamId: number,

@@ -12,6 +12,7 @@ import {
   meetEntries,
   meets,
   planEntries,
+  restWeeks,
   restrictions,
   sessionLogs,
   teamRules,
@@ -93,6 +94,8 @@ const FINGERPRINT_PARTS: FingerprintPart[] = [
   // The week's sessions: the coach's training week of the athlete and what the athlete logged of it.
   own(athleteWeeks, true),
   own(sessionLogs, true),
+  // A rest week has no back-off sets.
+  own(restWeeks, true),
 ];
 
 /** The tables the fingerprint covers (for the test that holds the page to them). */

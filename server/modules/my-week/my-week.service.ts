@@ -17,7 +17,7 @@ import {
   toCheckinRow,
 } from '../tissue/tissue.service';
 import { recordOf, topSetsAroundWeek } from '../top-sets/top-sets.service';
-import { engineRestrictionsOf, findTeamAthlete } from '../athletes/athletes.service';
+import { engineRestrictionsOf, findTeamAthlete, isRestWeek } from '../athletes/athletes.service';
 import { keptAnswer } from './answer-cache';
 import { isWeekPublished, weekFingerprint } from './my-week.repository';
 import { weekPicks } from '../plans/plans.service';
@@ -60,6 +60,7 @@ export async function myWeek(
     published,
     weekParts,
     restrictions,
+    restWeek,
   ] = await Promise.all([
     findTeamAthlete(db, teamId, athleteId),
     findTeamRulesText(db, teamId),
@@ -74,6 +75,7 @@ export async function myWeek(
     week < thisWeek ? true : isWeekPublished(db, teamId, athleteId, week),
     weekInputs(db, teamId, athleteId, week),
     engineRestrictionsOf(db, teamId, athleteId),
+    isRestWeek(db, teamId, athleteId, week),
   ]);
   if (!athlete) throw new NotFoundError('A roster entry linked to your account');
   const rules = rulesFromText(teamId, rulesText);
@@ -144,6 +146,7 @@ export async function myWeek(
     daysOut: daysUntil(today, meet.date),
     weeksOut: weeksBetween(week, weekOfDate(new Date(`${meet.date}T00:00:00Z`))),
   };
+  const training = myWeekSessions(rules, athleteId, week, weekParts, published);
   return {
     week,
     published,
@@ -151,7 +154,9 @@ export async function myWeek(
     unit: who.unit,
     athlete: { id: athlete.id, name: athlete.name, sex: athlete.sex, division: athlete.division },
     picks,
-    ...myWeekSessions(rules, athleteId, week, weekParts, published),
+    // A rest or deload week has no max-effort work, so no back-off sets either.
+    backOff: rules.backOff.sets > 0 && !restWeek && !training.deload ? rules.backOff : null,
+    ...training,
     tissue,
     checkins: checkinWeeks,
     meet: meetInfo || null,

@@ -1,8 +1,7 @@
-// The accessories of an athlete's week chosen from the team's library: the rotation's suggestion (blocks,
-// repeat window, restrictions, and joint budgets counting the max-effort picks) and the checks on saving
+// The accessories of an athlete's week chosen from the team's library: the rotation's suggestion (the team's
+// block and repeat window, restrictions, and joint budgets counting the max-effort picks) and the checks on saving
 // accessory work that names a library accessory.
 import {
-  DEFAULT_ACCESSORY_ROTATION,
   UNFILLED_WORDS,
   accessoryBlockWeek,
   rotateAccessories,
@@ -54,7 +53,8 @@ export async function suggestAccessories(
   const db = ctx.database.db;
   const athlete = await getAthlete(ctx, teamId, athleteId);
   const [rules, library] = await Promise.all([readRulesOfTeam(db, teamId), libraryOf(db, teamId)]);
-  const { blockWeeks, repeatWindowWeeks } = DEFAULT_ACCESSORY_ROTATION;
+  // The team's windows (the defaults for a team that never set them).
+  const { blockWeeks, repeatWindowWeeks } = rules.accessoryRotation;
   const { jointWindowWeeks, jointBudget } = engineRules(rules, '', athlete.ruleOverrides);
   const from = addWeeks(week, -(repeatWindowWeeks + blockWeeks + jointWindowWeeks));
   const to = addWeeks(week, jointWindowWeeks);

@@ -60,7 +60,7 @@ export async function sessionLogsOf(db: Queryable, teamId: number, athleteId: nu
 }
 
 type LogKey = { teamId: number; athleteId: number; week: string; sessionId: string };
-type LogValues = { speedSetsDone: number; accessorySetsDone: number[]; done: boolean };
+type LogValues = { speedSetsDone: number; accessorySetsDone: number[]; backOffDone: boolean[]; done: boolean };
 
 export async function insertSessionLog(db: Queryable, key: LogKey, values: LogValues) {
   await db.insert(sessionLogs).values({ ...key, ...values });

@@ -41,6 +41,7 @@ import * as repo from './week.repository';
 import { isoDay } from '../../lib/days';
 
 type WeekRow = Awaited<ReturnType<typeof repo.findAthleteWeek>>;
+type LogRow = Awaited<ReturnType<typeof repo.sessionLogsOf>>[number];
 type CloseSet = Awaited<ReturnType<typeof closeLiftSetsOf>>[number];
 
 /** The date `since` which top sets count toward a training max, for a week. */
@@ -109,6 +110,7 @@ export function athleteWeekOf(
   week: string,
   row: WeekRow,
   sets: readonly CloseSet[],
+  logs: readonly LogRow[] = [],
 ): AthleteWeek {
   const pct = row?.trainingMaxPct ?? DEFAULT_TRAINING_MAX_PCT;
   const deload = row?.deload ?? false;
@@ -122,6 +124,7 @@ export function athleteWeekOf(
     maxes,
     work,
     sessions,
+    logs: sessions.flatMap((s) => logs.filter((l) => l.sessionId === s.id).map(toSessionLog)),
     version: row?.version ?? 0,
     updatedAt: row ? row.updatedAt.toISOString() : null,
   };
@@ -139,12 +142,13 @@ export async function getAthleteWeek(
 ) {
   const db = ctx.database.db;
   await mustFindAthlete(db, teamId, athleteId);
-  const [rules, row, sets] = await Promise.all([
+  const [rules, row, sets, logs] = await Promise.all([
     readRulesOfTeam(db, teamId),
     repo.findAthleteWeek(db, teamId, athleteId, week),
     closeLiftSetsOf(db, teamId, athleteId, maxesSince(week)),
+    repo.sessionLogsOf(db, teamId, athleteId, week),
   ]);
-  return athleteWeekOf(rules, athleteId, week, row, sets);
+  return athleteWeekOf(rules, athleteId, week, row, sets, logs);
 }
 
 /** Work for a session it has no part for, or for a session the rules do not have, is refused by field. */
@@ -214,11 +218,12 @@ export async function putAthleteWeek(
   return getAthleteWeek(ctx, teamId, athleteId, week);
 }
 
-export function toSessionLog(row: Awaited<ReturnType<typeof repo.sessionLogsOf>>[number]): SessionLog {
+export function toSessionLog(row: LogRow): SessionLog {
   return {
     sessionId: row.sessionId,
     speedSetsDone: row.speedSetsDone,
     accessorySetsDone: row.accessorySetsDone,
+    backOffDone: row.backOffDone,
     done: row.done,
     version: row.version,
   };
@@ -235,12 +240,27 @@ export async function logSession(
 ): Promise<SessionLog> {
   const db = ctx.database.db;
   const rules = await readRulesOfTeam(db, who.teamId);
-  if (!rules.sessions.some((s) => s.id === sessionId)) throw new NotFoundError('That session');
+  const session = rules.sessions.find((s) => s.id === sessionId);
+  if (!session) throw new NotFoundError('That session');
   if (body.week > weekOfDate(new Date())) {
     throw new ValidationError('Some fields need attention.', { week: ['That week has not started yet'] });
   }
+  if (body.backOffDone?.some(Boolean) && !session.parts.includes('maxEffort')) {
+    throw new ValidationError('Some fields need attention.', {
+      backOffDone: ['This session has no max-effort part, so no back-off sets'],
+    });
+  }
   const key = { teamId: who.teamId, athleteId: who.athleteId, week: body.week, sessionId };
-  const values = { speedSetsDone: body.speedSetsDone, accessorySetsDone: body.accessorySetsDone, done: body.done };
+  // What the body leaves out stays as stored: the session card and the back-off ticks each send their own.
+  const stored = (await repo.sessionLogsOf(db, who.teamId, who.athleteId, body.week)).find(
+    (r) => r.sessionId === sessionId,
+  );
+  const values = {
+    speedSetsDone: body.speedSetsDone ?? stored?.speedSetsDone ?? 0,
+    accessorySetsDone: body.accessorySetsDone ?? stored?.accessorySetsDone ?? [],
+    backOffDone: body.backOffDone ?? stored?.backOffDone ?? [],
+    done: body.done ?? stored?.done ?? false,
+  };
   let ok: boolean;
   if (body.version === 0) {
     try {
@@ -278,11 +298,8 @@ export function myWeekSessions(
   published: boolean,
 ): { deload: boolean; sessions: MyWeekSession[] } {
   if (!published) return { deload: false, sessions: [] };
-  const plan = athleteWeekOf(rules, athleteId, week, inputs.row, inputs.sets);
-  const sessions = plan.sessions.map((s) => {
-    const log = inputs.logs.find((l) => l.sessionId === s.id);
-    return { ...s, log: log ? toSessionLog(log) : null };
-  });
+  const plan = athleteWeekOf(rules, athleteId, week, inputs.row, inputs.sets, inputs.logs);
+  const sessions = plan.sessions.map((s) => ({ ...s, log: plan.logs.find((l) => l.sessionId === s.id) ?? null }));
   return { deload: plan.deload, sessions };
 }
 

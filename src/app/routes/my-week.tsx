@@ -61,6 +61,8 @@ export function Component() {
   if (error) return <Notice tone="error">{error.message}</Notice>;
   if (!data) return <Loading />;
   const isCurrent = !requested;
+  // A week that has started: its sessions and back-off sets can be logged.
+  const started = mondayOf(data.week).toISOString().slice(0, 10) <= data.today;
   return (
     <div className="mx-auto flex max-w-3xl flex-col gap-4">
       <PageHeader
@@ -87,7 +89,21 @@ export function Component() {
       ) : data.picks.length === 0 ? (
         <Notice>{MY_WEEK_EMPTY_NOTICE}</Notice>
       ) : (
-        data.picks.map((p) => <PickCard key={p.planEntryId} pick={p} unit={data.unit} />)
+        data.picks.map((p) => (
+          <PickCard
+            key={p.planEntryId}
+            pick={p}
+            unit={data.unit}
+            backOff={
+              data.backOff && {
+                rule: data.backOff,
+                session: data.sessions.find((s) => s.parts.includes('maxEffort') && s.slotId === p.slotId),
+                week: data.week,
+                editable: started,
+              }
+            }
+          />
+        ))
       )}
       <TrainingCaution />
       {rest ? (
@@ -96,7 +112,7 @@ export function Component() {
             sessions={data.sessions}
             week={data.week}
             today={data.today}
-            editable={mondayOf(data.week).toISOString().slice(0, 10) <= data.today}
+            editable={started}
             unit={data.unit}
             picks={data.picks}
             deload={data.deload}

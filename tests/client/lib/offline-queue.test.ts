@@ -15,6 +15,7 @@ function answer(status: number, body: unknown) {
 }
 
 afterEach(() => {
+  vi.useRealTimers();
   vi.unstubAllGlobals();
   calls.length = 0;
 });
@@ -76,5 +77,42 @@ describe('the offline queue', () => {
     ]);
     await discardQueued(queued.id);
     await expect(queuedWritesOf(ATHLETE)).resolves.toEqual([]);
+  });
+
+  it('a later PUT to the same path takes the place of a waiting one, its fields over the earlier ones', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => {
+        throw new TypeError('Failed to fetch');
+      }),
+    );
+    const path = '/my-week/sessions/lower-me';
+    // A second between writes, so their order in the list is the order they were made.
+    vi.useFakeTimers({ toFake: ['Date'] });
+    let clock = Date.parse('2026-12-03T09:00:00Z');
+    const tick = () => vi.setSystemTime((clock += 1000));
+    const put = (body: unknown, label: string) => {
+      tick();
+      return sendOrQueue({ owner: ATHLETE, method: 'PUT', path, body, label });
+    };
+    const first = await put({ week: '2026-W49', version: 0, speedSetsDone: 6 }, 'Speed sets');
+    const other = await put({ week: '2026-W49', version: 0, backOffDone: [true] }, 'Back-off set 1');
+    tick();
+    await sendOrQueue({ owner: ATHLETE, method: 'PUT', path: '/my-week/sessions/upper-me', body: {}, label: 'x' });
+    vi.useRealTimers();
+    const second = await put({ week: '2026-W49', version: 0, backOffDone: [true, true] }, 'Back-off sets');
+    if (first.sent || other.sent || second.sent) throw new Error('unreachable');
+    const kept = await queuedWritesOf(ATHLETE);
+    expect(kept.map((w) => w.path)).toEqual([path, '/my-week/sessions/upper-me']);
+    expect(kept[0]).toMatchObject({
+      id: second.queued.id,
+      queuedAt: first.queued.queuedAt,
+      body: { week: '2026-W49', version: 0, speedSetsDone: 6, backOffDone: [true, true] },
+      label: 'Back-off sets',
+    });
+    // Sent once, with the merged body and its own key.
+    vi.stubGlobal('fetch', answer(200, {}));
+    await expect(flushQueue(ATHLETE)).resolves.toBe(2);
+    expect(calls[0]).toEqual({ key: second.queued.id, body: JSON.stringify(kept[0]!.body) });
   });
 });

@@ -2,6 +2,10 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  BACK_OFF_SETS_MAX,
+  DEFAULT_BACK_OFF,
+  GYM_STEP,
+  backOffPlan,
   backOffSets,
   estimateOneRepMax,
   isLoadable,
@@ -158,6 +162,82 @@ describe('backOffSets (5–15 % lighter than the top set: common practice, no pu
   });
   it('refuses zero sets', () => {
     expect(() => backOffSets(180, 3, { sets: 0 })).toThrow(/back-off sets/);
+  });
+});
+
+describe('backOffPlan: the back-off sets of a max-effort pick', () => {
+  it('defaults to two sets about 10 % lighter (common practice, no single published source)', () => {
+    expect(DEFAULT_BACK_OFF).toEqual({ sets: 2, dropPct: 10 });
+  });
+  it('from the suggested top set before anything is logged, at the scheme’s reps', () => {
+    // 170 kg suggested triple, 10 % lighter: 153 → 152.5 in the 2.5 kg gym step (common practice).
+    expect(backOffPlan(DEFAULT_BACK_OFF, { logged: [], suggested: 170, schemeReps: 3 })).toEqual({
+      basis: 'suggested',
+      topSet: 170,
+      sets: [
+        { weight: 152.5, reps: 3 },
+        { weight: 152.5, reps: 3 },
+      ],
+    });
+  });
+  it('from the heaviest top set logged this week, at its reps, once one is logged', () => {
+    const logged = [
+      { weight: 180, reps: 3 },
+      { weight: 185, reps: 2 },
+    ];
+    // 185 × 0.85 = 157.25 → 157.5 is too heavy, so 155 (rounded down to the gym step).
+    expect(backOffPlan({ sets: 3, dropPct: 15 }, { logged, suggested: 170, schemeReps: 3 })).toEqual({
+      basis: 'logged',
+      topSet: 185,
+      sets: Array.from({ length: 3 }, () => ({ weight: 155, reps: 2 })),
+    });
+  });
+  it('in pounds, in the 5 lb gym step', () => {
+    // 405 lb × 0.9 = 364.5 → 360 lb (common practice: 5 lb jumps).
+    expect(backOffPlan({ sets: 1, dropPct: 10 }, { logged: [], suggested: 405, schemeReps: 1 }, 'lb')!.sets).toEqual([
+      { weight: 360, reps: 1 },
+    ]);
+  });
+  it('none with 0 sets, or with neither a logged nor a suggested top set', () => {
+    expect(backOffPlan({ sets: 0, dropPct: 10 }, { logged: [], suggested: 170, schemeReps: 3 })).toBeNull();
+    expect(backOffPlan(DEFAULT_BACK_OFF, { logged: [], suggested: null, schemeReps: 3 })).toBeNull();
+  });
+  it('refuses a count outside 0–5 or not whole', () => {
+    const top = { logged: [], suggested: 170, schemeReps: 3 };
+    expect(() => backOffPlan({ sets: 6, dropPct: 10 }, top)).toThrow(RangeError);
+    expect(() => backOffPlan({ sets: 1.5, dropPct: 10 }, top)).toThrow(RangeError);
+    expect(() => backOffPlan({ sets: -1, dropPct: 10 }, top)).toThrow(RangeError);
+  });
+  it('as many equal sets as the rule, each within a gym step of top × (1 − drop) and below the top set (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom('kg' as const, 'lb' as const),
+        fc.array(
+          fc.record({ weight: fc.double({ min: 60, max: 400, noNaN: true }), reps: fc.integer({ min: 1, max: 12 }) }),
+          {
+            maxLength: 3,
+          },
+        ),
+        fc.double({ min: 60, max: 400, noNaN: true }),
+        fc.integer({ min: 1, max: BACK_OFF_SETS_MAX }),
+        fc.integer({ min: 5, max: 25 }),
+        (unit, logged, suggested, sets, dropPct) => {
+          const plan = backOffPlan({ sets, dropPct }, { logged, suggested, schemeReps: 3 }, unit)!;
+          const top = logged.length ? Math.max(...logged.map((l) => l.weight)) : suggested;
+          expect(plan.basis).toBe(logged.length ? 'logged' : 'suggested');
+          expect(plan.topSet).toBe(top);
+          expect(plan.sets).toHaveLength(sets);
+          const target = (top * (100 - dropPct)) / 100;
+          for (const s of plan.sets) {
+            expect(s).toEqual(plan.sets[0]);
+            expect(isLoadable(s.weight, unit)).toBe(true);
+            expect(s.weight).toBeLessThan(top);
+            expect(s.weight).toBeLessThanOrEqual(target + 1e-6);
+            expect(s.weight).toBeGreaterThan(target - GYM_STEP[unit] - 1e-6);
+          }
+        },
+      ),
+    );
   });
 });
 

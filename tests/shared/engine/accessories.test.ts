@@ -55,6 +55,30 @@ describe('rotateAccessories, worked examples', () => {
     expect(out.unfilled).toEqual([]);
   });
 
+  it('a team’s own windows change the rotation: a longer block keeps a pick longer, a longer window keeps it away', () => {
+    // The same six weeks with two-week blocks: three picks instead of two.
+    const twoWeeks = { ...rules, blockWeeks: 2, repeatWindowWeeks: 2 };
+    const from = blockStart(1050, 2);
+    const six = [0, 1, 2, 3, 4, 5].map((n) => addWeeks(from, n));
+    const short = rotateAccessories({ weeks: six, slots, library, history: [], rules: twoWeeks });
+    expect(short.picks.map((p) => p.accessoryId)).toEqual(['seal', 'seal', 'face', 'face', 'row', 'row']);
+    // With a window of two weeks, the first pick may come back in the fourth block; with six it may not
+    // until the window has passed, so the least recent one that is free comes back only when all were used.
+    const eight = [0, 1, 2, 3, 4, 5, 6, 7].map((n) => addWeeks(from, n));
+    const back = rotateAccessories({ weeks: eight, slots, library, history: [], rules: twoWeeks });
+    expect(back.picks.slice(6).map((p) => p.accessoryId)).toEqual(['seal', 'seal']);
+    expect(back.picks.some((p) => p.early)).toBe(false);
+    const wide = rotateAccessories({
+      weeks: eight,
+      slots,
+      library,
+      history: [],
+      rules: { ...twoWeeks, repeatWindowWeeks: 6 },
+    });
+    expect(wide.picks.slice(6).map((p) => p.accessoryId)).toEqual(['seal', 'seal']);
+    expect(wide.picks.slice(6).every((p) => p.early)).toBe(true);
+  });
+
   it('continues the block the history started, and leaves out what was used in the window', () => {
     const history = [
       { week: addWeeks(start, -3), sessionId: 'upper', category: 'upperBack', accessoryId: 'seal' },

@@ -4,7 +4,13 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { addWeeks } from '../../../shared/engine/weeks';
 import { defaultSpeedWork, deloaded, sessionWorkFor, waveWeek } from '../../../shared/engine/week';
-import { DEFAULT_SESSIONS, DEFAULT_TEAM_RULES, readTeamRules, type SessionWork } from '../../../shared/schemas';
+import {
+  DEFAULT_SESSIONS,
+  DEFAULT_TEAM_RULES,
+  readTeamRules,
+  teamRulesSchema,
+  type SessionWork,
+} from '../../../shared/schemas';
 
 describe('speed wave weeks (three-week waves: common practice, no published source)', () => {
   it('cycles 1, 2, 3 week after week, across a year end', () => {
@@ -90,5 +96,43 @@ describe('rules saved before sessions existed', () => {
         speedLift: null,
       },
     ]);
+  });
+});
+
+describe('back-off and accessory rotation settings in the team rules', () => {
+  it('a team saved before they existed reads the defaults: 2 back-off sets 10 % lighter, 3-week blocks, 6-week window', () => {
+    const { backOff: _b, accessoryRotation: _a, ...old } = DEFAULT_TEAM_RULES;
+    expect(readTeamRules({ ...old, repeatWindowWeeks: 9 })).toMatchObject({
+      repeatWindowWeeks: 9,
+      backOff: { sets: 2, dropPct: 10 },
+      accessoryRotation: { blockWeeks: 3, repeatWindowWeeks: 6 },
+    });
+  });
+  it('a stored value out of range reads its default without losing the team’s other rules', () => {
+    const rules = readTeamRules({
+      ...DEFAULT_TEAM_RULES,
+      familyWindowWeeks: 5,
+      backOff: { sets: 9, dropPct: 10 },
+      accessoryRotation: { blockWeeks: 4, repeatWindowWeeks: 2 },
+    });
+    expect(rules).toMatchObject({
+      familyWindowWeeks: 5,
+      backOff: { sets: 2, dropPct: 10 },
+      accessoryRotation: { blockWeeks: 3, repeatWindowWeeks: 6 },
+    });
+  });
+  it('the request schema refuses bad values on their fields', () => {
+    const bad = teamRulesSchema.safeParse({
+      ...DEFAULT_TEAM_RULES,
+      backOff: { sets: 1.5, dropPct: 40 },
+      accessoryRotation: { blockWeeks: 4, repeatWindowWeeks: 3 },
+    });
+    expect(bad.success).toBe(false);
+    const paths = bad.error!.issues.map((i) => i.path.join('.'));
+    expect(paths).toEqual(
+      expect.arrayContaining(['backOff.sets', 'backOff.dropPct', 'accessoryRotation.repeatWindowWeeks']),
+    );
+    const none = teamRulesSchema.safeParse({ ...DEFAULT_TEAM_RULES, backOff: { sets: 0, dropPct: 10 } });
+    expect(none.success).toBe(true);
   });
 });

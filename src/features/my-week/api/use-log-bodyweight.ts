@@ -9,6 +9,8 @@ import { currentAthleteId, myWeekKeys } from './queries';
 export function useLogBodyweight() {
   const queryClient = useQueryClient();
   return useMutation({
+    // Sent or kept by the offline queue: never held back while the browser says it is offline.
+    networkMode: 'always',
     mutationFn: ({ measuredOn, ...body }: LogBodyweightBody & { measuredOn: string }) =>
       sendOrQueue<Bodyweight>({
         owner: currentAthleteId(queryClient) ?? 0,

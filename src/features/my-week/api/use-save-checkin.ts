@@ -8,6 +8,8 @@ import { currentAthleteId, myWeekKeys } from './queries';
 export function useSaveCheckin() {
   const queryClient = useQueryClient();
   return useMutation({
+    // Sent or kept by the offline queue: never held back while the browser says it is offline.
+    networkMode: 'always',
     mutationFn: (body: TissueCheckinBody) =>
       sendOrQueue<TissueCheckinRow>({
         owner: currentAthleteId(queryClient) ?? 0,

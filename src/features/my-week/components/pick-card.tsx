@@ -6,6 +6,9 @@ import { formatWeight, fromKg, roundToLoadable, suggestedTopSet, type WeightUnit
 import type { MyWeekPick, TopSet } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
 import { CleanIcon } from '../../../components/ui/icons';
+import type { BackOffRule } from '../../../../shared/calc';
+import type { MyWeekSession } from '../../../../shared/schemas';
+import { BackOffSets } from './back-off-sets';
 import { OnDemand } from './on-demand';
 import { WarmupRamp } from './warmup-ramp';
 
@@ -19,7 +22,23 @@ function setText(s: TopSet, unit: WeightUnit): string {
   return `${s.reps} × ${formatWeight(s.weightKg, unit, { decimals: 1 })}${s.rpe ? ` @ RPE ${s.rpe}` : ''}`;
 }
 
-export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit }) {
+/** The team's back-off sets for a pick, with the session that keeps their ticks; null for none. */
+export interface PickBackOff {
+  rule: BackOffRule;
+  session: MyWeekSession | undefined;
+  week: string;
+  editable: boolean;
+}
+
+export function PickCard({
+  pick,
+  unit,
+  backOff = null,
+}: {
+  pick: MyWeekPick;
+  unit: WeightUnit;
+  backOff?: PickBackOff | null;
+}) {
   const [warmup, setWarmup] = useState(false);
   const best = pick.record.bestE1rm;
   const suggested = best
@@ -99,6 +118,8 @@ export function PickCard({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit })
           </ul>
         </div>
       ) : null}
+
+      {backOff ? <BackOffSets pick={pick} unit={unit} suggested={suggested} {...backOff} /> : null}
 
       <div className="flex flex-col gap-3">
         <Button

@@ -10,6 +10,7 @@ import { CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
 import { useLogSession } from '../api/use-log-session';
+import { KEPT_WITHOUT_SIGNAL, StatusLine } from './status-line';
 
 const ACCOMMODATION = { none: '', bands: ' + bands', chains: ' + chains' } as const;
 
@@ -88,10 +89,12 @@ function SessionCard({
     save.mutate(
       {
         sessionId: session.id,
+        // The back-off ticks are left out: they are saved from the pick's card and stay as stored.
         body: { week, version: log?.version ?? 0, speedSetsDone: speedDone, accessorySetsDone: accDone, done },
+        label: `${session.name}: ${done ? 'session done' : 'sets done'}`,
       },
       {
-        onSuccess: () => setMessage(done ? 'Session marked done.' : 'Saved.'),
+        onSuccess: (out) => setMessage(!out.sent ? KEPT_WITHOUT_SIGNAL : done ? 'Session marked done.' : 'Saved.'),
         onError: (err) =>
           setMessage(isApiError(err, 409) ? 'Logged from another device meanwhile; shown again now.' : err.message),
       },
@@ -178,11 +181,7 @@ function SessionCard({
             </Button>
           </div>
         ) : null}
-        {message ? (
-          <p role="status" className="text-sm font-semibold text-ink-800">
-            {message}
-          </p>
-        ) : null}
+        <StatusLine message={message} />
       </div>
     </details>
   );

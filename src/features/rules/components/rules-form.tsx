@@ -17,6 +17,7 @@ import { applyFieldErrors } from '../../../lib/form-errors';
 import { useSaveRules } from '../api/use-save-rules';
 import { RuleRow, RuleSection } from './rule-row';
 import { SessionsSection } from './sessions-section';
+import { AccessoryRotationSection, BackOffSection } from './week-work-section';
 
 type Form = UseFormReturn<TeamRulesBody>;
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
@@ -64,6 +65,8 @@ export function RulesForm({ doc }: { doc: TeamRulesDoc }) {
       ) : null}
       <Slots form={form} savedIds={savedSlotIds} />
       <SessionsSection form={form} />
+      <BackOffSection form={form} />
+      <AccessoryRotationSection form={form} />
       <Windows form={form} />
       <Budgets form={form} />
       <Balance form={form} />

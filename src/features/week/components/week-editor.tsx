@@ -24,6 +24,7 @@ import {
   type AthleteWeek,
   type AthleteWeekBody,
   type LibraryAccessory,
+  type SessionLog,
   type WeekSession,
 } from '../../../../shared/schemas';
 import { Button } from '../../../components/ui/button';
@@ -183,6 +184,18 @@ function Accessories({
   );
 }
 
+/** What the athlete logged of a session, in one line. */
+function logText(session: WeekSession, log: SessionLog | undefined): string {
+  if (!log) return 'nothing logged yet.';
+  const parts: string[] = [];
+  if (session.speed) parts.push(`speed ${log.speedSetsDone} of ${session.speed.sets} sets`);
+  session.accessories.forEach((a, i) => parts.push(`${a.name} ${log.accessorySetsDone[i] ?? 0} of ${a.sets}`));
+  if (session.parts.includes('maxEffort') && log.backOffDone.length > 0)
+    parts.push(`back-off sets ${log.backOffDone.filter(Boolean).length} of ${log.backOffDone.length} ticked`);
+  parts.push(log.done ? 'session done' : 'session not marked done');
+  return `${parts.join(' · ')}.`;
+}
+
 function SessionFields({
   session,
   control,
@@ -190,6 +203,7 @@ function SessionFields({
   setValue,
   errors,
   library,
+  log,
 }: {
   session: WeekSession;
   control: Control<Values>;
@@ -197,6 +211,7 @@ function SessionFields({
   setValue: UseFormSetValue<Values>;
   errors: Errs;
   library: readonly LibraryAccessory[];
+  log: SessionLog | undefined;
 }) {
   const sp = `sessions.${session.id}.speed` as const;
   return (
@@ -208,6 +223,9 @@ function SessionFields({
         {session.name} <span className="text-sm font-normal text-ink-600">· {WEEKDAY_LABELS[session.weekday - 1]}</span>
       </h2>
       <p className="text-sm text-ink-600">{session.parts.map((p) => SESSION_PART_LABELS[p]).join(' · ')}</p>
+      <p className="text-sm text-ink-800" data-testid={`log-${session.id}`}>
+        <span className="font-semibold">Athlete’s log:</span> {logText(session, log)}
+      </p>
       {session.parts.includes('maxEffort') ? (
         <p className="text-sm text-ink-700">The max-effort pick is planned on the Board.</p>
       ) : null}
@@ -352,6 +370,7 @@ export function WeekEditor({ athleteId, data }: { athleteId: number; data: Athle
           setValue={form.setValue}
           errors={errors}
           library={library.data?.items ?? []}
+          log={data.logs.find((l) => l.sessionId === s.id)}
         />
       ))}
       <Button type="submit" disabled={save.isPending} className="self-start">

@@ -1,0 +1,1 @@
+ALTER TABLE `session_logs` ADD `back_off_done` json DEFAULT ('[]') NOT NULL;
