@@ -301,10 +301,6 @@ describe('GET /api/my-week with sessions', () => {
   });
 });
 
-// Field errors answer 422 once the project-wide move from 400 lands; until then this branch answers 400.
-// Either way they name the field and save nothing, which is what these tests hold to.
-const FIELD_ERROR_STATUSES = [422, 400];
-
 describe('back-off sets after the max-effort top set', () => {
   let bo: TestTeam;
   let boAthlete: request.Agent;
@@ -363,10 +359,10 @@ describe('back-off sets after the max-effort top set', () => {
 
   it('refuses ticks on a session without max effort and more ticks than sets may be, saving nothing', async () => {
     const none = await boAthlete.put('/api/my-week/sessions/upper-speed').send(tick(0, [true]));
-    expect(FIELD_ERROR_STATUSES).toContain(none.status);
+    expect(none.status).toBe(422);
     expect(none.body.error.fields.backOffDone[0]).toMatch(/no max-effort part/);
     const many = await boAthlete.put('/api/my-week/sessions/lower-me').send(tick(3, Array(6).fill(true)));
-    expect(FIELD_ERROR_STATUSES).toContain(many.status);
+    expect(many.status).toBe(422);
     expect(many.body.error.fields.backOffDone).toEqual(['At most 5 back-off sets']);
     const wrong = await boAthlete.put('/api/my-week/sessions/lower-me').send(tick(3, ['yes'] as unknown as boolean[]));
     expect(wrong.body.error.fields['backOffDone.0']).toBeDefined();
