@@ -127,3 +127,11 @@ export function EmailField({
 }: Omit<FieldShell, 'label'> & { label?: string } & Omit<InputHTMLAttributes<HTMLInputElement>, 'type'>) {
   return <TextField label={label} type="email" inputMode="email" autoComplete={autoComplete} {...props} />;
 }
+
+/** A weight in the athlete's unit: the label names the unit, and a phone offers its number pad with a decimal point. */
+export function WeightField({
+  unit,
+  ...props
+}: Omit<FieldShell, 'label'> & { unit: string } & Omit<InputHTMLAttributes<HTMLInputElement>, 'type' | 'inputMode'>) {
+  return <TextField label={`Weight (${unit})`} inputMode="decimal" autoComplete="off" {...props} />;
+}

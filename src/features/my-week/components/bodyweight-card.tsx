@@ -9,7 +9,7 @@ import { bodyweightForm, type BodyweightFormValues, type BodyweightState } from 
 import { OnDemand } from './on-demand';
 import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/field';
+import { TextField, WeightField } from '../../../components/ui/field';
 import { WarningIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
@@ -126,14 +126,7 @@ export function BodyweightCard({
               error={errors.measuredOn?.message}
               {...form.register('measuredOn')}
             />
-            <TextField
-              style={TOUCH}
-              label={`Weight (${unit})`}
-              inputMode="decimal"
-              autoComplete="off"
-              error={errors.weight?.message}
-              {...form.register('weight')}
-            />
+            <WeightField style={TOUCH} unit={unit} error={errors.weight?.message} {...form.register('weight')} />
           </div>
           <Button type="submit" variant="secondary" disabled={form.formState.isSubmitting}>
             {form.formState.isSubmitting ? 'Saving…' : 'Save bodyweight'}

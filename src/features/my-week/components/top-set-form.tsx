@@ -13,7 +13,7 @@ import {
 } from '../../../../shared/schemas';
 import { TOUCH } from './touch';
 import { Button } from '../../../components/ui/button';
-import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { SelectField, TextAreaField, TextField, WeightField } from '../../../components/ui/field';
 import { CleanIcon } from '../../../components/ui/icons';
 import { Notice } from '../../../components/ui/page';
 import { isApiError } from '../../../lib/api-client';
@@ -91,14 +91,7 @@ export function TopSetForm({ pick, unit }: { pick: MyWeekPick; unit: WeightUnit 
       >
         {serverError ? <Notice tone="error">{serverError}</Notice> : null}
         <div className="grid grid-cols-2 gap-3">
-          <TextField
-            style={TOUCH}
-            label={`Weight (${unit})`}
-            inputMode="decimal"
-            autoComplete="off"
-            error={errors.weight?.message}
-            {...form.register('weight')}
-          />
+          <WeightField style={TOUCH} unit={unit} error={errors.weight?.message} {...form.register('weight')} />
           <TextField
             style={TOUCH}
             label="Reps"
