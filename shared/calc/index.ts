@@ -8,7 +8,17 @@ export {
   estimateOneRepMaxAtRpe,
   type E1rmFormula,
 } from './e1rm';
-export { KG_PER_LB, WEIGHT_UNITS, formatWeight, fromKg, kgToLb, lbToKg, toKg, type WeightUnit } from './units';
+export {
+  KG_PER_LB,
+  WEIGHT_UNITS,
+  formatInUnit,
+  formatWeight,
+  fromKg,
+  kgToLb,
+  lbToKg,
+  toKg,
+  type WeightUnit,
+} from './units';
 export {
   DEFAULT_BAR_SETUP,
   PLATE_COLOURS,

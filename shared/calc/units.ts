@@ -34,7 +34,11 @@ export function toKg(value: number, unit: WeightUnit): number {
  * is a no-break space so the unit never wraps away from its number.
  */
 export function formatWeight(kg: number, unit: WeightUnit, opts: { decimals?: number } = {}): string {
-  const value = fromKg(kg, unit);
+  return formatInUnit(fromKg(kg, unit), unit, opts);
+}
+
+/** The same for a value already in `unit` (a load worked out in the athlete's unit). */
+export function formatInUnit(value: number, unit: WeightUnit, opts: { decimals?: number } = {}): string {
   const decimals = opts.decimals ?? (unit === 'kg' ? 2 : 1);
   requireInteger('decimals', decimals, 0, 6);
   const factor = 10 ** decimals;

@@ -1,7 +1,7 @@
 // Kilogram ↔ pound conversion and weight display.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { KG_PER_LB, formatWeight, fromKg, kgToLb, lbToKg, toKg } from '../../../shared/calc';
+import { KG_PER_LB, formatInUnit, formatWeight, fromKg, kgToLb, lbToKg, toKg } from '../../../shared/calc';
 
 describe('the international pound', () => {
   // International yard and pound agreement, 1959: 1 lb = 0.45359237 kg exactly — text (a definition).
@@ -46,5 +46,11 @@ describe('formatWeight', () => {
     expect(formatWeight(100, 'lb')).toBe('220.5\u00a0lb'); // 220.4623 lb
     expect(formatWeight(lbToKg(225), 'lb')).toBe('225\u00a0lb');
     expect(formatWeight(102.5, 'kg', { decimals: 0 })).toBe('103\u00a0kg');
+  });
+
+  it('formats a value already in the unit the same way, without converting it', () => {
+    expect(formatInUnit(225, 'lb')).toBe('225\u00a0lb');
+    expect(formatInUnit(87.5, 'kg', { decimals: 1 })).toBe('87.5\u00a0kg');
+    expect(formatInUnit(48.25, 'kg', { decimals: 1 })).toBe('48.3\u00a0kg');
   });
 });

@@ -1,7 +1,7 @@
 // The back-off sets under a max-effort pick's top set: weight × reps with the plates, from the top set
 // logged this week (or the suggested one until then, said so), each ticked done as it is finished.
 import { useState } from 'react';
-import { backOffPlan, fromKg, type BackOffRule, type WeightUnit } from '../../../../shared/calc';
+import { backOffPlan, formatInUnit, fromKg, type BackOffRule, type WeightUnit } from '../../../../shared/calc';
 import type { MyWeekPick, MyWeekSession } from '../../../../shared/schemas';
 import { isApiError } from '../../../lib/api-client';
 import { useLogSession } from '../api/use-log-session';
@@ -48,7 +48,7 @@ export function BackOffSets({
   const [message, setMessage] = useState<string | null>(null);
   const headingId = `backoff-${pick.planEntryId}`;
   // Weights here are already in the athlete's unit, in loadable steps.
-  const w = (n: number) => `${Math.round(n * 10) / 10}\u00a0${unit}`;
+  const w = (n: number) => formatInUnit(n, unit, { decimals: 1 });
 
   const toggle = (i: number, on: boolean) => {
     if (!session) return;
